@@ -1,0 +1,26 @@
+/** `npm run bench`: every figure of DESIGN.md §10 with its target; writes bench/results/latest.json. */
+import { mkdirSync, writeFileSync } from 'node:fs';
+import type { BenchFigure } from './measure';
+import { runParseBench } from './parse-bench';
+
+async function main(): Promise<void> {
+  const sections: [string, BenchFigure[]][] = [['parse', runParseBench()]];
+  for (const [section, figures] of sections) {
+    console.log(`\n${section}`);
+    for (const f of figures) {
+      const verdict = f.met === undefined ? '' : f.met ? '  met' : '  MISSED';
+      const target = f.target ? `  target ${f.target}` : '';
+      console.log(`  ${f.name.padEnd(40)} ${formatValue(f.value).padStart(10)} ${f.unit.padEnd(5)}${target}${verdict}${f.note ? `  (${f.note})` : ''}`);
+    }
+  }
+  mkdirSync('bench/results', { recursive: true });
+  const result = { date: new Date().toISOString(), node: process.version, sections: Object.fromEntries(sections) };
+  writeFileSync('bench/results/latest.json', JSON.stringify(result, null, 2) + '\n');
+  console.log('\nwritten bench/results/latest.json');
+}
+
+function formatValue(value: number): string {
+  return Math.abs(value) >= 100 ? value.toFixed(0) : value.toPrecision(3);
+}
+
+void main();

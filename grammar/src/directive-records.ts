@@ -1,0 +1,97 @@
+/**
+ * Typed records of the `*@` directives (our own; they live in comments so the file stays valid
+ * for any simulator). Values are SI numbers; temperatures °C; fractions for percentages.
+ */
+import type { Name, Span } from './syntax-tree';
+
+export interface MainsDirective {
+  keyword: 'mains';
+  span: Span;
+  /** RMS volts: line-to-neutral for one phase, line-to-line when `phases` is 3. */
+  vrms?: number;
+  freqHz?: number;
+  /** Line tolerance as fractions, e.g. −0.15 and +0.10. */
+  tolLow?: number;
+  tolHigh?: number;
+  phases?: 1 | 3;
+}
+
+export interface AmbientDirective {
+  keyword: 'ambient';
+  span: Span;
+  nominalC?: number;
+  maxC?: number;
+}
+
+export type LoadSpec =
+  | { kind: 'power'; w: number }
+  | { kind: 'current'; a: number }
+  | { kind: 'resistance'; ohm: number };
+
+export interface LoadDirective {
+  keyword: 'load';
+  span: Span;
+  load?: LoadSpec;
+  /** Lowest output voltage the load works down to (for hold-up time). */
+  vminV?: number;
+}
+
+/** Rating keys (IEC 60747 / JEDEC symbols, lowercase). */
+export const RATING_KEYS = [
+  'vrrm', 'ifav', 'ifsm', 'tjmax', 'rthja', 'vf',
+  'vds', 'id', 'rdson', 'vsd',
+  'vrated', 'iripple', 'esr',
+  'vmin', 'iq',
+  'cost',
+] as const;
+export type RatingKey = (typeof RATING_KEYS)[number];
+
+export interface ForwardPoint {
+  vV: number;
+  iA: number;
+}
+
+export interface RatingEntry {
+  key: RatingKey;
+  span: Span;
+  /** Scalar value (absent for `vf`, which carries points). */
+  value?: number;
+  /** `vf=0.93V@1A,0.78V@0.1A`. */
+  points?: ForwardPoint[];
+  /** `ifsm=30A@10ms`: the surge duration the rating is given for. */
+  durationS?: number;
+}
+
+export interface RateDirective {
+  keyword: 'rate';
+  span: Span;
+  /** A model name or an instance name. */
+  target?: Name;
+  entries: RatingEntry[];
+}
+
+export const DERATE_KEYS = ['vr', 'if', 'ifsm', 'tj', 'cap', 'ripple', 'vds', 'id'] as const;
+export type DerateKey = (typeof DERATE_KEYS)[number];
+
+export interface DerateEntry {
+  key: DerateKey;
+  span: Span;
+  /** A fraction of the rating (`vr=80%` → 0.8) or, for `tj`, a temperature in °C. */
+  value: number;
+}
+
+export interface DerateDirective {
+  keyword: 'derate';
+  span: Span;
+  entries: DerateEntry[];
+}
+
+export interface AllowDirective {
+  keyword: 'allow';
+  span: Span;
+  codes: Name[];
+}
+
+export type Directive = MainsDirective | AmbientDirective | LoadDirective | RateDirective | DerateDirective | AllowDirective;
+
+export const DIRECTIVE_KEYWORDS = ['mains', 'ambient', 'load', 'rate', 'derate', 'allow'] as const;

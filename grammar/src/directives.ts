@@ -1,0 +1,274 @@
+/**
+ * Reads one `*@` directive line into a typed record. Each problem is a diagnostic on the exact
+ * word at fault, in words of our own; an unknown keyword is a warning, not an error, so a file
+ * written for a newer version still analyses.
+ */
+import {
+  DERATE_KEYS, DIRECTIVE_KEYWORDS, RATING_KEYS,
+  type AllowDirective, type AmbientDirective, type DerateDirective, type DerateKey, type Directive,
+  type ForwardPoint, type LoadDirective, type MainsDirective, type RateDirective, type RatingEntry, type RatingKey,
+} from './directive-records';
+import type { Span, SyntaxDiagnostic } from './syntax-tree';
+import { readNumber } from './values';
+
+interface Word {
+  text: string;
+  start: number;
+  end: number;
+}
+
+type Report = (word: Span, message: string) => void;
+
+export interface DirectiveParse {
+  directive?: Directive;
+  diagnostics: SyntaxDiagnostic[];
+}
+
+/** Parses the text of a directive line (starting with `*@`) found at `offset` in the document. */
+export function parseDirective(line: string, offset: number): DirectiveParse {
+  const diagnostics: SyntaxDiagnostic[] = [];
+  const span: Span = { start: offset, end: offset + line.length };
+  const report: Report = (at, message) => diagnostics.push({ span: at, severity: 'error', code: 'directive-error', message });
+  const words = splitWords(line.slice(2), offset + 2);
+  const head = words.shift();
+  if (!head) {
+    report(span, `empty directive; expected one of ${DIRECTIVE_KEYWORDS.join(', ')}`);
+    return { diagnostics };
+  }
+  const keyword = head.text.toLowerCase();
+  const readers: Record<string, (ws: Word[], s: Span, r: Report) => Directive> = {
+    mains: readMains, ambient: readAmbient, load: readLoad, rate: readRate, derate: readDerate, allow: readAllow,
+  };
+  const reader = readers[keyword];
+  if (!reader) {
+    diagnostics.push({
+      span: head, severity: 'warning', code: 'directive-error',
+      message: `unknown directive '${head.text}'; expected one of ${DIRECTIVE_KEYWORDS.join(', ')}`,
+    });
+    return { diagnostics };
+  }
+  return { directive: reader(words, span, report), diagnostics };
+}
+
+function splitWords(text: string, base: number): Word[] {
+  const words: Word[] = [];
+  for (const m of text.matchAll(/\S+/g)) words.push({ text: m[0], start: base + m.index, end: base + m.index + m[0].length });
+  return words;
+}
+
+/** Splits `key=value` keeping the value's offset. */
+function splitKeyValue(word: Word): { key: string; value?: Word } {
+  const at = word.text.indexOf('=');
+  if (at < 0) return { key: word.text.toLowerCase() };
+  return { key: word.text.slice(0, at).toLowerCase(), value: { text: word.text.slice(at + 1), start: word.start + at + 1, end: word.end } };
+}
+
+const UNIT_NAMES: Readonly<Record<string, string>> = {
+  V: 'a voltage such as 230V', Hz: 'a frequency such as 50Hz', C: 'a temperature such as 60C', '%': 'a percentage such as 80%',
+  A: 'a current such as 1A', W: 'a power such as 45W', ohm: 'a resistance such as 33ohm', s: 'a time such as 10ms',
+  'K/W': 'a thermal resistance such as 60 (K/W)', '': 'a number',
+};
+
+const UNIT_SPELLINGS: Readonly<Record<string, readonly string[]>> = {
+  V: ['v', 'volt', 'volts'], Hz: ['hz'], C: ['c', '°c', '°'], '%': ['%'], A: ['a', 'amp', 'amps'], W: ['w', 'watt', 'watts'],
+  ohm: ['ohm', 'ohms', 'Ω', 'r'], s: ['s', 'sec'], 'K/W': ['k/w', 'c/w', '°c/w'], '': [],
+};
+
+/** Reads a number in the expected unit (written or omitted); reports and returns undefined otherwise. */
+function readQuantity(word: Word | undefined, unit: string, report: Report, at: Span): number | undefined {
+  if (!word || word.text === '') {
+    report(word ?? at, `expected ${UNIT_NAMES[unit]}`);
+    return undefined;
+  }
+  let text = word.text;
+  if (unit === 'K/W') text = text.replace(/(k|°?c)\/w$/i, '');
+  const reading = readNumber(text);
+  const spellings = UNIT_SPELLINGS[unit]!;
+  if (!reading || !Number.isFinite(reading.value) || (reading.unit !== '' && !spellings.includes(reading.unit))) {
+    report(word, `expected ${UNIT_NAMES[unit]}, got '${word.text}'`);
+    return undefined;
+  }
+  return unit === '%' ? reading.value / 100 : reading.value;
+}
+
+/** Tells which unit a written quantity carries, for directives that accept several. */
+function unitOf(word: Word): string | undefined {
+  const reading = readNumber(word.text);
+  if (!reading) return undefined;
+  for (const [unit, spellings] of Object.entries(UNIT_SPELLINGS)) if (spellings.includes(reading.unit)) return unit;
+  return undefined;
+}
+
+function readMains(words: Word[], span: Span, report: Report): MainsDirective {
+  const record: MainsDirective = { keyword: 'mains', span };
+  for (const word of words) {
+    const { key, value } = splitKeyValue(word);
+    if (value && key === 'tol') readTolerance(value, record, report);
+    else if (value && key === 'phases') {
+      const phases = readQuantity(value, '', report, word);
+      if (phases === 1 || phases === 3) record.phases = phases;
+      else if (phases !== undefined) report(value, `phases must be 1 or 3, got '${value.text}'`);
+    } else if (value) report(word, `unknown mains key '${key}'; expected tol or phases`);
+    else if (unitOf(word) === 'Hz') record.freqHz = readQuantity(word, 'Hz', report, span);
+    else if (record.vrms === undefined) record.vrms = readQuantity(word, 'V', report, span);
+    else report(word, `unexpected '${word.text}'; mains takes a voltage, a frequency, tol= and phases=`);
+  }
+  if (record.vrms === undefined) report(span, 'mains needs a voltage such as 230V');
+  return record;
+}
+
+function readTolerance(value: Word, record: MainsDirective, report: Report): void {
+  const parts = value.text.split(',');
+  const comma = value.text.indexOf(',');
+  const first: Word = { text: parts[0]!, start: value.start, end: value.start + parts[0]!.length };
+  const low = readQuantity(first, '%', report, value);
+  if (parts.length === 1) {
+    if (low !== undefined) [record.tolLow, record.tolHigh] = [-Math.abs(low), Math.abs(low)];
+    return;
+  }
+  const second: Word = { text: parts[1]!, start: value.start + comma + 1, end: value.end };
+  const high = readQuantity(second, '%', report, value);
+  if (low !== undefined && high !== undefined) {
+    if (low > 0 || high < 0) report(value, 'tol is written low,high: e.g. tol=-15%,+10%');
+    else [record.tolLow, record.tolHigh] = [low, high];
+  }
+}
+
+function readAmbient(words: Word[], span: Span, report: Report): AmbientDirective {
+  const record: AmbientDirective = { keyword: 'ambient', span };
+  const word = words[0];
+  if (!word) {
+    report(span, 'ambient needs a temperature such as 25C..60C');
+    return record;
+  }
+  const range = word.text.split('..');
+  if (range.length === 2) {
+    const dots = word.text.indexOf('..');
+    record.nominalC = readQuantity({ text: range[0]!, start: word.start, end: word.start + dots }, 'C', report, word);
+    record.maxC = readQuantity({ text: range[1]!, start: word.start + dots + 2, end: word.end }, 'C', report, word);
+    if (record.nominalC !== undefined && record.maxC !== undefined && record.maxC < record.nominalC) {
+      report(word, 'ambient is written nominal..maximum, lowest first');
+    }
+  } else {
+    record.nominalC = record.maxC = readQuantity(word, 'C', report, span);
+  }
+  for (const extra of words.slice(1)) report(extra, `unexpected '${extra.text}'; ambient takes one range such as 25C..60C`);
+  return record;
+}
+
+function readLoad(words: Word[], span: Span, report: Report): LoadDirective {
+  const record: LoadDirective = { keyword: 'load', span };
+  for (const word of words) {
+    const { key, value } = splitKeyValue(word);
+    if (value && key === 'vmin') record.vminV = readQuantity(value, 'V', report, word);
+    else if (value) report(word, `unknown load key '${key}'; expected vmin`);
+    else if (record.load) report(word, `unexpected '${word.text}'; load takes one of W, A or ohm`);
+    else {
+      const unit = unitOf(word);
+      const kind = unit === 'W' ? 'power' : unit === 'A' ? 'current' : unit === 'ohm' ? 'resistance' : undefined;
+      if (!kind) report(word, `load needs a unit: 45W (constant power), 0.8A (constant current) or 33ohm, got '${word.text}'`);
+      else {
+        const amount = readQuantity(word, unit!, report, span)!;
+        record.load = kind === 'power' ? { kind, w: amount } : kind === 'current' ? { kind, a: amount } : { kind, ohm: amount };
+      }
+    }
+  }
+  if (!record.load && words.length === 0) report(span, 'load needs a value such as 45W, 0.8A or 33ohm');
+  return record;
+}
+
+const RATING_UNITS: Readonly<Record<RatingKey, string>> = {
+  vrrm: 'V', ifav: 'A', ifsm: 'A', tjmax: 'C', rthja: 'K/W', vf: 'V', vds: 'V', id: 'A', rdson: 'ohm', vsd: 'V',
+  vrated: 'V', iripple: 'A', esr: 'ohm', vmin: 'V', iq: 'A', cost: '',
+};
+
+function readRate(words: Word[], span: Span, report: Report): RateDirective {
+  const target = words.shift();
+  const record: RateDirective = { keyword: 'rate', span, entries: [] };
+  if (!target || target.text.includes('=')) {
+    report(target ?? span, 'rate needs a model or instance name first, e.g. *@ rate DMAIN vrrm=600V');
+    if (target) words.unshift(target);
+  } else {
+    record.target = { text: target.text, span: { start: target.start, end: target.end } };
+  }
+  for (const word of words) {
+    const entry = readRatingEntry(word, report);
+    if (entry) record.entries.push(entry);
+  }
+  return record;
+}
+
+function readRatingEntry(word: Word, report: Report): RatingEntry | undefined {
+  const { key, value } = splitKeyValue(word);
+  if (!(RATING_KEYS as readonly string[]).includes(key)) {
+    report(word, `unknown rating '${key}'; expected one of ${RATING_KEYS.join(', ')}`);
+    return undefined;
+  }
+  const span = { start: word.start, end: word.end };
+  if (!value) {
+    report(word, `rating '${key}' needs a value, e.g. ${key}=…`);
+    return undefined;
+  }
+  const ratingKey = key as RatingKey;
+  if (ratingKey === 'vf') {
+    const points = readForwardPoints(value, report);
+    return points ? { key: ratingKey, span, points } : undefined;
+  }
+  const [amount, duration] = splitAt(value);
+  const entry: RatingEntry = { key: ratingKey, span, value: readQuantity(amount, RATING_UNITS[ratingKey], report, word) };
+  if (duration) {
+    if (ratingKey !== 'ifsm') report(duration, `only ifsm takes a duration after '@'`);
+    else entry.durationS = readQuantity(duration, 's', report, word);
+  }
+  return entry.value === undefined ? undefined : entry;
+}
+
+function splitAt(word: Word): [Word, Word | undefined] {
+  const at = word.text.indexOf('@');
+  if (at < 0) return [word, undefined];
+  return [
+    { text: word.text.slice(0, at), start: word.start, end: word.start + at },
+    { text: word.text.slice(at + 1), start: word.start + at + 1, end: word.end },
+  ];
+}
+
+function readForwardPoints(value: Word, report: Report): ForwardPoint[] | undefined {
+  const points: ForwardPoint[] = [];
+  let start = value.start;
+  for (const part of value.text.split(',')) {
+    const piece: Word = { text: part, start, end: start + part.length };
+    start += part.length + 1;
+    const [volts, amps] = splitAt(piece);
+    if (!amps) {
+      report(piece, `a forward point is written volts@amps, e.g. 0.93V@1A; got '${part}'`);
+      return undefined;
+    }
+    const vV = readQuantity(volts, 'V', report, piece);
+    const iA = readQuantity(amps, 'A', report, piece);
+    if (vV === undefined || iA === undefined) return undefined;
+    points.push({ vV, iA });
+  }
+  return points;
+}
+
+function readDerate(words: Word[], span: Span, report: Report): DerateDirective {
+  const record: DerateDirective = { keyword: 'derate', span, entries: [] };
+  if (words.length === 0) report(span, `derate needs at least one of ${DERATE_KEYS.join(', ')}, e.g. vr=80%`);
+  for (const word of words) {
+    const { key, value } = splitKeyValue(word);
+    if (!(DERATE_KEYS as readonly string[]).includes(key) || !value) {
+      report(word, `expected key=value with a key among ${DERATE_KEYS.join(', ')}, got '${word.text}'`);
+      continue;
+    }
+    const amount = readQuantity(value, key === 'tj' ? 'C' : '%', report, word);
+    if (amount === undefined) continue;
+    if (key !== 'tj' && (amount <= 0 || amount > 1)) report(value, `a derating fraction lies between 0 and 100 %, got '${value.text}'`);
+    else record.entries.push({ key: key as DerateKey, span: { start: word.start, end: word.end }, value: amount });
+  }
+  return record;
+}
+
+function readAllow(words: Word[], span: Span, report: Report): AllowDirective {
+  if (words.length === 0) report(span, 'allow needs a finding code, e.g. *@ allow piv-margin');
+  return { keyword: 'allow', span, codes: words.map((w) => ({ text: w.text.toLowerCase(), span: { start: w.start, end: w.end } })) };
+}

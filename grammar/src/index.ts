@@ -1,0 +1,8 @@
+/** The netlist language: parsing, values, expressions, directives. Imports nothing but chevrotain. */
+export * from './syntax-tree';
+export * from './directive-records';
+export { parseNetlist, type ParseOptions } from './parse-netlist';
+export { readNumber, spiceSpelling, type ReadNumber } from './values';
+export { parseExpression, evaluateExpression, referencedNames, EXPRESSION_FUNCTIONS, MAX_EXPRESSION_DEPTH, type Expr, type ExprError } from './expression';
+export { parseDirective } from './directives';
+export { resolveParams, evaluateValue, type ParamDefinition, type Lookup, type ResolvedParams } from './params';

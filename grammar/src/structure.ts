@@ -1,0 +1,56 @@
+/** Nests `.subckt … .ends` and `.lib section … .endl` blocks, reporting unmatched ends. */
+import type { Card, EndlCard, EndsCard, Item, LibCard, LibSectionBlock, SubcktBlock, SubcktCard, SyntaxDiagnostic } from './syntax-tree';
+
+type OpenBlock = { header: SubcktCard; body: Item[]; kind: 'subckt-block' } | { header: LibCard; body: Item[]; kind: 'lib-section' };
+
+export function nestBlocks(cards: Card[], diagnostics: SyntaxDiagnostic[]): Item[] {
+  const top: Item[] = [];
+  const stack: OpenBlock[] = [];
+  const current = (): Item[] => (stack.length ? stack[stack.length - 1]!.body : top);
+  for (const card of cards) {
+    if (card.kind === 'subckt') stack.push({ kind: 'subckt-block', header: card, body: [] });
+    else if (card.kind === 'lib' && !card.path && card.section) stack.push({ kind: 'lib-section', header: card, body: [] });
+    else if (card.kind === 'ends') closeSubckt(card, stack, current, diagnostics);
+    else if (card.kind === 'endl') closeLib(card, stack, current, diagnostics);
+    else current().push(card);
+  }
+  while (stack.length) {
+    const open = stack.pop()!;
+    const what = open.kind === 'subckt-block' ? `.subckt ${open.header.name?.text ?? ''}`.trim() : `.lib ${open.header.section?.text ?? ''}`;
+    const closer = open.kind === 'subckt-block' ? '.ends' : '.endl';
+    diagnostics.push({ span: open.header.keyword.span, severity: 'error', code: 'unclosed-block', message: `'${what}' is never closed with ${closer}` });
+    current().push(finish(open));
+  }
+  return top;
+}
+
+function finish(open: OpenBlock, closer?: EndsCard | EndlCard): SubcktBlock | LibSectionBlock {
+  const last = closer ?? open.body[open.body.length - 1] ?? open.header;
+  const span = { start: open.header.span.start, end: last.span.end };
+  if (open.kind === 'subckt-block') return { kind: 'subckt-block', header: open.header, body: open.body, ends: closer as EndsCard | undefined, span };
+  return { kind: 'lib-section', header: open.header, body: open.body, endl: closer as EndlCard | undefined, span };
+}
+
+function closeSubckt(card: EndsCard, stack: OpenBlock[], current: () => Item[], diagnostics: SyntaxDiagnostic[]): void {
+  const open = stack[stack.length - 1];
+  if (!open || open.kind !== 'subckt-block') {
+    diagnostics.push({ span: card.keyword.span, severity: 'error', code: 'unmatched-end', message: "'.ends' without a '.subckt' to close" });
+    return;
+  }
+  stack.pop();
+  const name = open.header.name?.text;
+  if (card.name && name && card.name.text.toLowerCase() !== name.toLowerCase()) {
+    diagnostics.push({ span: card.name.span, severity: 'warning', code: 'unmatched-end', message: `'.ends ${card.name.text}' closes '.subckt ${name}'` });
+  }
+  current().push(finish(open, card));
+}
+
+function closeLib(card: EndlCard, stack: OpenBlock[], current: () => Item[], diagnostics: SyntaxDiagnostic[]): void {
+  const open = stack[stack.length - 1];
+  if (!open || open.kind !== 'lib-section') {
+    diagnostics.push({ span: card.keyword.span, severity: 'error', code: 'unmatched-end', message: "'.endl' without a '.lib' section to close" });
+    return;
+  }
+  stack.pop();
+  current().push(finish(open, card));
+}

@@ -1,0 +1,19 @@
+// Bundles the CLI, the language server and the VS Code client to CommonJS with esbuild.
+import { build } from 'esbuild';
+
+const quiet = process.argv.includes('--quiet');
+const common = {
+  bundle: true,
+  platform: 'node',
+  target: 'node20',
+  format: 'cjs',
+  sourcemap: true,
+  logLevel: quiet ? 'error' : 'info',
+};
+
+await Promise.all([
+  build({ ...common, entryPoints: ['server/src/cli/main.ts'], outfile: 'dist/cli.js', banner: { js: '#!/usr/bin/env node' } }),
+  build({ ...common, entryPoints: ['server/src/lsp/main.ts'], outfile: 'dist/server.js' }),
+  build({ ...common, entryPoints: ['client/src/extension.ts'], outfile: 'dist/client.js', external: ['vscode'] }),
+  ...(process.argv.includes('--bench') ? [build({ ...common, entryPoints: ['bench/run.ts'], outfile: 'dist/bench.js', external: ['odex'] })] : []),
+]);

@@ -1,0 +1,44 @@
+/** Findings: what the core says about a file, in offsets; adapters convert to lines and columns. */
+import type { Severity, Span } from '../../../grammar/src/index';
+
+export interface TextEdit {
+  uri: string;
+  span: Span;
+  newText: string;
+}
+
+/** A quick fix: a title and the text edits that carry it out. */
+export interface Fix {
+  title: string;
+  edits: TextEdit[];
+  /** The fix a user most likely wants for this finding. */
+  preferred?: boolean;
+}
+
+export interface RelatedPlace {
+  uri: string;
+  span: Span;
+  message: string;
+}
+
+export interface Finding {
+  uri: string;
+  span: Span;
+  severity: Severity;
+  /** Stable lowercase code, e.g. `piv-margin`. */
+  code: string;
+  message: string;
+  related?: RelatedPlace[];
+  fixes?: Fix[];
+}
+
+const SEVERITY_RANK: Readonly<Record<Severity, number>> = { error: 0, warning: 1, info: 2, hint: 3 };
+
+/** Whether a finding is at least as severe as a threshold. */
+export function reaches(severity: Severity, threshold: Severity): boolean {
+  return SEVERITY_RANK[severity] <= SEVERITY_RANK[threshold];
+}
+
+export function compareFindings(a: Finding, b: Finding): number {
+  return a.uri.localeCompare(b.uri) || a.span.start - b.span.start || SEVERITY_RANK[a.severity] - SEVERITY_RANK[b.severity];
+}

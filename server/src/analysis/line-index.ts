@@ -1,0 +1,45 @@
+/** Converts character offsets to 0-based line/column pairs and back, by binary search over line starts. */
+export interface Position {
+  line: number;
+  character: number;
+}
+
+export class LineIndex {
+  private readonly starts: number[];
+
+  constructor(private readonly text: string) {
+    this.starts = [0];
+    for (let i = 0; i < text.length; i++) {
+      const ch = text.charCodeAt(i);
+      if (ch === 10) this.starts.push(i + 1);
+      else if (ch === 13 && text.charCodeAt(i + 1) !== 10) this.starts.push(i + 1);
+    }
+  }
+
+  get lineCount(): number {
+    return this.starts.length;
+  }
+
+  positionAt(offset: number): Position {
+    const clamped = Math.max(0, Math.min(offset, this.text.length));
+    let low = 0;
+    let high = this.starts.length - 1;
+    while (low < high) {
+      const mid = (low + high + 1) >> 1;
+      if (this.starts[mid]! <= clamped) low = mid;
+      else high = mid - 1;
+    }
+    return { line: low, character: clamped - this.starts[low]! };
+  }
+
+  offsetAt(position: Position): number {
+    const line = Math.max(0, Math.min(position.line, this.starts.length - 1));
+    const next = line + 1 < this.starts.length ? this.starts[line + 1]! : this.text.length;
+    return Math.min(this.starts[line]! + Math.max(0, position.character), next);
+  }
+
+  /** The offset where a line starts. */
+  lineStart(line: number): number {
+    return this.starts[Math.max(0, Math.min(line, this.starts.length - 1))]!;
+  }
+}

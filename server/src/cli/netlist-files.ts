@@ -1,0 +1,59 @@
+/** Finds netlist files under the paths given on the command line, and reads them. */
+import { readdirSync, readFileSync, statSync } from 'node:fs';
+import { extname, join } from 'node:path';
+
+export const NETLIST_EXTENSIONS: readonly string[] = ['.cir', '.net', '.sp', '.spi', '.ckt'];
+const SKIPPED_FOLDERS = new Set(['node_modules', '.git', 'dist', 'out']);
+
+export interface FileList {
+  files: string[];
+  /** Paths that do not exist or cannot be listed, with the reason. */
+  problems: { path: string; reason: string }[];
+}
+
+/** Expands folders to the netlist files in them (sorted); files named explicitly are kept whatever their extension. */
+export function collectNetlistFiles(paths: readonly string[]): FileList {
+  const files: string[] = [];
+  const problems: FileList['problems'] = [];
+  for (const path of paths) {
+    try {
+      if (statSync(path).isDirectory()) walk(path, files);
+      else files.push(path);
+    } catch (error) {
+      problems.push({ path, reason: describeError(error) });
+    }
+  }
+  return { files, problems };
+}
+
+function walk(folder: string, into: string[]): void {
+  const entries = readdirSync(folder, { withFileTypes: true }).sort((a, b) => a.name.localeCompare(b.name));
+  for (const entry of entries) {
+    const path = join(folder, entry.name);
+    if (entry.isDirectory()) {
+      if (!SKIPPED_FOLDERS.has(entry.name) && !entry.name.startsWith('.')) walk(path, into);
+    } else if (NETLIST_EXTENSIONS.includes(extname(entry.name).toLowerCase())) into.push(path);
+  }
+}
+
+/** Reads files on demand and remembers them, so includes shared by several roots are read once. */
+export function cachedReader(): (path: string) => string | undefined {
+  const cache = new Map<string, string | undefined>();
+  return (path) => {
+    if (!cache.has(path)) {
+      try {
+        cache.set(path, readFileSync(path, 'utf8'));
+      } catch {
+        cache.set(path, undefined);
+      }
+    }
+    return cache.get(path);
+  };
+}
+
+export function describeError(error: unknown): string {
+  const code = (error as NodeJS.ErrnoException)?.code;
+  if (code === 'ENOENT') return 'no such file or folder';
+  if (code === 'EACCES') return 'permission denied';
+  return error instanceof Error ? error.message : String(error);
+}

@@ -1,0 +1,2 @@
+/** Placeholder entry until the language server lands (issue 6). */
+export {};

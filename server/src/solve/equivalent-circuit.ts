@@ -1,0 +1,122 @@
+/**
+ * The equivalent circuit of one recognised rectifier: the contract between recognition
+ * (which finds the parts) and the solver (which computes the stresses). Plain data, SI units,
+ * temperatures in °C.
+ */
+
+/** SPICE diode-model parameters (Berkeley SPICE3 diode model, defaults from its manual). */
+export interface DiodeParams {
+  isA: number;
+  n: number;
+  rsOhm: number;
+  egEv: number;
+  xti: number;
+  tnomC: number;
+}
+
+/** Defaults of the Berkeley SPICE3 diode model: IS 1e-14 A, N 1, RS 0, EG 1.11 eV, XTI 3, TNOM 27 °C. */
+export const SPICE_DIODE_DEFAULTS: Readonly<DiodeParams> = {
+  isA: 1e-14,
+  n: 1,
+  rsOhm: 0,
+  egEv: 1.11,
+  xti: 3,
+  tnomC: 27,
+};
+
+/**
+ * Where a device sits in its rectifier. Bridges: `upper-x` conducts from AC node x into DC+,
+ * `lower-x` from DC− into AC node x. Centre tap: one device per half-winding. Doubler: `d1`
+ * charges the lower capacitor (or the series capacitor of a half-wave doubler), `d2` the upper.
+ */
+export type DeviceRole =
+  | 'upper-a' | 'upper-b' | 'upper-c'
+  | 'lower-a' | 'lower-b' | 'lower-c'
+  | 'series'
+  | 'winding-a' | 'winding-b'
+  | 'd1' | 'd2';
+
+export interface DiodeDevice {
+  kind: 'diode';
+  name: string;
+  role: DeviceRole;
+  params: DiodeParams;
+  /** Junction-to-ambient thermal resistance, K/W; absent means Tj is not computed from loss. */
+  rthjaKPerW?: number;
+}
+
+export interface MosfetDevice {
+  kind: 'mosfet';
+  name: string;
+  role: DeviceRole;
+  /** On-resistance at 25 °C. */
+  rdsOn25Ohm: number;
+  /** rdson(T) = rdson(25 °C)·(T/298.15 K)^exponent. */
+  rdsOnTempExponent: number;
+  body: DiodeParams;
+  rthjaKPerW?: number;
+  /** controller: driven while |e(t)| ≥ controller vmin; self-driven: gate on the opposite AC line. */
+  gate: 'controller' | 'self-driven' | 'undriven';
+  /**
+   * Gate-source voltage above which a self-driven channel is taken as fully on (binary gate
+   * model). Absent: `DEFAULT_GATE_ON_V` of mosfet-model.ts.
+   */
+  gateOnV?: number;
+}
+
+export type RectifierDevice = DiodeDevice | MosfetDevice;
+
+export type RectifierKind =
+  | 'diode-bridge'
+  | 'active-bridge'
+  | 'hybrid-bridge'
+  | 'half-wave'
+  | 'centre-tap'
+  | 'doubler'
+  | 'three-phase-bridge';
+
+/** The AC source as the rectifier sees it (already referred through any transformer). */
+export interface AcSource {
+  /** Nominal RMS voltage: of the whole winding (bridge, half-wave, doubler), of each half-winding (centre tap), line-to-neutral (three-phase). */
+  vrms: number;
+  freqHz: number;
+  seriesROhm: number;
+  seriesLH: number;
+  /** Nominal RMS of the mains feeding the source, before any transformer (for harmonic limits and safety). */
+  mainsVrms: number;
+  /** Turns ratio secondary/primary (1 without a transformer): source currents are referred back by it. */
+  turnsRatio: number;
+}
+
+export interface FilterCapacitor {
+  name: string;
+  cF: number;
+  esrOhm: number;
+}
+
+export type Load =
+  | { kind: 'resistance'; ohm: number }
+  | { kind: 'current'; a: number }
+  | { kind: 'power'; w: number; vminV?: number }
+  | { kind: 'none' };
+
+export interface EquivalentCircuit {
+  kind: RectifierKind;
+  /** Doubler only: full-wave (two diodes, two capacitors in series) or half-wave (series capacitor then peak detector). */
+  doubler?: 'full-wave' | 'half-wave';
+  source: AcSource;
+  devices: RectifierDevice[];
+  /** Bridges, half-wave, centre tap, three-phase: at most one (parallel capacitors merged). Doubler: [lower or series, upper or output]. */
+  capacitors: FilterCapacitor[];
+  load: Load;
+  /** Active bridge: the controller's minimum operating voltage. */
+  controllerVminV?: number;
+}
+
+/** One line × ambient corner. */
+export interface Corner {
+  name: string;
+  /** Multiplier on the nominal source voltage (1 + tolerance). */
+  lineScale: number;
+  ambientC: number;
+}

@@ -1,0 +1,75 @@
+import { execFileSync, spawnSync } from 'node:child_process';
+import { mkdtempSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { describe, expect, it } from 'vitest';
+import { runCommandLine } from '../../server/src/cli/main';
+
+function run(...argv: string[]) {
+  let stdout = '';
+  let stderr = '';
+  const code = runCommandLine(argv, { stdout: (t) => (stdout += t), stderr: (t) => (stderr += t), stderrIsTty: false });
+  return { code, stdout, stderr };
+}
+
+function folderWith(files: Record<string, string>): string {
+  const dir = mkdtempSync(join(tmpdir(), 'rectilens-cli-'));
+  for (const [name, text] of Object.entries(files)) writeFileSync(join(dir, name), text);
+  return dir;
+}
+
+const CLEAN = 'clean\nR1 a 0 1k\n';
+const WARNS = 'warns\nR1 a 0 4k7\n';
+const BROKEN = 'broken\nD1 a\n';
+
+describe('rectilens check', () => {
+  it('prints compiler-style lines and exits 1 on an error', () => {
+    const dir = folderWith({ 'b.cir': BROKEN });
+    const result = run('check', join(dir, 'b.cir'));
+    expect(result.code).toBe(1);
+    expect(result.stdout).toContain(`${join(dir, 'b.cir')}:2:4: error syntax-error: D1 needs anode, cathode and a model`);
+  });
+
+  it('exits 0 on warnings with the default --fail-on error, 1 with --fail-on warning, 0 with never', () => {
+    const dir = folderWith({ 'w.cir': WARNS });
+    expect(run('check', dir).code).toBe(0);
+    expect(run('check', dir, '--fail-on', 'warning').code).toBe(1);
+    expect(run('check', dir, '--fail-on=never').code).toBe(0);
+    expect(run('check', folderWith({ 'b.cir': BROKEN }), '--fail-on', 'never').code).toBe(0);
+  });
+
+  it('walks folders for .cir .net .sp .spi .ckt files only', () => {
+    const dir = folderWith({ 'a.cir': CLEAN, 'b.net': CLEAN, 'c.sp': CLEAN, 'd.spi': CLEAN, 'e.ckt': CLEAN, 'notes.txt': BROKEN });
+    const report = JSON.parse(run('check', dir, '--format', 'json').stdout);
+    expect(report.files.map((f: { path: string }) => f.path.slice(dir.length + 1))).toEqual(['a.cir', 'b.net', 'c.sp', 'd.spi', 'e.ckt']);
+  });
+
+  it('writes the JSON shape of DESIGN.md §8 with 1-based lines', () => {
+    const dir = folderWith({ 'w.cir': WARNS });
+    const report = JSON.parse(run('check', dir, '--format', 'json').stdout);
+    expect(report.version).toBe(1);
+    expect(report.files[0]).toMatchObject({
+      rectifiers: [],
+      diagnostics: [{ line: 2, column: 8, severity: 'warning', code: 'value-notation' }],
+    });
+    expect(report.files[0].diagnostics[0].message).toMatch(/read as 4700/);
+  });
+
+  it('exits 2 with one clear line for an unreadable path, an unknown flag or a bad value', () => {
+    const missing = run('check', '/no/such/netlist.cir');
+    expect(missing.code).toBe(2);
+    expect(missing.stderr).toBe('rectilens: cannot read /no/such/netlist.cir: no such file or folder\n');
+    expect(run('check', '.', '--colour').stderr).toMatch(/^rectilens: unknown option --colour/);
+    expect(run('check', '.', '--format', 'xml')).toMatchObject({ code: 2, stderr: "rectilens: --format takes text|json, not 'xml'\n" });
+    expect(run('check').code).toBe(2);
+    expect(run('frobnicate').code).toBe(2);
+  });
+
+  it('runs as the bundled command through npm, as the README says', () => {
+    const dir = folderWith({ 'b.cir': BROKEN });
+    const result = spawnSync('npm', ['run', '--silent', 'rectilens', '--', 'check', dir], { encoding: 'utf8' });
+    expect(result.status).toBe(1);
+    expect(result.stdout).toMatch(/error syntax-error/);
+    expect(execFileSync('node', ['dist/cli.js', 'help'], { encoding: 'utf8' })).toMatch(/usage:/);
+  });
+});
