@@ -7,7 +7,9 @@ const common = {
   platform: 'node',
   target: 'node20',
   format: 'cjs',
-  sourcemap: true,
+  // The packaged extension ships without source maps to stay small.
+  sourcemap: !process.argv.includes('--production'),
+  minify: process.argv.includes('--production'),
   logLevel: quiet ? 'error' : 'info',
 };
 

@@ -1,3 +1,51 @@
-/** Placeholder entry until the VS Code client lands (issue 6). */
-export function activate(): void {}
-export function deactivate(): void {}
+/**
+ * The VS Code side: starts the language server, shows a busy indicator, and hosts the waveform
+ * and comparison views. It computes nothing; every figure comes from the server.
+ */
+import * as vscode from 'vscode';
+import { LanguageClient, TransportKind, type LanguageClientOptions, type ServerOptions } from 'vscode-languageclient/node';
+import { BusyIndicator } from './busy-indicator';
+import { showAnalysisView, type ViewKind } from './analysis-view';
+
+let client: LanguageClient | undefined;
+
+export async function activate(context: vscode.ExtensionContext): Promise<void> {
+  client = createClient(context);
+  const busy = new BusyIndicator();
+  context.subscriptions.push(busy);
+  client.onNotification('rectilens/busy', (params: { busy: boolean; pending: number }) => busy.update(params.busy, params.pending));
+  const openView = (kind: ViewKind) => async (uri?: string, rectifierId?: string) => {
+    const target = uri ?? vscode.window.activeTextEditor?.document.uri.toString();
+    if (!target || !client) return;
+    await showAnalysisView(context, client, kind, target, rectifierId);
+  };
+  context.subscriptions.push(
+    vscode.commands.registerCommand('rectilens.showWaveforms', openView('waveforms')),
+    vscode.commands.registerCommand('rectilens.compareTopologies', openView('comparison')),
+    // Trust changes what the server may read: restart it with the new policy.
+    vscode.workspace.onDidGrantWorkspaceTrust(async () => {
+      await client?.stop();
+      client = createClient(context);
+      await client.start();
+    }),
+  );
+  await client.start();
+}
+
+export async function deactivate(): Promise<void> {
+  await client?.stop();
+}
+
+function createClient(context: vscode.ExtensionContext): LanguageClient {
+  const module = context.asAbsolutePath('dist/server.js');
+  const serverOptions: ServerOptions = {
+    run: { module, transport: TransportKind.ipc },
+    debug: { module, transport: TransportKind.ipc, options: { execArgv: ['--nolazy', '--inspect=6019'] } },
+  };
+  const clientOptions: LanguageClientOptions = {
+    documentSelector: [{ language: 'netlist' }],
+    synchronize: { configurationSection: 'rectilens' },
+    initializationOptions: { trusted: vscode.workspace.isTrusted },
+  };
+  return new LanguageClient('rectilens', 'Rectilens', serverOptions, clientOptions);
+}

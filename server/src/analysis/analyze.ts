@@ -5,12 +5,14 @@
  */
 import { parseNetlist, type Netlist } from '../../../grammar/src/index';
 import type { Finding } from './findings';
+import type { AnalysisSettings } from './settings';
 
 export interface AnalysisInput {
   /** The files to analyse as top-level netlists (URIs or paths, as the adapter names them). */
   roots: readonly string[];
   /** Text of a file, or undefined when it cannot be read. */
   readText: (uri: string) => string | undefined;
+  settings?: AnalysisSettings;
 }
 
 export interface FileAnalysis {
@@ -18,6 +20,8 @@ export interface FileAnalysis {
   text: string;
   netlist: Netlist;
   findings: Finding[];
+  /** Every other file this analysis read (includes and libraries), for re-analysis on change. */
+  dependencies: string[];
 }
 
 export interface Snapshot {
@@ -43,5 +47,5 @@ export function analyze(input: AnalysisInput): Snapshot {
 function analyzeFile(uri: string, text: string): FileAnalysis {
   const netlist = parseNetlist(text);
   const findings: Finding[] = netlist.diagnostics.map((d) => ({ uri, ...d }));
-  return { uri, text, netlist, findings };
+  return { uri, text, netlist, findings, dependencies: [] };
 }

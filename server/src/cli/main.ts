@@ -2,18 +2,25 @@
 import { UsageError } from './args';
 import { CHECK_USAGE, runCheck } from './check-command';
 import { processIo, type CommandIo } from './command-io';
+import { startStdioOrIpcServer } from '../lsp/start';
 
+const LSP_USAGE = 'rectilens lsp --stdio';
 const USAGE = `usage:
   ${CHECK_USAGE}
+  ${LSP_USAGE}
 `;
 
-/** Runs one command line; returns the exit code. */
+/** Runs one command line; returns the exit code, or −1 when a long-running server was started. */
 export function runCommandLine(argv: readonly string[], io: CommandIo): number {
   const [command, ...rest] = argv;
   try {
     switch (command) {
       case 'check':
         return runCheck(rest, io);
+      case 'lsp':
+        if (!rest.includes('--stdio')) throw new UsageError(`the language server speaks over standard input and output: ${LSP_USAGE}`);
+        startLanguageServer();
+        return -1;
       case undefined:
       case 'help':
       case '--help':
@@ -33,5 +40,9 @@ export function runCommandLine(argv: readonly string[], io: CommandIo): number {
 
 if (require.main === module) {
   const code = runCommandLine(process.argv.slice(2), processIo);
-  process.exitCode = code;
+  if (code >= 0) process.exitCode = code;
+}
+
+function startLanguageServer(): void {
+  startStdioOrIpcServer();
 }

@@ -1,2 +1,4 @@
-/** Placeholder entry until the language server lands (issue 6). */
-export {};
+/** Entry of the language server bundle (`dist/server.js`), started by the VS Code client over IPC or stdio. */
+import { startStdioOrIpcServer } from './start';
+
+startStdioOrIpcServer();

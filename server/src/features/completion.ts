@@ -1,0 +1,79 @@
+/** Completion of directive keywords and keys, model, subcircuit and node names, by position in the card. */
+import { DERATE_KEYS, DIRECTIVE_KEYWORDS, RATING_KEYS, key, type Netlist } from '../../../grammar/src/index';
+import { FINDING_CODES } from '../rules/codes';
+import { indexNames } from './name-index';
+
+export interface CompletionItem {
+  label: string;
+  kind: 'keyword' | 'property' | 'model' | 'subckt' | 'node' | 'code';
+  detail?: string;
+  insertText?: string;
+}
+
+const DIRECTIVE_DETAILS: Readonly<Record<string, string>> = {
+  mains: 'line voltage, frequency and tolerance: mains 230V 50Hz tol=-15%,+10%',
+  ambient: 'nominal and maximum ambient: ambient 25C..60C',
+  load: 'load at the rectifier output: load 45W | 0.8A | 33ohm [vmin=…]',
+  rate: 'ratings for a model or instance: rate NAME vrrm=600V ifsm=30A …',
+  derate: 'derating policy: derate vr=80% if=70% tj=125C cap=80%',
+  allow: 'accept a finding on the next card: allow CODE',
+};
+
+/** Suggestions for the cursor at `offset` of `netlist`; `models` lists every model known to the file (with includes). */
+export function completeAt(netlist: Netlist, offset: number, models: { name: string; type: string }[] = []): CompletionItem[] {
+  const text = netlist.text;
+  const lineStart = text.lastIndexOf('\n', offset - 1) + 1;
+  const before = text.slice(lineStart, offset);
+  const words = before.trimStart().split(/\s+/);
+  const position = words.length - 1; // index of the word being typed
+  if (/^\s*\*@/.test(before)) return completeDirective(words, position);
+  if (/^\s*[*;]/.test(before) || position === 0) return [];
+  const letter = words[0]!.charAt(0).toUpperCase();
+  const nodes = () => nodeNames(netlist, offset);
+  if (letter === 'D') return position === 3 ? modelItems(models, ['d']) : position < 3 ? nodes() : [];
+  if (letter === 'M') return position === 5 ? modelItems(models, ['nmos', 'pmos']) : position < 5 ? nodes() : [];
+  if (letter === 'X') return [...nodes(), ...subcktItems(netlist)];
+  if ('RCLVI'.includes(letter)) return position <= 2 ? nodes() : [];
+  return [];
+}
+
+function completeDirective(words: string[], position: number): CompletionItem[] {
+  const keyword = words[1]?.toLowerCase();
+  if (position <= 1) return DIRECTIVE_KEYWORDS.map((k) => ({ label: k, kind: 'keyword', detail: DIRECTIVE_DETAILS[k] }));
+  if (keyword === 'rate' && position >= 3) return RATING_KEYS.map((k) => ({ label: k, kind: 'property', insertText: `${k}=` }));
+  if (keyword === 'derate') return DERATE_KEYS.map((k) => ({ label: k, kind: 'property', insertText: `${k}=` }));
+  if (keyword === 'allow') return Object.entries(FINDING_CODES).map(([code, detail]) => ({ label: code, kind: 'code', detail }));
+  if (keyword === 'load') return [{ label: 'vmin', kind: 'property', insertText: 'vmin=' }];
+  if (keyword === 'mains') return [{ label: 'tol', kind: 'property', insertText: 'tol=' }, { label: 'phases', kind: 'property', insertText: 'phases=' }];
+  return [];
+}
+
+function modelItems(models: { name: string; type: string }[], types: string[]): CompletionItem[] {
+  return models.filter((m) => types.includes(m.type.toLowerCase())).map((m) => ({ label: m.name, kind: 'model', detail: `model ${m.type}` }));
+}
+
+function subcktItems(netlist: Netlist): CompletionItem[] {
+  const seen = new Map<string, CompletionItem>();
+  for (const o of indexNames(netlist)) {
+    if (o.kind === 'subckt' && o.role === 'definition') seen.set(o.key, { label: netlist.text.slice(o.span.start, o.span.end), kind: 'subckt' });
+  }
+  return [...seen.values()];
+}
+
+/** Node names in the scope of the cursor (the subcircuit body it sits in, or the top level). */
+function nodeNames(netlist: Netlist, offset: number): CompletionItem[] {
+  const block = netlist.items.find((i) => i.kind === 'subckt-block' && i.span.start <= offset && offset <= i.span.end);
+  const scope = block && block.kind === 'subckt-block' && block.header.name ? key(block.header.name) : '';
+  const seen = new Map<string, CompletionItem>();
+  for (const o of indexNames(netlist)) {
+    if (o.kind === 'node' && (o.scope === scope || o.scope === '') && !(o.span.start <= offset && offset <= o.span.end)) {
+      seen.set(o.key, { label: netlist.text.slice(o.span.start, o.span.end), kind: 'node' });
+    }
+  }
+  return [...seen.values()];
+}
+
+/** Every `.model` in a netlist, for completion. */
+export function modelsOf(netlist: Netlist): { name: string; type: string }[] {
+  return netlist.cards.flatMap((c) => (c.kind === 'model' && c.name && c.type ? [{ name: c.name.text, type: c.type.text }] : []));
+}

@@ -1,0 +1,204 @@
+/**
+ * The language server: the only code that speaks the protocol. Each handler is
+ * snapshot → core function → conversion; a handler that fails logs and answers empty.
+ */
+import { readFileSync } from 'node:fs';
+import { fileURLToPath } from 'node:url';
+import {
+  CodeActionKind, CompletionItemKind, TextDocuments, TextDocumentSyncKind, type Connection, type InitializeParams,
+  type InitializeResult,
+} from 'vscode-languageserver/node';
+import { TextDocument } from 'vscode-languageserver-textdocument';
+import type { FileAnalysis } from '../analysis/analyze';
+import { LineIndex } from '../analysis/line-index';
+import { DEFAULT_SETTINGS, type AnalysisSettings } from '../analysis/settings';
+import { completeAt, modelsOf } from '../features/completion';
+import { findDefinition, findReferences, prepareRename, rename, type FileSet } from '../features/navigation';
+import { foldingRangesOf, outlineOf } from '../features/outline';
+import { AnalysisScheduler } from './analysis-scheduler';
+import { toDiagnostic, toDocumentSymbol, toFoldingRange, toRange, toWorkspaceEdit } from './convert';
+import { registerEditorFeatures } from './editor-features';
+import { isReadable, type TrustPolicy } from './trust';
+
+const COMPLETION_KIND = {
+  keyword: CompletionItemKind.Keyword, property: CompletionItemKind.Property, model: CompletionItemKind.Class,
+  subckt: CompletionItemKind.Module, node: CompletionItemKind.Variable, code: CompletionItemKind.EnumMember,
+} as const;
+
+export interface ServerContext {
+  connection: Connection;
+  documents: TextDocuments<TextDocument>;
+  scheduler: AnalysisScheduler;
+  /** The analysis of a root and of the files it includes, root first. */
+  fileSet: (uri: string) => FileSet;
+  linesOf: (uri: string) => LineIndex | undefined;
+  settings: () => AnalysisSettings;
+}
+
+export function startServer(connection: Connection): void {
+  const documents = new TextDocuments(TextDocument);
+  let settings: AnalysisSettings = DEFAULT_SETTINGS;
+  let trust: TrustPolicy = { trusted: true, folders: [] };
+  let pullConfiguration = false;
+
+  const readText = (uri: string): string | undefined => {
+    const open = documents.get(uri);
+    if (open) return open.getText();
+    if (!uri.startsWith('file:') || !isReadable(uri, trust)) return undefined;
+    try {
+      return readFileSync(fileURLToPath(uri), 'utf8');
+    } catch {
+      return undefined;
+    }
+  };
+  const scheduler = new AnalysisScheduler({
+    readText,
+    settings: () => settings,
+    onAnalysed: (file) => publish(file),
+    onBusy: (busy, pending) => void connection.sendNotification('rectilens/busy', { busy, pending }),
+  });
+  const linesOf = (uri: string): LineIndex | undefined => {
+    const analysed = scheduler.get(uri);
+    if (analysed) return new LineIndex(analysed.text);
+    const text = readText(uri);
+    return text === undefined ? undefined : new LineIndex(text);
+  };
+  const publish = (file: FileAnalysis) => {
+    const lines = new LineIndex(file.text);
+    const diagnostics = file.findings.filter((f) => f.uri === file.uri).map((f) => toDiagnostic(lines, f, linesOf));
+    void connection.sendDiagnostics({ uri: file.uri, diagnostics });
+  };
+  const fileSet = (uri: string): FileSet => {
+    const root = scheduler.get(uri);
+    return root ? [root] : [];
+  };
+  const context: ServerContext = { connection, documents, scheduler, fileSet, linesOf, settings: () => settings };
+
+  connection.onInitialize((params: InitializeParams): InitializeResult => {
+    const options = (params.initializationOptions ?? {}) as { trusted?: boolean; settings?: AnalysisSettings };
+    trust = { trusted: options.trusted !== false, folders: (params.workspaceFolders ?? []).map((f) => f.uri) };
+    if (options.settings) settings = { ...DEFAULT_SETTINGS, ...options.settings };
+    pullConfiguration = Boolean(params.capabilities.workspace?.configuration);
+    return {
+      capabilities: {
+        textDocumentSync: TextDocumentSyncKind.Incremental,
+        hoverProvider: true,
+        inlayHintProvider: true,
+        codeLensProvider: { resolveProvider: false },
+        codeActionProvider: { codeActionKinds: [CodeActionKind.QuickFix] },
+        documentSymbolProvider: true,
+        definitionProvider: true,
+        referencesProvider: true,
+        renameProvider: { prepareProvider: true },
+        foldingRangeProvider: true,
+        completionProvider: { triggerCharacters: ['@', ' ', '='] },
+      },
+      serverInfo: { name: 'rectilens' },
+    };
+  });
+
+  connection.onInitialized(() => void refreshConfiguration());
+  connection.onDidChangeConfiguration((change) => {
+    const pushed = (change.settings as { rectilens?: AnalysisSettings } | undefined)?.rectilens;
+    if (pushed) applySettings(pushed);
+    else void refreshConfiguration();
+  });
+
+  async function refreshConfiguration(): Promise<void> {
+    if (!pullConfiguration) return;
+    try {
+      const pulled = (await connection.workspace.getConfiguration('rectilens')) as AnalysisSettings | null;
+      if (pulled) applySettings(pulled);
+    } catch (error) {
+      connection.console.error(`rectilens: could not read settings: ${String(error)}`);
+    }
+  }
+
+  function applySettings(next: AnalysisSettings): void {
+    settings = { ...DEFAULT_SETTINGS, ...next };
+    scheduler.schedule(documents.all().map((d) => d.uri));
+  }
+
+  documents.onDidChangeContent((change) => scheduler.schedule(scheduler.dependentsOf(change.document.uri).concat(change.document.uri)));
+  documents.onDidClose((event) => {
+    scheduler.forget(event.document.uri);
+    void connection.sendDiagnostics({ uri: event.document.uri, diagnostics: [] });
+  });
+
+  const offsetIn = (uri: string, position: { line: number; character: number }) => {
+    const file = scheduler.get(uri);
+    return file ? { file, offset: new LineIndex(file.text).offsetAt(position) } : undefined;
+  };
+
+  connection.onDocumentSymbol(guard([], (params) => {
+    const file = scheduler.get(params.textDocument.uri);
+    if (!file) return [];
+    const lines = new LineIndex(file.text);
+    return outlineOf(file.netlist).map((s) => toDocumentSymbol(lines, s));
+  }));
+  connection.onFoldingRanges(guard([], (params) => {
+    const file = scheduler.get(params.textDocument.uri);
+    if (!file) return [];
+    const lines = new LineIndex(file.text);
+    return foldingRangesOf(file.netlist).map((f) => toFoldingRange(lines, f)).filter((f) => f.endLine > f.startLine);
+  }));
+  connection.onDefinition(guard([], (params) => {
+    const at = offsetIn(params.textDocument.uri, params.position);
+    if (!at) return [];
+    return findDefinition(fileSet(at.file.uri), at.offset).flatMap((l) => locationOf(l.uri, l.span));
+  }));
+  connection.onReferences(guard([], (params) => {
+    const at = offsetIn(params.textDocument.uri, params.position);
+    if (!at) return [];
+    return findReferences(fileSet(at.file.uri), at.offset, params.context.includeDeclaration).flatMap((l) => locationOf(l.uri, l.span));
+  }));
+  connection.onPrepareRename(guard(null, (params) => {
+    const at = offsetIn(params.textDocument.uri, params.position);
+    const span = at && prepareRename(fileSet(at.file.uri), at.offset);
+    return span ? toRange(new LineIndex(at.file.text), span) : null;
+  }));
+  connection.onRenameRequest(guard(null, (params) => {
+    const at = offsetIn(params.textDocument.uri, params.position);
+    if (!at) return null;
+    const edits = rename(fileSet(at.file.uri), at.offset, params.newName);
+    if ('error' in edits) throw new Error(edits.error);
+    return toWorkspaceEdit(edits, linesOf);
+  }));
+  connection.onCompletion(guard([], (params) => {
+    const document = documents.get(params.textDocument.uri);
+    if (!document) return [];
+    const file = scheduler.get(params.textDocument.uri);
+    // Complete against the text as typed now; the last analysis may be a keystroke behind.
+    const netlist = file && file.text === document.getText() ? file.netlist : undefined;
+    const models = fileSet(params.textDocument.uri).flatMap((f) => modelsOf(f.netlist));
+    const parsed = netlist ?? file?.netlist;
+    if (!parsed) return [];
+    const offset = document.offsetAt(params.position);
+    const current = parsed.text === document.getText() ? parsed : { ...parsed, text: document.getText() };
+    return completeAt(current, offset, models).map((item) => ({
+      label: item.label, kind: COMPLETION_KIND[item.kind], detail: item.detail, insertText: item.insertText,
+    }));
+  }));
+
+  function locationOf(uri: string, span: { start: number; end: number }) {
+    const lines = linesOf(uri);
+    return lines ? [{ uri, range: toRange(lines, span) }] : [];
+  }
+
+  /** Wraps a handler so that a fault in one feature answers empty instead of failing the request or the server. */
+  function guard<P, R>(empty: R, handler: (params: P) => R): (params: P) => R {
+    return (params) => {
+      try {
+        return handler(params);
+      } catch (error) {
+        if (error instanceof Error && /not a valid|nothing to rename/.test(error.message)) throw error;
+        connection.console.error(`rectilens: ${error instanceof Error ? error.stack : String(error)}`);
+        return empty;
+      }
+    };
+  }
+
+  registerEditorFeatures(context, guard);
+  documents.listen(connection);
+  connection.listen();
+}

@@ -1,0 +1,74 @@
+/**
+ * A protocol client for tests: starts the real server process (`rectilens lsp --stdio`) and talks
+ * to it with vscode-languageserver-protocol over its standard streams.
+ */
+import { spawn, type ChildProcess } from 'node:child_process';
+import { resolve } from 'node:path';
+import {
+  createProtocolConnection, DidChangeTextDocumentNotification, DidOpenTextDocumentNotification, InitializedNotification,
+  InitializeRequest, PublishDiagnosticsNotification, StreamMessageReader, StreamMessageWriter, type Diagnostic,
+  type ProtocolConnection, type PublishDiagnosticsParams,
+} from 'vscode-languageserver-protocol/node';
+
+export interface TestClient {
+  connection: ProtocolConnection;
+  process: ChildProcess;
+  open(uri: string, text: string): Promise<Diagnostic[]>;
+  change(uri: string, version: number, changes: { range?: { start: { line: number; character: number }; end: { line: number; character: number } }; text: string }[]): Promise<Diagnostic[]>;
+  /** The next diagnostics published for a uri. */
+  nextDiagnostics(uri: string): Promise<Diagnostic[]>;
+  /** Every publication from now on, for tests that count them. */
+  onDiagnostics(listener: (params: PublishDiagnosticsParams) => void): void;
+  close(): Promise<void>;
+}
+
+export async function startTestClient(options: { workspaceFolder?: string; initializationOptions?: unknown } = {}): Promise<TestClient> {
+  const cli = resolve(__dirname, '../../dist/cli.js');
+  const child = spawn(process.execPath, [cli, 'lsp', '--stdio'], { stdio: ['pipe', 'pipe', 'inherit'] });
+  const connection = createProtocolConnection(new StreamMessageReader(child.stdout!), new StreamMessageWriter(child.stdin!));
+  const waiting = new Map<string, ((d: Diagnostic[]) => void)[]>();
+  const listeners: ((params: PublishDiagnosticsParams) => void)[] = [];
+  connection.onNotification(PublishDiagnosticsNotification.type, (params: PublishDiagnosticsParams) => {
+    listeners.forEach((listener) => listener(params));
+    const queue = waiting.get(params.uri);
+    queue?.shift()?.(params.diagnostics);
+  });
+  connection.listen();
+  const folder = options.workspaceFolder;
+  await connection.sendRequest(InitializeRequest.type, {
+    processId: process.pid,
+    rootUri: folder ?? null,
+    workspaceFolders: folder ? [{ uri: folder, name: 'workspace' }] : null,
+    capabilities: { textDocument: { rename: { prepareSupport: true } } },
+    initializationOptions: options.initializationOptions,
+  });
+  await connection.sendNotification(InitializedNotification.type, {});
+  const nextDiagnostics = (uri: string) =>
+    new Promise<Diagnostic[]>((resolveDiagnostics) => {
+      const queue = waiting.get(uri) ?? [];
+      queue.push(resolveDiagnostics);
+      waiting.set(uri, queue);
+    });
+  return {
+    connection,
+    process: child,
+    nextDiagnostics,
+    onDiagnostics: (listener) => listeners.push(listener),
+    async open(uri, text) {
+      const next = nextDiagnostics(uri);
+      await connection.sendNotification(DidOpenTextDocumentNotification.type, { textDocument: { uri, languageId: 'netlist', version: 1, text } });
+      return next;
+    },
+    async change(uri, version, changes) {
+      const next = nextDiagnostics(uri);
+      await connection.sendNotification(DidChangeTextDocumentNotification.type, { textDocument: { uri, version }, contentChanges: changes as never });
+      return next;
+    },
+    async close() {
+      await connection.sendRequest('shutdown').catch(() => undefined);
+      await connection.sendNotification('exit').catch(() => undefined);
+      connection.dispose();
+      if (child.exitCode === null) await new Promise((r) => child.once('exit', r));
+    },
+  };
+}
