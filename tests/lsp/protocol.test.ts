@@ -97,8 +97,8 @@ describe('language server over stdio', () => {
     const final = new Promise<void>((resolveFinal) =>
       client.onDiagnostics((p) => {
         if (p.uri !== uri) return;
-        seen.push(p.diagnostics.map((d) => d.message).join('|'));
-        if (p.diagnostics.some((d) => d.message.includes('read as 2.2'))) resolveFinal();
+        seen.push(p.diagnostics.map((d) => String(d.message)).join('|'));
+        if (p.diagnostics.some((d) => String(d.message).includes('read as 2.2'))) resolveFinal();
       }),
     );
     for (let v = 2; v <= 40; v++) {

@@ -1,5 +1,6 @@
 /** Hover, inlay hints, code lens and code actions: the features that show analysis results. */
-import { CodeActionKind, type CodeAction } from 'vscode-languageserver/node';
+import { CodeActionKind, MarkupKind, type CodeAction } from 'vscode-languageserver/node';
+import { hoverAt } from '../features/hover';
 import { LineIndex } from '../analysis/line-index';
 import { toRange, toWorkspaceEdit } from './convert';
 import type { ServerContext } from './server';
@@ -31,8 +32,13 @@ export function registerEditorFeatures(context: ServerContext, guard: Guard): vo
     return actions;
   }));
 
-  connection.onHover(guard(null, () => null));
+  connection.onHover(guard(null, (params) => {
+    const file = scheduler.get(params.textDocument.uri);
+    if (!file) return null;
+    const lines = new LineIndex(file.text);
+    const found = hoverAt(file.netlist, lines.offsetAt(params.position));
+    return found ? { contents: { kind: MarkupKind.Markdown, value: found.markdown }, range: toRange(lines, found.span) } : null;
+  }));
   connection.languages.inlayHint.on(guard([], () => []));
   connection.onCodeLens(guard([], () => []));
-  void toRange;
 }
