@@ -1,5 +1,8 @@
 // Bundles the CLI, the language server and the VS Code client to CommonJS with esbuild.
+import { readFileSync } from 'node:fs';
 import { build } from 'esbuild';
+
+const { version } = JSON.parse(readFileSync(new URL('../package.json', import.meta.url), 'utf8'));
 
 const quiet = process.argv.includes('--quiet');
 const common = {
@@ -11,6 +14,7 @@ const common = {
   sourcemap: !process.argv.includes('--production'),
   minify: process.argv.includes('--production'),
   logLevel: quiet ? 'error' : 'info',
+  define: { RECTILENS_VERSION: JSON.stringify(version) },
 };
 
 await Promise.all([

@@ -100,7 +100,9 @@ function reportCycle(
   path: string[], back: string, byName: Map<string, ParamDefinition>, state: Map<string, string>, diagnostics: SyntaxDiagnostic[],
 ): void {
   const loop = path.slice(path.indexOf(back));
-  const text = [...loop, back].join(' → ');
+  // A long cycle is named by its first few members, so one message stays short.
+  const shown = loop.length <= 6 ? [...loop, back] : [...loop.slice(0, 5), '…', back];
+  const text = shown.join(' → ') + (loop.length > 6 ? ` (${loop.length} parameters)` : '');
   for (const name of loop) {
     if (state.get(name) === 'cyclic') continue;
     state.set(name, 'cyclic');

@@ -13,17 +13,18 @@ export interface ReadNumber {
   warning?: string;
 }
 
-const SCALE_BY_LETTER: Readonly<Record<string, number>> = {
-  t: 1e12,
-  g: 1e9,
-  k: 1e3,
-  m: 1e-3,
-  u: 1e-6,
-  'µ': 1e-6,
-  'μ': 1e-6,
-  n: 1e-9,
-  p: 1e-12,
-  f: 1e-15,
+/** Powers of ten of the scale letters. */
+const SCALE_EXPONENT: Readonly<Record<string, number>> = {
+  t: 12,
+  g: 9,
+  k: 3,
+  m: -3,
+  u: -6,
+  'µ': -6,
+  'μ': -6,
+  n: -9,
+  p: -12,
+  f: -15,
 };
 
 /** Letters of the RKM code (IEC 60062) that stand in for the decimal point. */
@@ -44,22 +45,30 @@ const RKM_PATTERN = /^(\d+)([rkmgtpnu])(\d+)([a-zΩ]*)$/i;
 /** Reads one SPICE number; `undefined` when the text is not a number at all. */
 export function readNumber(text: string): ReadNumber | undefined {
   const match = NUMBER_PATTERN.exec(text);
-  if (match) return readScaled(Number(match[1]), match[2]!);
+  if (match) return readScaled(match[1]!, match[2]!);
   return readRkm(text);
 }
 
-function readScaled(mantissa: number, tail: string): ReadNumber {
+function readScaled(mantissa: string, tail: string): ReadNumber {
   const lower = tail.toLowerCase();
-  if (lower.startsWith('meg')) return { value: mantissa * 1e6, unit: lower.slice(3) };
-  if (lower.startsWith('mil')) return { value: mantissa * 25.4e-6, unit: lower.slice(3) };
+  if (lower.startsWith('meg')) return { value: scaleDecimal(mantissa, 6), unit: lower.slice(3) };
+  if (lower.startsWith('mil')) return { value: Number(mantissa) * 25.4e-6, unit: lower.slice(3) };
   const first = lower.charAt(0);
-  const scale = SCALE_BY_LETTER[first];
-  if (scale === undefined) return { value: mantissa, unit: lower };
-  const result: ReadNumber = { value: mantissa * scale, unit: lower.slice(1) };
+  const exponent = SCALE_EXPONENT[first];
+  if (exponent === undefined) return { value: Number(mantissa), unit: lower };
+  const result: ReadNumber = { value: scaleDecimal(mantissa, exponent), unit: lower.slice(1) };
   if (first === 'µ' || first === 'μ') {
     result.warning = `'${tail.charAt(0)}' read as micro; SPICE readers expect 'u'`;
   }
   return result;
+}
+
+/** mantissa × 10^exponent, shifted in decimal so that 100u is exactly the double nearest 1e-4. */
+function scaleDecimal(mantissa: string, exponent: number): number {
+  const at = mantissa.search(/e/i);
+  const base = at < 0 ? mantissa : mantissa.slice(0, at);
+  const own = at < 0 ? 0 : Number(mantissa.slice(at + 1));
+  return Number(`${base}e${own + exponent}`);
 }
 
 function readRkm(text: string): ReadNumber | undefined {

@@ -65,3 +65,11 @@ describe('SPICE number reader (Berkeley SPICE3 user\'s manual, scale-suffix tabl
     expect(readNumber(spiceSpelling(3.3e-9))!.value).toBeCloseTo(3.3e-9, 20);
   });
 });
+
+describe('scaled values are exact to the last bit', () => {
+  it('reads 100u as the double nearest 1e-4 (decimal scaling, not 100 × 1e-6)', () => {
+    expect(readNumber('100u')!.value).toBe(1e-4);
+    expect(readNumber('4.7k')!.value).toBe(4700);
+    expect(readNumber('2.2e-3MEG')!.value).toBe(2200);
+  });
+});

@@ -1,17 +1,19 @@
 /** `rectilens check <files or folders…> [--format text|json] [--fail-on error|warning|never]`. */
+import { isAbsolute, relative as relativePath, sep } from 'node:path';
 import { analyze } from '../analysis/analyze';
 import { reaches } from '../analysis/findings';
 import { parseArgs, UsageError } from './args';
 import { cachedReader, collectNetlistFiles } from './netlist-files';
 import { toJsonReport } from './report-json';
+import { toSarif } from './report-sarif';
 import { toTextReport } from './report-text';
 import type { CommandIo } from './command-io';
 
-export const CHECK_USAGE = 'rectilens check <files or folders…> [--format text|json] [--fail-on error|warning|never]';
+export const CHECK_USAGE = 'rectilens check <files or folders…> [--format text|json|sarif] [--fail-on error|warning|never]';
 
 /** Runs the check and returns the exit code: 0 clean, 1 a finding reached --fail-on, 2 usage or unreadable input. */
 export function runCheck(argv: readonly string[], io: CommandIo): number {
-  const args = parseArgs(argv, { format: { values: ['text', 'json'] }, 'fail-on': { values: ['error', 'warning', 'never'] } });
+  const args = parseArgs(argv, { format: { values: ['text', 'json', 'sarif'] }, 'fail-on': { values: ['error', 'warning', 'never'] } });
   if (args.positional.length === 0) throw new UsageError(`check needs at least one file or folder\nusage: ${CHECK_USAGE}`);
   const { files, problems } = collectNetlistFiles(args.positional);
   const read = cachedReader();
@@ -19,10 +21,23 @@ export function runCheck(argv: readonly string[], io: CommandIo): number {
   for (const problem of problems) io.stderr(`rectilens: cannot read ${problem.path}: ${problem.reason}\n`);
   for (const path of snapshot.unreadable) io.stderr(`rectilens: cannot read ${path}\n`);
   const report = toJsonReport(snapshot);
-  io.stdout(args.flags.get('format') === 'json' ? JSON.stringify(report, null, 2) + '\n' : toTextReport(report));
+  const format = args.flags.get('format') ?? 'text';
+  if (format === 'json') io.stdout(JSON.stringify(report, null, 2) + '\n');
+  else if (format === 'sarif') io.stdout(JSON.stringify(toSarif(report, TOOL_VERSION, toRelativeUri), null, 2) + '\n');
+  else io.stdout(toTextReport(report));
   if (problems.length || snapshot.unreadable.length) return 2;
   const failOn = (args.flags.get('fail-on') as string | undefined) ?? 'error';
   if (failOn === 'never') return 0;
   const failing = report.files.some((f) => f.diagnostics.some((d) => reaches(d.severity as 'error', failOn as 'error')));
   return failing ? 1 : 0;
+}
+
+/** The version stamped into reports; esbuild replaces it at bundle time. */
+declare const RECTILENS_VERSION: string | undefined;
+const TOOL_VERSION = typeof RECTILENS_VERSION === 'string' ? RECTILENS_VERSION : '0.0.0-dev';
+
+/** SARIF artifact locations are URIs; relative paths stay relative to the working folder, as scanning services expect. */
+function toRelativeUri(path: string): string {
+  const relative = isAbsolute(path) ? relativePath(process.cwd(), path) : path;
+  return relative.split(sep).map(encodeURIComponent).join('/');
 }

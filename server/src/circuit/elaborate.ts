@@ -1,0 +1,232 @@
+/**
+ * Elaboration: a root netlist and the files it includes → one flat circuit. Subcircuits are
+ * expanded with an explicit work stack (never recursion), an instance chain that meets its own
+ * subcircuit again is reported and cut, nesting is limited, and the element count is capped, so
+ * no input can exhaust the stack or the memory.
+ */
+import { key, type InstanceCard, type Item, type Lookup, type ModelCard, type Netlist, type SubcktBlock } from '../../../grammar/src/index';
+import { DiagnosticSink } from './diagnostic-sink';
+import { buildElement, terminalsOf, type Frame } from './elements';
+import type { FileSource, FlatCircuit, FlatElement, FlatInstance, FlatModel, PlacedDirective } from './flat-circuit';
+import { IncludeExpander, type PlacedItem } from './includes';
+import { evaluateParams, instanceScope, resolvePlaced, type PlacedParam } from './scope';
+
+export interface ElaborateOptions {
+  /** Deepest subcircuit nesting expanded (default 64). */
+  maxDepth?: number;
+  /** Most elements and instances produced before elaboration stops (default 200,000). */
+  maxElements?: number;
+}
+
+/** A subcircuit definition and where it is written. */
+interface SubcktDef {
+  block: SubcktBlock;
+  uri: string;
+  body?: PlacedItem[];
+}
+
+/** Definitions visible in a scope: its own, then the enclosing ones. */
+interface Defs {
+  own: Map<string, SubcktDef>;
+  outer?: Defs;
+}
+
+interface Work {
+  items: PlacedItem[];
+  next: number;
+  frame: Frame;
+  defs: Defs;
+  /** Lowercase subcircuit names from the root down to this scope. */
+  path: string[];
+}
+
+/** Elaborates the netlist at `rootUri`; files come from the adapter, already parsed. */
+export function elaborate(rootUri: string, files: FileSource, options: ElaborateOptions = {}): FlatCircuit {
+  return new Elaborator(rootUri, files, options).run();
+}
+
+class Elaborator {
+  private readonly sink = new DiagnosticSink();
+  private readonly expander: IncludeExpander;
+  private readonly elements: FlatElement[] = [];
+  private readonly instances: FlatInstance[] = [];
+  private readonly models = new Map<string, FlatModel>();
+  private readonly directives: PlacedDirective[] = [];
+  private readonly seenDirectives = new Set<string>();
+  private readonly maxDepth: number;
+  private readonly maxElements: number;
+  private stopped = false;
+
+  constructor(private readonly rootUri: string, files: FileSource, options: ElaborateOptions) {
+    this.expander = new IncludeExpander(files, this.sink);
+    this.maxDepth = options.maxDepth ?? 64;
+    this.maxElements = options.maxElements ?? 200_000;
+  }
+
+  run(): FlatCircuit {
+    const root: Netlist | undefined = this.expander.read(this.rootUri);
+    const top = root ? this.expander.expand(root.items, this.rootUri, [this.rootUri]) : [];
+    if (!root) this.sink.add({ uri: this.rootUri, span: { start: 0, end: 0 }, severity: 'error', code: 'missing-include', message: `cannot read ${this.rootUri}` });
+    this.collectDirectives(top);
+    const globalParams = resolvePlaced(paramsOf(top), () => undefined, this.sink);
+    const globalLookup: Lookup = (name) => globalParams.get(name);
+    const defs: Defs = { own: this.defineSubckts(top) };
+    const frame: Frame = {
+      uri: this.rootUri, namePrefix: '', keyPrefix: '', ports: new Map(), lookup: globalLookup, chain: [],
+      modelKey: this.defineModels(top, '', globalLookup, () => undefined),
+    };
+    this.flatten({ items: top, next: 0, frame, defs, path: [] }, globalLookup);
+    return {
+      rootUri: this.rootUri, elements: this.elements, instances: this.instances, models: this.models,
+      directives: this.directives, globalParams, dependencies: [...this.expander.used], diagnostics: this.sink.list,
+    };
+  }
+
+  private flatten(start: Work, global: Lookup): void {
+    const stack: Work[] = [start];
+    while (stack.length && !this.stopped) {
+      const work = stack[stack.length - 1]!;
+      const placed = work.items[work.next++];
+      if (!placed) {
+        stack.pop();
+        continue;
+      }
+      const { item } = placed;
+      const frame = placed.uri === work.frame.uri ? work.frame : { ...work.frame, uri: placed.uri };
+      if (item.kind === 'instance') {
+        const child = this.instantiate(item, frame, work, global);
+        if (child) stack.push(child);
+      } else if (isElement(item)) {
+        this.elements.push(buildElement(item, frame, this.sink));
+        this.checkBudget(frame.uri, item.span);
+      }
+    }
+  }
+
+  /** Records an X instance and returns the work of expanding it, or nothing when it cannot be expanded. */
+  private instantiate(card: InstanceCard, frame: Frame, work: Work, global: Lookup): Work | undefined {
+    const subckt = card.subckt ? key(card.subckt) : '';
+    const def = card.subckt ? lookupDef(work.defs, subckt) : undefined;
+    const instance: FlatInstance = {
+      name: frame.namePrefix + card.name.text, key: frame.keyPrefix + key(card.name), subckt,
+      terminals: terminalsOf(card.nodes, frame), resolved: false,
+      origin: { uri: frame.uri, span: card.span, nameSpan: card.name.span, chain: frame.chain },
+      params: evaluateParams(card.params, frame.lookup, frame.uri, this.sink),
+    };
+    this.instances.push(instance);
+    this.checkBudget(frame.uri, card.span);
+    if (!card.subckt) return undefined;
+    if (!def) {
+      this.sink.add({ uri: frame.uri, span: card.subckt.span, severity: 'warning', code: 'unknown-subckt', message: `no .subckt '${card.subckt.text}' is defined; ${card.name.text} is kept as a black box` });
+      return undefined;
+    }
+    if (!this.canExpand(card, frame, work, subckt)) return undefined;
+    instance.resolved = true;
+    return this.enter(card, frame, work, def, global);
+  }
+
+  private canExpand(card: InstanceCard, frame: Frame, work: Work, subckt: string): boolean {
+    const at = { uri: frame.uri, span: card.name.span };
+    if (work.path.includes(subckt)) {
+      const loop = [...work.path.slice(work.path.indexOf(subckt)), subckt].join(' → ');
+      this.sink.add({ ...at, severity: 'error', code: 'recursive-subckt', message: `subcircuit '${subckt}' instantiates itself (${loop}); ${card.name.text} is not expanded` });
+      const outer = frame.chain[0];
+      if (outer) this.sink.add({ uri: outer.uri, span: outer.nameSpan, severity: 'error', code: 'recursive-subckt', message: `${outer.name} holds a subcircuit that instantiates itself (${loop})` });
+      return false;
+    }
+    if (work.path.length >= this.maxDepth) {
+      this.sink.add({ ...at, severity: 'error', code: 'subckt-depth', message: `subcircuits nest deeper than ${this.maxDepth} levels; ${card.name.text} is not expanded` });
+      return false;
+    }
+    return true;
+  }
+
+  /** The scope of a new instance: ports, parameters, local models and definitions. */
+  private enter(card: InstanceCard, frame: Frame, work: Work, def: SubcktDef, global: Lookup): Work {
+    const header = def.block.header;
+    def.body ??= this.expander.expand(def.block.body, def.uri, [def.uri]);
+    if (header.ports.length !== card.nodes.length) {
+      this.sink.add({ uri: frame.uri, span: card.name.span, severity: 'error', code: 'port-count', message: `${card.name.text} connects ${card.nodes.length} nodes but '${header.name?.text}' has ${header.ports.length} ports` });
+    }
+    const ports = new Map<string, string>();
+    header.ports.forEach((p, i) => {
+      const outer = card.nodes[i];
+      if (outer && !ports.has(key(p))) ports.set(key(p), terminalsOf([outer], frame)[0]!.node);
+    });
+    const lookup = instanceScope(
+      { params: header.params, uri: def.uri },
+      { params: card.params, uri: frame.uri, lookup: frame.lookup },
+      paramsOf(def.body), global, this.sink,
+    );
+    const step = { name: card.name.text, subckt: key(header.name ?? card.subckt!), uri: frame.uri, span: card.span, nameSpan: card.name.span };
+    const keyPrefix = `${frame.keyPrefix}${key(card.name)}.`;
+    const child: Frame = {
+      uri: def.uri, namePrefix: `${frame.namePrefix}${card.name.text}.`, keyPrefix, ports, lookup, chain: [...frame.chain, step],
+      modelKey: this.defineModels(def.body, keyPrefix, lookup, frame.modelKey),
+    };
+    this.collectDirectives(def.body);
+    return { items: def.body, next: 0, frame: child, defs: { own: this.defineSubckts(def.body), outer: work.defs }, path: [...work.path, step.subckt] };
+  }
+
+  private defineSubckts(items: readonly PlacedItem[]): Map<string, SubcktDef> {
+    const own = new Map<string, SubcktDef>();
+    for (const { item, uri } of items) {
+      if (item.kind !== 'subckt-block' || !item.header.name) continue;
+      const name = key(item.header.name);
+      if (own.has(name)) this.sink.add({ uri, span: item.header.name.span, severity: 'warning', code: 'subckt-redefined', message: `subcircuit '${item.header.name.text}' is defined again; this definition wins` });
+      own.set(name, { block: item, uri });
+    }
+    return own;
+  }
+
+  /** Evaluates the models of a scope; local ones get keys under the instance (`x1.dmod`). */
+  private defineModels(items: readonly PlacedItem[], keyPrefix: string, lookup: Lookup, outer: (name: string) => string | undefined) {
+    const own = new Set<string>();
+    for (const { item, uri } of items) {
+      if (item.kind !== 'model' || !item.name) continue;
+      const name = key(item.name);
+      own.add(name);
+      this.models.set(keyPrefix + name, modelOf(item, uri, lookup, this.sink));
+    }
+    return (name: string): string | undefined => (own.has(name) ? keyPrefix + name : outer(name));
+  }
+
+  private collectDirectives(items: readonly PlacedItem[]): void {
+    for (const { item, uri } of items) {
+      if (item.kind !== 'directive' || !item.directive) continue;
+      const id = `${uri}#${item.span.start}`;
+      if (this.seenDirectives.has(id)) continue;
+      this.seenDirectives.add(id);
+      this.directives.push({ uri, directive: item.directive });
+    }
+  }
+
+  private checkBudget(uri: string, span: { start: number; end: number }): void {
+    if (this.elements.length + this.instances.length <= this.maxElements) return;
+    this.stopped = true;
+    this.sink.add({ uri, span, severity: 'error', code: 'circuit-too-large', message: `the flattened circuit passes ${this.maxElements} elements; elaboration stops here` });
+  }
+}
+
+function lookupDef(defs: Defs | undefined, name: string): SubcktDef | undefined {
+  for (let d = defs; d; d = d.outer) {
+    const found = d.own.get(name);
+    if (found) return found;
+  }
+  return undefined;
+}
+
+function paramsOf(items: readonly PlacedItem[]): PlacedParam[] {
+  return items.flatMap(({ item, uri }) => (item.kind === 'param' ? item.params.map((param) => ({ param, uri })) : []));
+}
+
+function modelOf(card: ModelCard, uri: string, lookup: Lookup, sink: DiagnosticSink): FlatModel {
+  return {
+    name: card.name!.text, type: card.type ? key(card.type) : '', uri, span: card.span,
+    params: evaluateParams(card.params, lookup, uri, sink),
+  };
+}
+
+function isElement(item: Item): item is Extract<Item, { kind: 'passive' | 'diode' | 'mosfet' | 'source' | 'coupling' | 'opaque' }> {
+  return item.kind === 'passive' || item.kind === 'diode' || item.kind === 'mosfet' || item.kind === 'source' || item.kind === 'coupling' || item.kind === 'opaque';
+}

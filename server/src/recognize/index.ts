@@ -1,0 +1,73 @@
+/**
+ * Recognition: a flat circuit → every rectifier in it, with its surroundings, and the near misses.
+ * Matchers run from the largest pattern to the smallest and claim their devices, so a six-pulse
+ * bridge is not also read as three single-phase bridges, nor a bridge leg as a half-wave.
+ */
+import type { LoadDirective, MainsDirective } from '../../../grammar/src/index';
+import { anchorOf, type CoreDiagnostic, type FlatCircuit, type PlacedDirective } from '../circuit/index';
+import { matchBridges } from './bridge';
+import { matchCentreTaps } from './centre-tap';
+import { RecognizeContext } from './context';
+import { deviceRef } from './devices';
+import { matchDoublers } from './doubler';
+import { classifyGate } from './gates';
+import { matchHalfWaves } from './half-wave';
+import type { Match } from './match';
+import { matchNearMisses } from './near-miss';
+import type { Recognition, Rectifier } from './rectifier';
+import { findSurroundings, type SurroundingDirectives } from './surroundings';
+import { matchThreePhase } from './three-phase';
+
+export * from './rectifier';
+export { toEquivalentCircuit, ratingsFromDirectives, DEFAULT_RDSON_OHM, DEFAULT_CONTROLLER_VMIN_V, type RatingsHook, type DeviceRatingHints } from './to-equivalent-circuit';
+export { DEFAULT_MAINS } from './source-description';
+
+/**
+ * Finds the rectifiers of a flat circuit. `directives` defaults to the circuit's own; the first
+ * `mains` and `load` directive (the root file's first) fill what the circuit leaves open.
+ */
+export function recognizeRectifiers(flat: FlatCircuit, directives: readonly PlacedDirective[] = flat.directives): Recognition {
+  const ctx = new RecognizeContext(flat);
+  const matches: Match[] = [...matchThreePhase(ctx), ...matchBridges(ctx)];
+  const near = matchNearMisses(ctx);
+  matches.push(...matchCentreTaps(ctx), ...matchDoublers(ctx), ...matchHalfWaves(ctx));
+  const fill = pickDirectives(directives, flat.rootUri);
+  const diagnostics: CoreDiagnostic[] = [...near.diagnostics];
+  const rectifiers = matches.map((match) => {
+    const built = buildRectifier(ctx, match, fill);
+    diagnostics.push(...built.diagnostics);
+    return built.rectifier;
+  });
+  return { rectifiers, nearMisses: near.nearMisses, diagnostics };
+}
+
+function buildRectifier(ctx: RecognizeContext, match: Match, fill: SurroundingDirectives): { rectifier: Rectifier; diagnostics: CoreDiagnostic[] } {
+  const devices = match.devices.map(({ device, role }) => {
+    const ref = deviceRef(device, role);
+    classifyGate(ctx.graph, device, ref, match.acNodes);
+    return ref;
+  });
+  const anchors = devices.map((d) => anchorOf(d.origin));
+  const anchor = [...anchors].sort((x, y) => Number(y.uri === ctx.flat.rootUri) - Number(x.uri === ctx.flat.rootUri) || x.span.start - y.span.start)[0]!;
+  const { surroundings, diagnostics } = findSurroundings(ctx, match, fill, anchor);
+  const undriven = devices.filter((d) => d.type === 'mosfet' && d.gate === 'undriven').map((d) => d.name);
+  if (undriven.length) {
+    diagnostics.push({ ...anchor, severity: 'info', code: 'assumed-condition', message: `nothing drives the gate of ${undriven.join(', ')}; assuming only the body diode conducts` });
+  }
+  const rectifier: Rectifier = {
+    id: `${match.kind}:${devices.map((d) => d.key).sort()[0]}`,
+    kind: match.kind, devices, acNodes: match.acNodes, dcPositive: match.dcPositive, dcNegative: match.dcNegative,
+    anchor, surroundings,
+  };
+  if (match.doubler) rectifier.doubler = match.doubler;
+  if (match.mixed) rectifier.mixed = true;
+  if (match.tap) rectifier.tap = match.tap;
+  return { rectifier, diagnostics };
+}
+
+function pickDirectives(directives: readonly PlacedDirective[], rootUri: string): SurroundingDirectives {
+  const ordered = [...directives.filter((d) => d.uri === rootUri), ...directives.filter((d) => d.uri !== rootUri)];
+  const mains = ordered.find((d) => d.directive.keyword === 'mains')?.directive as MainsDirective | undefined;
+  const load = ordered.find((d) => d.directive.keyword === 'load')?.directive as LoadDirective | undefined;
+  return { mains, load };
+}

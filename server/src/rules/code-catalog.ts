@@ -1,0 +1,78 @@
+/**
+ * Every finding code Rectilens can report, with a short description and help text: the source
+ * of SARIF rule metadata, of `*@ allow` completion and of the README's rules table.
+ */
+import { FINDING_CODES } from './codes';
+
+export interface CodeInfo {
+  code: string;
+  description: string;
+  /** What to do about it. */
+  help: string;
+  /** Where the finding comes from. */
+  stage: 'syntax' | 'circuit' | 'analysis';
+}
+
+const SYNTAX: Readonly<Record<string, [string, string]>> = {
+  'syntax-error': ['a card does not follow the netlist syntax', 'Compare the card with the syntax the message shows.'],
+  'value-notation': ['a value is written in a form simulators read differently', 'Write the value with SPICE suffixes, e.g. 4.7k or 1.5MEG.'],
+  'unknown-element': ['an element letter this subset does not model', 'The card is kept but not analysed.'],
+  'unclosed-block': ['a .subckt or .lib section is never closed', 'Add the matching .ends or .endl.'],
+  'unmatched-end': ['an .ends or .endl without its opening card, or with another name', 'Remove it or fix the name.'],
+  'after-end': ['cards after .end', 'Simulators ignore them; move them above .end.'],
+  'directive-error': ['a *@ directive cannot be read', 'See the directive table in the README.'],
+  'param-cycle': ['parameters that refer to each other in a cycle', 'Break the cycle with a plain value.'],
+  'undefined-param': ['an expression uses a parameter with no value', 'Define it with .param, or on the .subckt or X card.'],
+  'unknown-param': ['an instance sets a parameter the subcircuit does not declare', 'Check the name against the .subckt card.'],
+  'bad-value': ['a value is not a finite number', 'Write a finite value.'],
+  'param-redefined': ['a parameter is defined twice', 'The later value wins; remove one of them.'],
+};
+
+const CIRCUIT: Readonly<Record<string, [string, string]>> = {
+  'missing-include': ['an included file cannot be read', 'Check the path (relative to the including file) and, in an untrusted workspace, that it lies inside it.'],
+  'missing-lib-section': ['a .lib reference names a section the library does not have', 'Check the section name.'],
+  'include-cycle': ['files include each other in a cycle', 'Remove one of the includes.'],
+  'include-depth': ['includes nested too deeply', 'Flatten the include chain.'],
+  'unknown-subckt': ['an X card names a subcircuit that is not defined', 'Define or include the subcircuit.'],
+  'unknown-model': ['a device names a model that is not defined', 'Define or include the model; defaults are used meanwhile.'],
+  'subckt-redefined': ['a subcircuit is defined twice', 'The later definition wins; remove one.'],
+  'recursive-subckt': ['a subcircuit instantiates itself', 'Break the recursion.'],
+  'subckt-depth': ['subcircuits nested too deeply', 'Flatten the hierarchy.'],
+  'port-count': ['an X card connects a different number of nodes than the subcircuit has ports', 'Match the node list to the .subckt ports.'],
+  'circuit-too-large': ['the flattened circuit exceeds the size limit', 'Analyse a smaller part of the design.'],
+};
+
+const ANALYSIS_HELP: Readonly<Record<string, string>> = {
+  'reversed-device': 'Swap the anode and cathode of the named device (a quick fix does this).',
+  'piv-margin': 'Choose a part with a higher VRRM; the quick fix offers the lowest-rated one that passes.',
+  'current-rating': 'Choose a part with a higher average current rating, or improve cooling.',
+  'surge-rating': 'Add series resistance (the quick fix inserts an E12 value) or choose a part with a higher IFSM.',
+  'junction-temp': 'Reduce loss or thermal resistance, or choose a part with more margin.',
+  'thermal-runaway': 'The part cannot dissipate its loss at this ambient: choose a larger part or add cooling.',
+  'cap-voltage': 'Raise the capacitor voltage class (a quick fix does this).',
+  'cap-ripple': 'Use a capacitor with a higher ripple-current rating, or several in parallel.',
+  'controller-undervoltage': 'Below its minimum voltage the controller never switches and the bridge runs on body diodes.',
+  'mosfet-vds': 'Choose a MOSFET with a higher VDS rating.',
+  'harmonic-limit': 'Add power-factor correction or input inductance, or review the equipment class.',
+  'missing-rating': 'Add a *@ rate line for the part (a quick fix inserts a template).',
+  'default-model': 'Give the device a .model with IS, N and RS, or vf= points in its rate line.',
+  'assumed-condition': 'State the condition in the netlist (e.g. *@ mains, *@ load) to remove the assumption.',
+  'mixed-bridge': 'Devices of different models share the stress unevenly; use one model unless that is intended.',
+  'hazardous-voltage': 'Estimates only, not a safety or compliance test; follow local codes and licensed practice.',
+};
+
+/** Metadata for a code, with a generic fallback for codes added later. */
+export function codeInfo(code: string): CodeInfo {
+  const syntax = SYNTAX[code];
+  if (syntax) return { code, description: syntax[0], help: syntax[1], stage: 'syntax' };
+  const circuit = CIRCUIT[code];
+  if (circuit) return { code, description: circuit[0], help: circuit[1], stage: 'circuit' };
+  const analysis = FINDING_CODES[code];
+  if (analysis) return { code, description: analysis, help: ANALYSIS_HELP[code] ?? '', stage: 'analysis' };
+  return { code, description: code.replace(/-/g, ' '), help: '', stage: 'analysis' };
+}
+
+/** Every known code, in a stable order. */
+export function allCodes(): CodeInfo[] {
+  return [...Object.keys(SYNTAX), ...Object.keys(CIRCUIT), ...Object.keys(FINDING_CODES)].map(codeInfo);
+}
