@@ -60,7 +60,7 @@ describe('rectilens check', () => {
     expect(missing.code).toBe(2);
     expect(missing.stderr).toBe('rectilens: cannot read /no/such/netlist.cir: no such file or folder\n');
     expect(run('check', '.', '--colour').stderr).toMatch(/^rectilens: unknown option --colour/);
-    expect(run('check', '.', '--format', 'xml')).toMatchObject({ code: 2, stderr: "rectilens: --format takes text|json, not 'xml'\n" });
+    expect(run('check', '.', '--format', 'xml')).toMatchObject({ code: 2, stderr: "rectilens: --format takes text|json|sarif, not 'xml'\n" });
     expect(run('check').code).toBe(2);
     expect(run('frobnicate').code).toBe(2);
   });

@@ -1,10 +1,15 @@
 /**
- * `analyze(input, settings) → Snapshot`: the whole pipeline as one pure function. The caller
- * supplies the text of every file through `readText` (the editor's open documents, or the disk
- * for the command line); nothing here touches the file system, the clock or the settings store.
+ * `analyze(input) → Snapshot`: the whole pipeline as one pure function. The caller supplies the
+ * text of every file through `readText` (the editor's open documents, or the disk for the command
+ * line); nothing here touches the file system, the clock or the settings store.
  */
 import { parseNetlist, type Netlist } from '../../../grammar/src/index';
-import type { Finding } from './findings';
+import { elaborate, type FlatCircuit } from '../circuit/index';
+import type { PartsFile } from '../ratings/index';
+import { recognizeRectifiers, type NearMiss } from '../recognize/index';
+import { applyRules } from '../rules/registry';
+import { compareFindings, type Finding } from './findings';
+import { analyseRectifiers, type RectifierAnalysis, type SolutionCache } from './rectifier-analysis';
 import type { AnalysisSettings } from './settings';
 
 export interface AnalysisInput {
@@ -13,15 +18,25 @@ export interface AnalysisInput {
   /** Text of a file, or undefined when it cannot be read. */
   readText: (uri: string) => string | undefined;
   settings?: AnalysisSettings;
+  /** Validated workspace parts files. */
+  partsFiles?: readonly PartsFile[];
+  /** Solutions kept between analyses by the adapter (see `SolutionCache`). */
+  solutionCache?: SolutionCache;
 }
 
 export interface FileAnalysis {
   uri: string;
   text: string;
   netlist: Netlist;
+  /** Findings of this root's analysis; those about included files carry their own uri. */
   findings: Finding[];
   /** Every other file this analysis read (includes and libraries), for re-analysis on change. */
   dependencies: string[];
+  /** Every file this analysis parsed, the root first. */
+  parsed: ReadonlyMap<string, Netlist>;
+  flat: FlatCircuit;
+  rectifiers: RectifierAnalysis[];
+  nearMisses: NearMiss[];
 }
 
 export interface Snapshot {
@@ -33,19 +48,49 @@ export interface Snapshot {
 export function analyze(input: AnalysisInput): Snapshot {
   const files = new Map<string, FileAnalysis>();
   const unreadable: string[] = [];
+  const parsedAcrossRoots = new Map<string, Netlist | undefined>();
   for (const uri of input.roots) {
-    const text = input.readText(uri);
-    if (text === undefined) {
-      unreadable.push(uri);
-      continue;
-    }
-    files.set(uri, analyzeFile(uri, text));
+    const file = analyzeRoot(uri, input, parsedAcrossRoots);
+    if (file) files.set(uri, file);
+    else unreadable.push(uri);
   }
   return { files, unreadable };
 }
 
-function analyzeFile(uri: string, text: string): FileAnalysis {
-  const netlist = parseNetlist(text);
-  const findings: Finding[] = netlist.diagnostics.map((d) => ({ uri, ...d }));
-  return { uri, text, netlist, findings, dependencies: [] };
+function analyzeRoot(uri: string, input: AnalysisInput, cache: Map<string, Netlist | undefined>): FileAnalysis | undefined {
+  const parsed = new Map<string, Netlist>();
+  const load = (target: string): Netlist | undefined => {
+    if (!cache.has(target)) {
+      const text = input.readText(target);
+      // Included files have no title line; only the root does.
+      cache.set(target, text === undefined ? undefined : parseNetlist(text, { titleLine: target === uri }));
+    }
+    const netlist = cache.get(target);
+    if (netlist) parsed.set(target, netlist);
+    return netlist;
+  };
+  const netlist = load(uri);
+  if (!netlist) return undefined;
+  const flat = elaborate(uri, load);
+  const recognition = recognizeRectifiers(flat);
+  const settings = input.settings ?? {};
+  const { analyses, findings: assumptions } = analyseRectifiers(flat, recognition.rectifiers, settings, input.partsFiles ?? [], input.solutionCache);
+  const syntax = [...parsed].flatMap(([fileUri, n]) => n.diagnostics.map((d) => ({ uri: fileUri, ...d })));
+  const ruleFindings = applyRules({ rootUri: uri, netlist, flat, rectifiers: analyses, nearMisses: recognition.nearMisses, settings });
+  const findings = dedupe([...syntax, ...flat.diagnostics, ...recognition.diagnostics, ...assumptions, ...ruleFindings]).sort(compareFindings);
+  return {
+    uri, text: netlist.text, netlist, findings, dependencies: flat.dependencies.filter((d) => d !== uri), parsed, flat,
+    rectifiers: analyses, nearMisses: recognition.nearMisses,
+  };
+}
+
+/** The same finding reached twice (e.g. a shared include) is reported once. */
+function dedupe(findings: Finding[]): Finding[] {
+  const seen = new Set<string>();
+  return findings.filter((f) => {
+    const id = `${f.uri}|${f.span.start}|${f.span.end}|${f.code}|${f.message}`;
+    if (seen.has(id)) return false;
+    seen.add(id);
+    return true;
+  });
 }

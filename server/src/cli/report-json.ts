@@ -1,6 +1,7 @@
 /** The JSON report of `check --format json` (DESIGN.md §8): stable names, SI units in the names, 1-based lines. */
 import type { FileAnalysis, Snapshot } from '../analysis/analyze';
 import { LineIndex } from '../analysis/line-index';
+import type { RectifierAnalysis } from '../analysis/rectifier-analysis';
 
 export interface JsonDiagnostic {
   line: number;
@@ -12,9 +13,47 @@ export interface JsonDiagnostic {
   message: string;
 }
 
+export interface JsonDevice {
+  name: string;
+  pivV?: number;
+  ipkA?: number;
+  iavgA?: number;
+  irmsA?: number;
+  lossW?: number;
+  tjC?: number;
+}
+
+export interface JsonCorner {
+  name: string;
+  lineVrms: number;
+  ambientC: number;
+  vOutAvgV?: number;
+  rippleVpp?: number;
+  capRippleIrmsA?: number;
+  efficiency?: number;
+  sourceIrmsA?: number;
+  powerFactor?: number;
+  thd?: number;
+  harmonicsA?: number[];
+  inrushPeakA?: number;
+  inrushI2tA2s?: number;
+  holdUpS?: number;
+  devices: JsonDevice[];
+}
+
+export interface JsonRectifier {
+  id: string;
+  kind: string;
+  devices: string[];
+  line: number;
+  worst: Record<string, number | undefined>;
+  worstCorner: Record<string, string | undefined>;
+  corners: JsonCorner[];
+}
+
 export interface JsonFile {
   path: string;
-  rectifiers: unknown[];
+  rectifiers: JsonRectifier[];
   diagnostics: JsonDiagnostic[];
 }
 
@@ -39,5 +78,31 @@ function toJsonFile(file: FileAnalysis): JsonFile {
         severity: f.severity, code: f.code, message: f.message,
       };
     });
-  return { path: file.uri, rectifiers: [], diagnostics };
+  return { path: file.uri, rectifiers: file.rectifiers.map((r) => toJsonRectifier(r, lines)), diagnostics };
+}
+
+const WORST_FIGURES = ['vOutAvgV', 'rippleVpp', 'efficiency', 'powerFactor', 'inrushPeakA', 'capRippleIrmsA', 'thd', 'inrushI2tA2s', 'holdUpS'] as const;
+
+function toJsonRectifier(analysis: RectifierAnalysis, lines: LineIndex): JsonRectifier {
+  const { rectifier, solution } = analysis;
+  const worst: Record<string, number | undefined> = {};
+  const worstCorner: Record<string, string | undefined> = {};
+  for (const figure of WORST_FIGURES) {
+    worst[figure] = solution.worst[figure]?.value;
+    worstCorner[figure] = solution.worst[figure]?.corner;
+  }
+  return {
+    id: rectifier.id,
+    kind: rectifier.kind,
+    devices: rectifier.devices.map((d) => d.name),
+    line: lines.positionAt(rectifier.anchor.span.start).line + 1,
+    worst,
+    worstCorner,
+    corners: solution.corners.map((c) => ({
+      name: c.name, lineVrms: c.lineVrms, ambientC: c.ambientC, vOutAvgV: c.vOutAvgV, rippleVpp: c.rippleVpp,
+      capRippleIrmsA: c.capRippleIrmsA, efficiency: c.efficiency, sourceIrmsA: c.sourceIrmsA, powerFactor: c.powerFactor, thd: c.thd,
+      harmonicsA: c.harmonicsA, inrushPeakA: c.inrushPeakA, inrushI2tA2s: c.inrushI2tA2s, holdUpS: c.holdUpS,
+      devices: c.devices.map((d) => ({ name: d.name, pivV: d.pivV, ipkA: d.ipkA, iavgA: d.iavgA, irmsA: d.irmsA, lossW: d.lossW, tjC: d.tjC })),
+    })),
+  };
 }

@@ -15,6 +15,8 @@ import type { Rectifier, RectifierDeviceRef } from './rectifier';
 
 /** Ratings the rest of the app knows for a part; every field optional. */
 export interface DeviceRatingHints {
+  /** A forward model from the part's ratings (vf points, catalog), used when the `.model` gives no IS. */
+  forwardModel?: DiodeParams;
   rdsonOhm?: number;
   rthjaKPerW?: number;
   vminV?: number;
@@ -105,6 +107,8 @@ function toDevice(ref: RectifierDeviceRef, models: ReadonlyMap<string, FlatModel
   const hints = ratings({ instance: ref.name, model: model?.name }) ?? {};
   const rth = hints.rthjaKPerW !== undefined ? { rthjaKPerW: hints.rthjaKPerW } : {};
   if (ref.type === 'diode') {
+    const modelHasForwardLaw = model?.type === 'd' && model.params.is !== undefined;
+    if (!modelHasForwardLaw && hints.forwardModel) return { kind: 'diode', name: ref.name, role: ref.role, params: { ...hints.forwardModel }, ...rth };
     if (!model) say(`${ref.name} has no .model; using the SPICE3 diode defaults (IS 1e-14 A, N 1, RS 0, EG 1.11 eV, XTI 3)`);
     return { kind: 'diode', name: ref.name, role: ref.role, params: diodeParams(model), ...rth };
   }

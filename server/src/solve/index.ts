@@ -1,0 +1,19 @@
+/**
+ * The stress engine: pure functions from an equivalent circuit and corners to figures.
+ */
+export type * from './equivalent-circuit';
+export { SPICE_DIODE_DEFAULTS } from './equivalent-circuit';
+export type * from './solution';
+export { solveRectifier, solveCorner, type SolveOptions } from './solve-rectifier';
+export { defaultCorners, pickWorst, type CornerInputs, type WorstValue } from './corners';
+export {
+  thermalVoltageV, scaleDiodeToTemp, diodeVoltageV, diodeCurrentA, fitDiodeFromTwoPoints, lambertWOfExp,
+  type DiodeAtTemp, type ForwardPoint,
+} from './diode-model';
+export { rdsOnOhm, DEFAULT_CONTROLLER_VMIN_V, DEFAULT_GATE_ON_V, DEFAULT_RDSON_TEMP_EXPONENT } from './mosfet-model';
+export { classALimitA, classDLimitA, checkHarmonicLimits, type HarmonicCompliance, type HarmonicClass } from './iec61000-3-2';
+export { buildNetwork, type Network } from './network';
+export { findSteadyState, type SteadyState, type SteadyStateOptions } from './shooting';
+export { simulateInrush, type InrushResult } from './inrush';
+export { settleJunctionTemperatures, type ThermalResult, type ThermalOptions } from './thermal';
+export type { Waveform } from './waveform';

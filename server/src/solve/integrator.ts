@@ -1,0 +1,263 @@
+/**
+ * TR-BDF2 (Bank et al. 1985; error estimate and filter after Hosea & Shampine 1996): a
+ * trapezoidal stage to t + γh, then a BDF2 stage to t + h, γ = 2 − √2 so both stages share
+ * the coefficient d = γ/2. It is L-stable, so the near-instant diode currents of a stiff
+ * conduction interval do not ring, and one-step, so steps can stop exactly at conduction edges
+ * and gate instants. Along the way it carries dy(t)/dy(t0), the period Jacobian for shooting.
+ */
+import type { Network } from './network';
+import type { PeriodRecord } from './record';
+import { StageOut, type StageSolver } from './stage';
+import { applyGates } from './gates';
+
+const GAMMA = 2 - Math.SQRT2;
+const D = GAMMA / 2;
+const W = Math.SQRT2 / 4;
+const WD = W / D;
+// Third-order quadrature on the nodes 0, γ, 1 (exact for quadratics): the embedded formula of
+// the error estimate.
+const Q0 = (1 - W) / 3;
+const QG = (3 * W + 1) / 3;
+const Q1 = D / 3;
+/** Length of the backward-Euler restart step, as a fraction of the period. */
+const RESTART_FRACTION = 5e-5;
+
+export interface IntegrateOptions {
+  /** Absolute tolerance per state (V for capacitors, A for the inductor). */
+  atol: Float64Array;
+  rtol: number;
+  hMaxS: number;
+  /** Largest step while a path conducts (finer when recording a period for its figures). */
+  hMaxOnS: number;
+  /** Edges are located to within this time. */
+  hEdgeS: number;
+  maxSteps: number;
+  sensitivity: boolean;
+  record?: PeriodRecord;
+}
+
+export interface IntegrateResult {
+  ok: boolean;
+  steps: number;
+  rejected: number;
+  /** Conducting path at the end. */
+  mode: number;
+}
+
+/** Integrates a network's states; y and the sensitivity Y are left in the public buffers. */
+export class Integrator {
+  readonly y: Float64Array;
+  readonly f: Float64Array;
+  /** dy/dy0, row-major. */
+  readonly Y: Float64Array;
+  private readonly F: Float64Array;
+  private readonly r1: Float64Array;
+  private readonly r2: Float64Array;
+  private readonly tmp: Float64Array;
+  private readonly tmpG: Float64Array;
+  private oN: StageOut;
+  private oG: StageOut;
+  private o1: StageOut;
+  /** Step-size proposal carried from one call to the next. */
+  hGuess = 0;
+
+  constructor(private readonly net: Network, private readonly solver: StageSolver) {
+    const n = net.n;
+    const np = net.ports.length;
+    this.y = new Float64Array(n); this.f = new Float64Array(n);
+    this.Y = new Float64Array(n * n); this.F = new Float64Array(n * n);
+    this.r1 = new Float64Array(n); this.r2 = new Float64Array(n);
+    this.tmp = new Float64Array(n * n); this.tmpG = new Float64Array(n * n);
+    this.oN = new StageOut(n, np); this.oG = new StageOut(n, np); this.o1 = new StageOut(n, np);
+  }
+
+  /** Integrates from (t0, y0, mode0) to t1. */
+  run(t0: number, t1: number, y0: ArrayLike<number>, mode0: number, o: IntegrateOptions): IntegrateResult {
+    const n = this.net.n;
+    const period = this.net.periodS;
+    for (let j = 0; j < n; j++) this.y[j] = y0[j]!;
+    this.Y.fill(0);
+    for (let j = 0; j < n; j++) this.Y[j * n + j] = 1;
+    const breaks = this.breakpointsBetween(t0, t1, this.net.breakpointsS);
+    const crests = this.breakpointsBetween(t0, t1, this.net.crestsS);
+    let nc = 0;
+    let nb = 0;
+    let t = t0;
+    let restart = true;
+    // The point at t0 itself, for the record and the first edge test (a vanishing stage).
+    applyGates(this.net.devices, this.net.omega, t0);
+    this.solver.solve(t0, 1e-9 * period, this.y, mode0, this.oN);
+    if (o.record) { o.record.reset(); o.record.push(t0, this.oN); }
+    // hCtrl is the error controller's step; edge location and gate instants only shorten
+    // individual steps and do not shrink it. tEdge is the secant estimate of a pending edge.
+    let hCtrl = this.hGuess > 0 ? this.hGuess : period * 1e-3;
+    let tEdge = Infinity;
+    let steps = 0;
+    let rejected = 0;
+    let mode = mode0;
+    while (t1 - t > 1e-12 * period) {
+      if (steps + rejected > o.maxSteps) return { ok: false, steps, rejected, mode };
+      const tStop = Math.min(nb < breaks.length ? breaks[nb]! : t1, nc < crests.length ? crests[nc]! : t1, tEdge);
+      let err = 0;
+      let hTry = Math.min(hCtrl, tStop - t, mode >= 0 ? o.hMaxOnS : o.hMaxS);
+      if (restart) hTry = Math.min(hTry, period * RESTART_FRACTION);
+      applyGates(this.net.devices, this.net.omega, t + 0.5 * hTry);
+      let located: number;
+      if (restart) {
+        // After an edge or a gate instant (and at the start) the derivative on the new side is
+        // unknown and may change within nanoseconds (an ideal diode's current steps up): one
+        // short backward-Euler step, which needs no derivative at its start, restarts cleanly.
+        this.solver.solve(t + hTry, hTry, this.y, mode, this.o1);
+        located = this.locateEdgeBE(hTry, o.hEdgeS);
+      } else {
+        this.takeStages(t, hTry);
+        located = this.locateEdge(hTry, o.hEdgeS);
+        if (located === 0) err = this.errorNorm(hTry, o);
+      }
+      if (located > 0) { tEdge = t + located; rejected++; continue; }
+      if (err > 1 && hTry > o.hEdgeS) {
+        hCtrl = hTry * Math.max(0.2, 0.9 * Math.cbrt(1 / err));
+        rejected++;
+        continue;
+      }
+      steps++;
+      if (restart) this.acceptBE(t, hTry, o);
+      else {
+        if (o.sensitivity) this.propagateSensitivity(hTry);
+        this.accept(t, hTry, o.record);
+        const fac = Math.min(5, Math.max(0.2, 0.9 * Math.cbrt(1 / Math.max(err, 1e-12))));
+        hCtrl = hTry >= 0.999 * hCtrl ? hTry * fac : Math.min(hCtrl, Math.max(hTry * fac, hCtrl * Math.min(fac, 1)));
+      }
+      const modeChanged = mode !== this.o1.mode;
+      const sw = this.oN; this.oN = this.o1; this.o1 = sw;
+      mode = this.oN.mode;
+      t += hTry;
+      const hitBreak = nb < breaks.length && Math.abs(t - breaks[nb]!) <= 1e-12 * period;
+      if (hitBreak) nb++;
+      while (nc < crests.length && crests[nc]! <= t + 1e-12 * period) nc++;
+      restart = modeChanged || hitBreak;
+      if (modeChanged) { hCtrl = Math.min(hCtrl, period * 4 * RESTART_FRACTION); tEdge = Infinity; }
+      if (t >= tEdge) tEdge = Infinity;
+    }
+    const h = hCtrl;
+    this.hGuess = h;
+    return { ok: true, steps, rejected, mode: this.oN.mode };
+  }
+
+  /** Absolute instants of a periodic list strictly inside (t0, t1). */
+  private breakpointsBetween(t0: number, t1: number, list: number[]): number[] {
+    const T = this.net.periodS;
+    const out: number[] = [];
+    if (list.length === 0) return out;
+    for (let k = Math.floor(t0 / T) - 1; k * T < t1; k++) {
+      for (const b of list) {
+        const tb = b + k * T;
+        if (tb > t0 + 1e-12 * T && tb < t1 - 1e-12 * T) out.push(tb);
+      }
+    }
+    return out.sort((a, b) => a - b);
+  }
+
+  /** Turn-on location for a backward-Euler step (edge function at its two ends). */
+  private locateEdgeBE(h: number, hEdge: number): number {
+    const p0 = this.oN.phi;
+    const p1 = this.o1.phi;
+    if (h <= hEdge || p0 > 0 || p1 <= 0) return 0;
+    return shortenedStep(Math.min(Math.max(p0 / (p0 - p1), 0), 1) * h, h, hEdge);
+  }
+
+  /** Accepts a backward-Euler step: trapezoidal weights, sensitivity Y ← M·Y, F ← (df/dr)·Y. */
+  private acceptBE(t: number, h: number, o: IntegrateOptions): void {
+    const n = this.net.n;
+    if (o.sensitivity) {
+      this.tmp.set(this.Y);
+      matMul(this.o1.dydr, this.tmp, this.Y, n);
+      matMul(this.o1.dfdr, this.tmp, this.F, n);
+    }
+    this.y.set(this.o1.y);
+    this.f.set(this.o1.f);
+    const rec = o.record;
+    if (!rec) return;
+    rec.addWeight(rec.count - 1, 0.5 * h);
+    rec.addWeight(rec.push(t + h, this.o1), 0.5 * h);
+  }
+
+  private takeStages(t: number, h: number): void {
+    const n = this.net.n;
+    const dh = D * h;
+    for (let j = 0; j < n; j++) this.r1[j] = this.y[j]! + dh * this.f[j]!;
+    this.solver.solve(t + GAMMA * h, dh, this.r1, this.oN.mode, this.oG);
+    for (let j = 0; j < n; j++) this.r2[j] = (1 - WD) * this.y[j]! + WD * this.oG.y[j]!;
+    this.solver.solve(t + h, dh, this.r2, this.oG.mode, this.o1);
+  }
+
+  /**
+   * When a path starts conducting inside the step, returns a shorter step that ends just past
+   * that edge (secant on the edge function between the nearest stage points); 0 when the step
+   * may stand. Only turn-on is located: there an ideal diode's current steps up, while at
+   * turn-off (and at any edge of a real diode) the current passes through zero smoothly.
+   */
+  private locateEdge(h: number, hEdge: number): number {
+    const p0 = this.oN.phi;
+    const pG = this.oG.phi;
+    const p1 = this.o1.phi;
+    if (p0 > 0 || h <= hEdge) return 0;
+    if (pG > 0) return shortenedStep(GAMMA * h * (p0 / (p0 - pG)), h, hEdge);
+    if (p1 > 0) return shortenedStep(GAMMA * h + (1 - GAMMA) * h * (pG / (pG - p1)), h, hEdge);
+    return 0;
+  }
+
+  private errorNorm(h: number, o: IntegrateOptions): number {
+    const n = this.net.n;
+    const M = this.o1.dydr;
+    let err = 0;
+    for (let j = 0; j < n; j++) {
+      // Hosea & Shampine: filter the estimate through (I − dhJ)⁻¹ = dy/dr so stiff components
+      // do not inflate it.
+      let e = 0;
+      for (let m = 0; m < n; m++) {
+        const est = h * ((Q0 - W) * this.f[m]! + (QG - W) * this.oG.f[m]! + (Q1 - D) * this.o1.f[m]!);
+        e += M[j * n + m]! * est;
+      }
+      err = Math.max(err, Math.abs(e) / (o.atol[j]! + o.rtol * Math.abs(this.o1.y[j]!)));
+    }
+    return err;
+  }
+
+  private propagateSensitivity(h: number): void {
+    const n = this.net.n;
+    const dh = D * h;
+    const R = this.tmp;
+    for (let k = 0; k < n * n; k++) R[k] = this.Y[k]! + dh * this.F[k]!;
+    matMul(this.oG.dydr, R, this.tmpG, n);
+    for (let k = 0; k < n * n; k++) R[k] = (1 - WD) * this.Y[k]! + WD * this.tmpG[k]!;
+    matMul(this.o1.dydr, R, this.Y, n);
+    matMul(this.o1.dfdr, R, this.F, n);
+  }
+
+  private accept(t: number, h: number, rec: PeriodRecord | undefined): void {
+    this.y.set(this.o1.y);
+    this.f.set(this.o1.f);
+    if (!rec) return;
+    // Only step ends are recorded: the trapezoidal γ-stage is accurate as a state but its
+    // algebraic current can overshoot for a step or two after an ideal-diode edge.
+    rec.addWeight(rec.count - 1, 0.5 * h);
+    rec.addWeight(rec.push(t + h, this.o1), 0.5 * h);
+  }
+}
+
+/** A step ending just past an edge estimated at tCross into the step, or 0 if h already does. */
+function shortenedStep(tCross: number, h: number, hEdge: number): number {
+  return h - tCross <= hEdge ? 0 : tCross + 0.5 * hEdge;
+}
+
+/** c = a·b for n×n row-major matrices (c must not alias a or b). */
+function matMul(a: Float64Array, b: Float64Array, c: Float64Array, n: number): void {
+  for (let i = 0; i < n; i++) {
+    for (let j = 0; j < n; j++) {
+      let s = 0;
+      for (let k = 0; k < n; k++) s += a[i * n + k]! * b[k * n + j]!;
+      c[i * n + j] = s;
+    }
+  }
+}

@@ -1,0 +1,314 @@
+/**
+ * The solver's view of one rectifier at one corner: AC lines, two rails, capacitor ports, and
+ * the conduction paths between them. Every supported topology is a "rail network": each device
+ * joins a line to a rail (upper: line → DC+, lower: DC− → line). Bridges have floating rails and
+ * conduct through an upper/lower pair; half-wave, centre tap and doublers have rails fixed to the
+ * source's return and conduct through one device. In every topology at most one path conducts
+ * at a time while a capacitor holds the output above zero, which keeps each implicit step scalar.
+ */
+import type { EquivalentCircuit, Load, RectifierDevice } from './equivalent-circuit';
+import { scaleDiodeToTemp } from './diode-model';
+import { DEFAULT_CONTROLLER_VMIN_V, DEFAULT_GATE_ON_V, rdsOnOhm, type ConductingDevice } from './mosfet-model';
+import { buildGates, type GateRule } from './gates';
+
+/** An AC line: EMF a·sin ωt + b·cos ωt plus port terms, series R and L. */
+export interface NetLine {
+  a: number;
+  b: number;
+  rOhm: number;
+  lH: number;
+  /** How this line's current appears in the mains current (per unit of turns ratio). */
+  mainsCoeff: number;
+  /** EMF contribution per port voltage (the series capacitor of a half-wave doubler). */
+  portCoeff: number[];
+}
+
+/** A conduction path: one upper and/or one lower device, with its drive EMF and port signs. */
+export interface NetPath {
+  upLine: number;
+  lowLine: number;
+  devices: number[];
+  a: number;
+  b: number;
+  rOhm: number;
+  lH: number;
+  /** Drive = EMF − Σ s_j·u_j; port j receives s_j·i. */
+  s: Float64Array;
+  /** Sign of the path current in the mains-referred source current. */
+  srcSign: number;
+}
+
+export interface NetPort {
+  name: string;
+  cF: number;
+  esrOhm: number;
+  /** 1 when the load voltage includes this port. */
+  l: number;
+  /** A port with no capacitor: the load resistance itself (resistive load without filter). */
+  bare: boolean;
+}
+
+export interface LoadModel {
+  kind: Load['kind'];
+  rOhm: number;
+  iA: number;
+  pW: number;
+  /** Below this voltage current and power loads fall linearly to zero, keeping voltages ≥ 0. */
+  vFloorV: number;
+}
+
+export interface NetDevice extends ConductingDevice {
+  name: string;
+  line: number;
+  upper: boolean;
+  gate: GateRule | undefined;
+  source: RectifierDevice;
+}
+
+export interface Network {
+  omega: number;
+  periodS: number;
+  /** Largest path EMF amplitude: the voltage scale for tolerances. */
+  vScaleV: number;
+  lines: NetLine[];
+  paths: NetPath[];
+  ports: NetPort[];
+  /** Number of capacitor states (ports that are not bare). */
+  nCap: number;
+  hasL: boolean;
+  /** States: capacitor voltages, then the path inductor current when hasL. */
+  n: number;
+  floatingRails: boolean;
+  railPlus: number[];
+  railMinus: number[];
+  devices: NetDevice[];
+  load: LoadModel;
+  /** Gate switching instants within one period, ascending, in [0, T). */
+  breakpointsS: number[];
+  /**
+   * Crest and trough instants of every path's EMF in [0, T). Steps stop there so that a short
+   * conduction window at the crest (a light load) cannot fall between two stage points unseen,
+   * and so that the peak reverse voltages are sampled at their tops.
+   */
+  crestsS: number[];
+  /** Number of AC phases (3 for the three-phase bridge) for power-factor figures. */
+  phases: number;
+  /** RMS of the reference line EMF at this corner. */
+  lineVrms: number;
+}
+
+interface Layout {
+  lines: NetLine[];
+  floating: boolean;
+  railPlus: number[];
+  railMinus: number[];
+  loadShare: number[];
+  place: (role: string) => { line: number; upper: boolean } | undefined;
+}
+
+const LINE_INDEX: Record<string, number> = { a: 0, b: 1, c: 2 };
+
+/** Places the circuit's lines, rails and roles for its topology (see DeviceRole). */
+function layoutFor(c: EquivalentCircuit, vm: number, nPorts: number): Layout {
+  const r = c.source.seriesROhm;
+  const l = c.source.seriesLH;
+  const line = (amp: number, phase: number, rr: number, ll: number, mains: number, pc?: number[]): NetLine => ({
+    a: amp * Math.cos(phase), b: amp * Math.sin(phase), rOhm: rr, lH: ll, mainsCoeff: mains,
+    portCoeff: pc ?? new Array<number>(nPorts).fill(0),
+  });
+  const bridgeRole = (role: string) => {
+    const m = /^(upper|lower)-([abc])$/.exec(role);
+    return m ? { line: LINE_INDEX[m[2]!]!, upper: m[1] === 'upper' } : undefined;
+  };
+  switch (c.kind) {
+    case 'three-phase-bridge':
+      return {
+        lines: [0, -1, 1].map((k, i) => line(vm, (k * 2 * Math.PI) / 3, r, 0, i === 0 ? 1 : 0)),
+        floating: true, railPlus: [1], railMinus: [0], loadShare: [1], place: bridgeRole,
+      };
+    case 'half-wave':
+      return {
+        lines: [line(vm, 0, r, l, 1)], floating: false, railPlus: [1], railMinus: [0], loadShare: [1],
+        place: (role) => (role === 'series' || role === 'upper-a' ? { line: 0, upper: true } : undefined),
+      };
+    case 'centre-tap':
+      return {
+        lines: [line(vm, 0, r, l, 1), line(vm, Math.PI, r, l, -1)], floating: false,
+        railPlus: [1], railMinus: [0], loadShare: [1],
+        place: (role) => (role === 'winding-a' ? { line: 0, upper: true } : role === 'winding-b' ? { line: 1, upper: true } : undefined),
+      };
+    case 'doubler': {
+      const half = c.doubler === 'half-wave';
+      const place = (role: string) => (role === 'd1' ? { line: 0, upper: false } : role === 'd2' ? { line: 0, upper: true } : undefined);
+      return half
+        ? { lines: [line(vm, 0, r, l, 1, [1, 0])], floating: false, railPlus: [0, 1], railMinus: [0, 0], loadShare: [0, 1], place }
+        : { lines: [line(vm, 0, r, l, 1)], floating: false, railPlus: [0, 1], railMinus: [-1, 0], loadShare: [1, 1], place };
+    }
+    default:
+      return {
+        lines: [line(vm, 0, r, l, 1), line(0, 0, 0, 0, 0)], floating: true,
+        railPlus: [1], railMinus: [0], loadShare: [1], place: bridgeRole,
+      };
+  }
+}
+
+/** Options that shape the network; all have defaults. */
+export interface NetworkOptions {
+  /** Minimum operating voltage of an active-bridge controller when the circuit gives none. */
+  controllerVminV?: number;
+}
+
+/**
+ * Builds the network for one corner. Problems (anything assumed or not modelled) are appended
+ * to `problems`; undefined means the circuit cannot be solved at all.
+ */
+export function buildNetwork(
+  c: EquivalentCircuit, lineScale: number, tjC: readonly number[], problems: string[], opts: NetworkOptions = {},
+): Network | undefined {
+  const { freqHz } = c.source;
+  const vm = Math.SQRT2 * c.source.vrms * lineScale;
+  if (!(freqHz > 0) || !Number.isFinite(freqHz)) return fail(problems, 'source frequency is not positive');
+  if (!(vm > 0) || !Number.isFinite(vm)) return fail(problems, 'source voltage is zero (shorted or missing source): nothing conducts');
+  const ports = buildPorts(c, problems);
+  if (!ports) return undefined;
+  const lay = layoutFor(c, vm, ports.length);
+  if (c.kind === 'three-phase-bridge' && c.source.seriesLH > 0) {
+    problems.push('three-phase bridge: series inductance not modelled (commutation overlap); solved with L = 0');
+  }
+  const devices = placeDevices(c, lay, tjC, problems);
+  if (!devices) return undefined;
+  const paths = buildPaths(lay, devices, ports.length);
+  if (paths.length === 0) return fail(problems, 'no conduction path: device roles do not fit the topology');
+  const omega = 2 * Math.PI * freqHz;
+  const vmin = c.controllerVminV ?? opts.controllerVminV ?? DEFAULT_CONTROLLER_VMIN_V;
+  const gates = buildGates(devices, lay.lines, vmin, omega);
+  const hasL = paths.some((p) => p.lH > 0);
+  const nCap = ports.filter((p) => !p.bare).length;
+  const vScaleV = Math.max(...paths.map((p) => Math.hypot(p.a, p.b)));
+  return {
+    omega, periodS: 1 / freqHz, vScaleV, lines: lay.lines, paths, ports, nCap, hasL, n: nCap + (hasL ? 1 : 0),
+    floatingRails: lay.floating, railPlus: lay.railPlus, railMinus: lay.railMinus, devices,
+    load: buildLoad(c.load, vScaleV), breakpointsS: gates, crestsS: crestTimes(paths, omega), phases: c.kind === 'three-phase-bridge' ? 3 : 1,
+    lineVrms: c.source.vrms * lineScale,
+  };
+}
+
+function fail(problems: string[], why: string): undefined {
+  problems.push(why);
+  return undefined;
+}
+
+function buildPorts(c: EquivalentCircuit, problems: string[]): NetPort[] | undefined {
+  const caps = c.capacitors.filter((cap) => {
+    const ok = cap.cF > 0 && Number.isFinite(cap.cF);
+    if (!ok) problems.push(`capacitor ${cap.name} has no positive capacitance; ignored`);
+    return ok;
+  });
+  if (c.kind === 'doubler') {
+    if (caps.length < 2) return fail(problems, 'voltage doubler needs two capacitors');
+    const half = c.doubler === 'half-wave';
+    return caps.slice(0, 2).map((cap, i) => ({ name: cap.name, cF: cap.cF, esrOhm: Math.max(cap.esrOhm, 0), l: half && i === 0 ? 0 : 1, bare: false }));
+  }
+  if (caps.length === 0) {
+    if (c.load.kind !== 'resistance' || !(c.load.ohm > 0)) {
+      return fail(problems, 'no filter capacitor and no load resistance: a current, power or absent load cannot be solved without a capacitor');
+    }
+    return [{ name: 'load', cF: 0, esrOhm: 0, l: 0, bare: true }];
+  }
+  // Parallel capacitors merge: capacitances add, ESRs combine in parallel.
+  const cF = caps.reduce((s, cap) => s + cap.cF, 0);
+  const g = caps.reduce((s, cap) => s + (cap.esrOhm > 0 ? 1 / cap.esrOhm : Infinity), 0);
+  return [{ name: caps.map((cap) => cap.name).join('+'), cF, esrOhm: Number.isFinite(g) ? 1 / g : 0, l: 1, bare: false }];
+}
+
+function placeDevices(c: EquivalentCircuit, lay: Layout, tjC: readonly number[], problems: string[]): NetDevice[] | undefined {
+  const out: NetDevice[] = [];
+  for (const [k, d] of c.devices.entries()) {
+    const at = lay.place(d.role);
+    if (!at || at.line >= lay.lines.length) return fail(problems, `device ${d.name}: role ${d.role} does not fit a ${c.kind}`);
+    out.push(makeDevice(d, at.line, at.upper, tjC[k] ?? 25));
+  }
+  return out;
+}
+
+/** A device at a junction temperature (gate off until the integrator sets it). */
+export function makeDevice(d: RectifierDevice, line: number, upper: boolean, tjC: number): NetDevice {
+  const body = scaleDiodeToTemp(d.kind === 'diode' ? d.params : d.body, tjC);
+  const rds = d.kind === 'mosfet' ? rdsOnOhm(d.rdsOn25Ohm, d.rdsOnTempExponent, tjC) : Infinity;
+  return { ...body, rdsOhm: rds, channelOn: false, name: d.name, line, upper, gate: undefined, source: d };
+}
+
+/** Re-scales every device to new junction temperatures (the electro-thermal loop). */
+export function setDeviceTemperatures(net: Network, tjC: readonly number[]): void {
+  net.devices.forEach((d, k) => {
+    const fresh = makeDevice(d.source, d.line, d.upper, tjC[k] ?? 25);
+    d.isA = fresh.isA;
+    d.nVtV = fresh.nVtV;
+    d.rsOhm = fresh.rsOhm;
+    d.rdsOhm = fresh.rdsOhm;
+  });
+}
+
+function buildPaths(lay: Layout, devices: NetDevice[], nPorts: number): NetPath[] {
+  const paths: NetPath[] = [];
+  const ups = devices.map((d, k) => [d, k] as const).filter(([d]) => d.upper);
+  const lows = devices.map((d, k) => [d, k] as const).filter(([d]) => !d.upper);
+  const mk = (up: number, low: number, devs: number[], s: number[]): NetPath => {
+    const lu = up >= 0 ? lay.lines[up]! : undefined;
+    const ll = low >= 0 ? lay.lines[low]! : undefined;
+    return {
+      upLine: up, lowLine: low, devices: devs, s: Float64Array.from(s),
+      a: (lu?.a ?? 0) - (ll?.a ?? 0), b: (lu?.b ?? 0) - (ll?.b ?? 0),
+      rOhm: (lu?.rOhm ?? 0) + (ll?.rOhm ?? 0), lH: (lu?.lH ?? 0) + (ll?.lH ?? 0),
+      srcSign: (lu?.mainsCoeff ?? 0) - (ll?.mainsCoeff ?? 0),
+    };
+  };
+  if (lay.floating) {
+    for (const [u, ku] of ups) for (const [w, kw] of lows) if (u.line !== w.line) paths.push(mk(u.line, w.line, [ku, kw], [1]));
+    return paths;
+  }
+  for (const [u, ku] of ups) {
+    const pc = lay.lines[u.line]!.portCoeff;
+    paths.push(mk(u.line, -1, [ku], range(nPorts).map((j) => lay.railPlus[j]! - pc[j]!)));
+  }
+  for (const [w, kw] of lows) {
+    const pc = lay.lines[w.line]!.portCoeff;
+    paths.push(mk(-1, w.line, [kw], range(nPorts).map((j) => pc[j]! - lay.railMinus[j]!)));
+  }
+  return paths;
+}
+
+/**
+ * Instants in [0, T) where a·sin ωt + b·cos ωt has its crest or trough, for every path (the
+ * troughs are where the reverse voltages peak).
+ */
+function crestTimes(paths: NetPath[], omega: number): number[] {
+  const T = (2 * Math.PI) / omega;
+  const wrap = (x: number) => ((x % T) + T) % T;
+  const out = paths.flatMap((p) => {
+    const phi = Math.atan2(p.b, p.a);
+    return [wrap((Math.PI / 2 - phi) / omega), wrap(((3 * Math.PI) / 2 - phi) / omega)];
+  });
+  return [...new Set(out)].sort((x, y) => x - y);
+}
+
+function range(n: number): number[] {
+  return Array.from({ length: n }, (_, i) => i);
+}
+
+function buildLoad(load: Load, vScaleV: number): LoadModel {
+  // Current and power loads fade out below 5 % of the source peak (or a power load's vmin):
+  // a real converter stops at its undervoltage lockout; the fade keeps the model bounded.
+  const floor = 0.05 * vScaleV;
+  switch (load.kind) {
+    case 'resistance': return { kind: 'resistance', rOhm: load.ohm > 0 ? load.ohm : Infinity, iA: 0, pW: 0, vFloorV: floor };
+    case 'current': return { kind: 'current', rOhm: Infinity, iA: Math.max(load.a, 0), pW: 0, vFloorV: floor };
+    case 'power': return { kind: 'power', rOhm: Infinity, iA: 0, pW: Math.max(load.w, 0), vFloorV: load.vminV && load.vminV > 0 ? load.vminV : floor };
+    default: return { kind: 'none', rOhm: Infinity, iA: 0, pW: 0, vFloorV: floor };
+  }
+}
+
+/** The default gate-on threshold for a MOSFET. */
+export function gateOnVoltage(d: RectifierDevice): number {
+  return d.kind === 'mosfet' && d.gateOnV !== undefined ? d.gateOnV : DEFAULT_GATE_ON_V;
+}

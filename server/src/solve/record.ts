@@ -1,0 +1,133 @@
+/**
+ * The record of one integrated interval: the solution at every stage point with a quadrature
+ * weight, so averages and RMS values are integrals of the integrator's own solution (third-order
+ * weights on the TR-BDF2 nodes 0, γ, 1) rather than of a resampled copy.
+ */
+import type { Network } from './network';
+import type { StageOut } from './stage';
+import { deviceVoltageV } from './mosfet-model';
+
+/** Structure-of-arrays storage of solution points. */
+export class PeriodRecord {
+  count = 0;
+  private capacity = 0;
+  t = new Float64Array(0);
+  /** Quadrature weight of each point, seconds. */
+  w = new Float64Array(0);
+  mode = new Int32Array(0);
+  iA = new Float64Array(0);
+  vLoadV = new Float64Array(0);
+  iLoadA = new Float64Array(0);
+  /** Port voltages, count × nPorts. */
+  u = new Float64Array(0);
+  /** Device voltages anode − cathode, count × nDevices (negative while blocking). */
+  devV = new Float64Array(0);
+  private readonly slope = new Float64Array(1);
+  private readonly lineV: Float64Array;
+
+  constructor(readonly net: Network) {
+    this.lineV = new Float64Array(net.lines.length);
+    this.grow(256);
+  }
+
+  reset(): void {
+    this.count = 0;
+  }
+
+  /** Appends the solution point of a stage at time t; returns its index. */
+  push(t: number, o: StageOut): number {
+    if (this.count === this.capacity) this.grow(this.capacity * 2);
+    const k = this.count++;
+    const np = this.net.ports.length;
+    const nd = this.net.devices.length;
+    this.t[k] = t; this.w[k] = 0; this.mode[k] = o.mode; this.iA[k] = o.iA;
+    this.vLoadV[k] = o.vLoadV; this.iLoadA[k] = o.iLoadA;
+    for (let j = 0; j < np; j++) this.u[k * np + j] = o.u[j]!;
+    this.fillDeviceVoltages(t, o, k * nd);
+    return k;
+  }
+
+  addWeight(k: number, wS: number): void {
+    this.w[k] = this.w[k]! + wS;
+  }
+
+  /** Current of device d at point k. */
+  deviceCurrentA(k: number, d: number): number {
+    const m = this.mode[k]!;
+    return m >= 0 && this.net.paths[m]!.devices.includes(d) ? this.iA[k]! : 0;
+  }
+
+  /** Source (mains-referred, before the turns ratio) current at point k. */
+  sourceCurrentA(k: number): number {
+    const m = this.mode[k]!;
+    return m >= 0 ? this.net.paths[m]!.srcSign * this.iA[k]! : 0;
+  }
+
+  /** Reference line EMF (line a) at time t. */
+  sourceVoltageV(t: number): number {
+    const l = this.net.lines[0]!;
+    return l.a * Math.sin(this.net.omega * t) + l.b * Math.cos(this.net.omega * t);
+  }
+
+  /** Instantaneous power delivered by the source EMFs at point k. */
+  sourcePowerW(k: number): number {
+    const m = this.mode[k]!;
+    if (m < 0) return 0;
+    const p = this.net.paths[m]!;
+    const wt = this.net.omega * this.t[k]!;
+    return (p.a * Math.sin(wt) + p.b * Math.cos(wt)) * this.iA[k]!;
+  }
+
+  private fillDeviceVoltages(t: number, o: StageOut, off: number): void {
+    const net = this.net;
+    const path = o.mode >= 0 ? net.paths[o.mode]! : undefined;
+    const sn = Math.sin(net.omega * t);
+    const cs = Math.cos(net.omega * t);
+    let vMax = -Infinity, vMin = Infinity;
+    net.lines.forEach((l, x) => {
+      let v = l.a * sn + l.b * cs;
+      for (let j = 0; j < l.portCoeff.length; j++) v += l.portCoeff[j]! * o.u[j]!;
+      const dir = path ? (path.upLine === x ? 1 : path.lowLine === x ? -1 : 0) : 0;
+      v -= dir * (o.iA * l.rOhm + o.didtAps * l.lH);
+      this.lineV[x] = v;
+      vMax = Math.max(vMax, v); vMin = Math.min(vMin, v);
+    });
+    let vPlus = 0, vMinus = 0;
+    if (net.floatingRails) {
+      const vBus = o.u[0]!;
+      if (path && path.upLine >= 0 && path.lowLine >= 0) {
+        const [du, dl] = path.devices;
+        vPlus = this.lineV[path.upLine]! - deviceVoltageV(net.devices[du!]!, o.iA, this.slope);
+        vMinus = this.lineV[path.lowLine]! + deviceVoltageV(net.devices[dl!]!, o.iA, this.slope);
+      } else {
+        // All off: the rails float; put them symmetrically about the extreme lines.
+        const mid = 0.5 * (vMax + vMin);
+        vPlus = mid + 0.5 * vBus; vMinus = mid - 0.5 * vBus;
+      }
+    } else {
+      for (let j = 0; j < net.ports.length; j++) { vPlus += net.railPlus[j]! * o.u[j]!; vMinus += net.railMinus[j]! * o.u[j]!; }
+    }
+    net.devices.forEach((d, k) => {
+      const conducting = path !== undefined && path.devices.includes(k);
+      this.devV[off + k] = conducting
+        ? deviceVoltageV(d, o.iA, this.slope)
+        : d.upper ? this.lineV[d.line]! - vPlus : vMinus - this.lineV[d.line]!;
+    });
+  }
+
+  private grow(n: number): void {
+    const np = this.net.ports.length;
+    const nd = this.net.devices.length;
+    const ext = <T extends Float64Array | Int32Array>(a: T, size: number, make: (s: number) => T): T => {
+      const b = make(size);
+      b.set(a.subarray(0, Math.min(a.length, size)));
+      return b;
+    };
+    const f = (s: number) => new Float64Array(s);
+    this.t = ext(this.t, n, f); this.w = ext(this.w, n, f); this.iA = ext(this.iA, n, f);
+    this.vLoadV = ext(this.vLoadV, n, f); this.iLoadA = ext(this.iLoadA, n, f);
+    this.mode = ext(this.mode, n, (s) => new Int32Array(s));
+    this.u = ext(this.u, n * np, f); this.devV = ext(this.devV, n * nd, f);
+    this.capacity = n;
+  }
+}

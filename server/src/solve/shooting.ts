@@ -1,0 +1,150 @@
+/**
+ * Periodic steady state by shooting: Newton on the state at the start of a period, x ↦ P(x) − x,
+ * with the period Jacobian dP/dx carried by the integrator. A slow RC filter (time constant many
+ * periods) therefore converges in a few periods instead of hundreds: the slow decay is exactly
+ * what the Jacobian captures.
+ */
+import type { Network } from './network';
+import { StageSolver } from './stage';
+import { Integrator, type IntegrateOptions } from './integrator';
+import { PeriodRecord } from './record';
+
+/** Accuracy and effort settings; all optional. */
+export interface SteadyStateOptions {
+  /** Local error tolerance relative to the source peak voltage (default 1e-5). */
+  relTol?: number;
+  /** Newton iterations at most (default 30). */
+  maxIterations?: number;
+  /** Largest step during conduction in the recorded period, as a fraction of the period (default 1/600). */
+  recordStepFraction?: number;
+  /** Step budget per period (default 20 000). */
+  maxStepsPerPeriod?: number;
+}
+
+export interface SteadyState {
+  converged: boolean;
+  /** Newton iterations (periods integrated with the Jacobian). */
+  iterations: number;
+  /** Periods integrated in all, the recorded one included. */
+  periods: number;
+  y0: Float64Array;
+  mode0: number;
+  /** Largest |P(x) − x| of the recorded period relative to its tolerance. */
+  residual: number;
+  record: PeriodRecord;
+  problems: string[];
+}
+
+/** Finds the periodic steady state of a network, starting from `guess` when given. */
+export function findSteadyState(net: Network, options: SteadyStateOptions = {}, guess?: { y0: Float64Array; mode0: number }): SteadyState {
+  const n = net.n;
+  const T = net.periodS;
+  const relTol = options.relTol ?? 1e-5;
+  const maxIt = options.maxIterations ?? 30;
+  const solver = new StageSolver(net);
+  const integ = new Integrator(net, solver);
+  const opts = integrationOptions(net, relTol, options.maxStepsPerPeriod ?? 20000);
+  const problems: string[] = [];
+  const record = new PeriodRecord(net);
+  // Without a guess the first period is the switch-on from empty, a physical start whose
+  // Newton correction already lands near the orbit.
+  const y0 = new Float64Array(n);
+  let mode0 = -1;
+  let periods = 0;
+  if (guess) { y0.set(guess.y0); mode0 = guess.mode0; }
+  let iterations = 0;
+  let converged = n === 0;
+  let fine = n === 0;
+  let lastWorst = Infinity;
+  const g = new Float64Array(n);
+  const fineOpts = { ...opts, record, hMaxOnS: T * (options.recordStepFraction ?? 1 / 600) };
+  // Coarse periods until the orbit is near; then every period is recorded at the fine step, so
+  // the period that passes the periodicity test is the one whose figures are reported.
+  for (;;) {
+    const res = integ.run(0, T, y0, mode0, fine ? fineOpts : opts);
+    periods++;
+    if (!res.ok) { problems.push('steady state: step budget exhausted within one period'); break; }
+    let worst = 0;
+    for (let j = 0; j < n; j++) { g[j] = integ.y[j]! - y0[j]!; worst = Math.max(worst, Math.abs(g[j]!) / opts.atol[j]!); }
+    // Converged at the tolerance, or stalled at the integrator's noise floor (the discrete period
+    // map is only as smooth as the adaptive step sequence: a few dozen local tolerances).
+    const stalled = worst <= 200 && worst >= 0.3 * lastWorst;
+    lastWorst = worst;
+    if (worst <= 2 || stalled) {
+      if (fine) { converged = true; break; }
+      fine = true;
+      continue;
+    }
+    if (iterations >= maxIt) break;
+    iterations++;
+    const delta = solveNewton(integ.Y, g, n);
+    let big = 0;
+    for (let j = 0; j < n; j++) {
+      const step = Math.max(-net.vScaleV, Math.min(net.vScaleV, delta[j]!));
+      big = Math.max(big, Math.abs(step) / (opts.atol[j]! / relTol));
+      y0[j] = Math.max(0, y0[j]! + step);
+    }
+    mode0 = res.mode;
+    fine = big < 0.02 || maxAbs(integ.Y) < 0.05;
+  }
+  if (!converged) problems.push(`steady state not reached in ${iterations} shooting iterations; figures are from the last period`);
+  if (!fine) {
+    const res = integ.run(0, T, y0, mode0, fineOpts);
+    periods++;
+    if (!res.ok) problems.push('steady state: step budget exhausted in the recorded period');
+  }
+  let residual = 0;
+  for (let j = 0; j < n; j++) residual = Math.max(residual, Math.abs(integ.y[j]! - y0[j]!) / opts.atol[j]!);
+  return { converged, iterations, periods, y0, mode0, residual, record, problems };
+}
+
+/** Integration settings derived from the network's scales. */
+export function integrationOptions(net: Network, relTol: number, maxSteps: number): IntegrateOptions {
+  const n = net.n;
+  const atol = new Float64Array(n);
+  const vTol = relTol * net.vScaleV;
+  for (let j = 0; j < net.nCap; j++) atol[j] = vTol;
+  if (net.hasL) {
+    // Current scale: the source peak over the largest path impedance at the line frequency.
+    const z = Math.max(...net.paths.map((p) => Math.hypot(p.rOhm, net.omega * p.lH)), 1e-3);
+    atol[n - 1] = vTol / z;
+  }
+  const T = net.periodS;
+  return { atol, rtol: 0, hMaxS: T / 16, hMaxOnS: Infinity, hEdgeS: T * 1e-7, maxSteps, sensitivity: true };
+}
+
+/** Newton correction δ from (Φ − I)·δ = −g; falls back to δ = g when Φ − I is singular. */
+function solveNewton(phi: Float64Array, g: Float64Array, n: number): Float64Array {
+  const a = new Float64Array(n * n);
+  const b = new Float64Array(n);
+  for (let i = 0; i < n; i++) {
+    for (let j = 0; j < n; j++) a[i * n + j] = phi[i * n + j]! - (i === j ? 1 : 0);
+    b[i] = -g[i]!;
+  }
+  for (let c = 0; c < n; c++) {
+    let p = c;
+    for (let r = c + 1; r < n; r++) if (Math.abs(a[r * n + c]!) > Math.abs(a[p * n + c]!)) p = r;
+    if (Math.abs(a[p * n + c]!) < 1e-12) return Float64Array.from(g);
+    if (p !== c) {
+      for (let j = 0; j < n; j++) { const t = a[c * n + j]!; a[c * n + j] = a[p * n + j]!; a[p * n + j] = t; }
+      const t = b[c]!; b[c] = b[p]!; b[p] = t;
+    }
+    for (let r = c + 1; r < n; r++) {
+      const m = a[r * n + c]! / a[c * n + c]!;
+      for (let j = c; j < n; j++) a[r * n + j] = a[r * n + j]! - m * a[c * n + j]!;
+      b[r] = b[r]! - m * b[c]!;
+    }
+  }
+  for (let r = n - 1; r >= 0; r--) {
+    let s = b[r]!;
+    for (let j = r + 1; j < n; j++) s -= a[r * n + j]! * b[j]!;
+    b[r] = s / a[r * n + r]!;
+  }
+  return b;
+}
+
+function maxAbs(a: Float64Array): number {
+  let m = 0;
+  for (const x of a) m = Math.max(m, Math.abs(x));
+  return m;
+}

@@ -1,0 +1,233 @@
+/**
+ * One implicit stage: solve y − dh·f(t, y) = r for the network's states. Because at most one
+ * path conducts, every state is an affine function of that path's current i, and the stage
+ * reduces to one monotone scalar equation G(i) = 0 — solved by safeguarded Newton in
+ * ψ = ln(1 + i/IS), where the diode law is linear and an ideal-ish diode cannot overflow. The
+ * stage also returns dy/dr and df/dr (implicit function theorem), which give the integrator its
+ * error filter and the shooting method its period Jacobian without finite differences.
+ */
+import type { Network } from './network';
+import { deviceVoltageV } from './mosfet-model';
+
+/** Everything one stage produces; buffers are reused. */
+export class StageOut {
+  readonly y: Float64Array;
+  readonly f: Float64Array;
+  /** dy/dr, row-major n×n. */
+  readonly dydr: Float64Array;
+  /** df/dr, row-major n×n. */
+  readonly dfdr: Float64Array;
+  /** Port voltages u_j (capacitor plus ESR drop, or the bare load's voltage). */
+  readonly u: Float64Array;
+  /** Conducting path, or −1. */
+  mode = -1;
+  /** Edge function: positive while a path conducts, crossing zero at its edges. */
+  phi = 0;
+  iA = 0;
+  didtAps = 0;
+  iLoadA = 0;
+  vLoadV = 0;
+  constructor(n: number, nPorts: number) {
+    this.y = new Float64Array(n);
+    this.f = new Float64Array(n);
+    this.dydr = new Float64Array(n * n);
+    this.dfdr = new Float64Array(n * n);
+    this.u = new Float64Array(nPorts);
+  }
+  copyFrom(o: StageOut): void {
+    this.y.set(o.y); this.f.set(o.f); this.dydr.set(o.dydr); this.dfdr.set(o.dfdr); this.u.set(o.u);
+    this.mode = o.mode; this.phi = o.phi; this.iA = o.iA; this.didtAps = o.didtAps;
+    this.iLoadA = o.iLoadA; this.vLoadV = o.vLoadV;
+  }
+}
+
+/** The stage solver for one network; holds scratch space and warm starts. */
+export class StageSolver {
+  private readonly k: Float64Array;
+  private readonly rp: Float64Array;
+  private readonly psiWarm: Float64Array;
+  private readonly slope = new Float64Array(1);
+  // Load solution scratch: voltage, current, dI/dV.
+  private vL = 0;
+  private g = 0;
+  private gp = 0;
+
+  constructor(private readonly net: Network) {
+    this.k = new Float64Array(net.ports.length);
+    this.rp = new Float64Array(net.ports.length);
+    this.psiWarm = new Float64Array(net.paths.length);
+  }
+
+  /** Solves one stage at time t with coefficient dh from right-hand side r; modeIn is the path holding the inductor current. */
+  solve(t: number, dh: number, r: Float64Array, modeIn: number, out: StageOut): void {
+    const net = this.net;
+    const ports = net.ports;
+    const np = ports.length;
+    let A = 0;
+    let K = 0;
+    for (let j = 0; j < np; j++) {
+      const p = ports[j]!;
+      this.k[j] = p.bare ? net.load.rOhm : dh / p.cF + p.esrOhm;
+      this.rp[j] = p.bare ? 0 : r[j]!;
+      A += p.l * this.rp[j]!;
+      K += p.l * this.k[j]!;
+    }
+    const rL = net.hasL ? r[net.n - 1]! : 0;
+    this.solveLoad(A, K);
+    const g0 = this.g;
+    const sn = Math.sin(net.omega * t);
+    const cs = Math.cos(net.omega * t);
+    let best = -1;
+    let bestDrive = -Infinity;
+    for (let p = 0; p < net.paths.length; p++) {
+      const path = net.paths[p]!;
+      if (net.hasL && modeIn >= 0 && rL > 0 && p !== modeIn) continue; // inductor current must reach zero first
+      let drive = path.a * sn + path.b * cs + (p === modeIn && path.lH > 0 ? (path.lH / dh) * rL : 0);
+      for (let j = 0; j < np; j++) drive -= path.s[j]! * (this.rp[j]! - this.k[j]! * ports[j]!.l * g0);
+      if (drive > bestDrive) { bestDrive = drive; best = p; }
+    }
+    out.phi = bestDrive;
+    let i = 0;
+    let D = 1;
+    if (best >= 0 && bestDrive > 0) {
+      i = this.solvePath(best, dh, A, K, bestDrive, sn, cs, modeIn === best ? rL : 0);
+      D = this.dG;
+    } else {
+      best = -1;
+      this.solveLoad(A, K);
+    }
+    this.fillOutputs(out, best, i, D, dh, K, sn, cs);
+  }
+
+  private dG = 1;
+
+  /** Load voltage from vL = a − K·g(vL), with the load current g and its slope. */
+  private solveLoad(a: number, K: number): void {
+    const ld = this.net.load;
+    const vf = ld.vFloorV;
+    if (ld.kind === 'resistance') {
+      this.vL = a / (1 + K / ld.rOhm); this.g = this.vL / ld.rOhm; this.gp = 1 / ld.rOhm;
+    } else if (ld.kind === 'current' || ld.kind === 'power') {
+      const p = ld.pW;
+      let v = a - K * ld.iA;
+      if (ld.kind === 'power') {
+        const disc = a * a - 4 * K * p;
+        v = disc >= 0 ? 0.5 * (a + Math.sqrt(disc)) : -Infinity;
+      }
+      if (v >= vf) {
+        this.vL = v; this.g = ld.kind === 'power' ? p / v : ld.iA; this.gp = ld.kind === 'power' ? -p / (v * v) : 0;
+        return;
+      }
+      // Fade region: g = G0·v with G0 = I/vf or P/vf².
+      const g0 = ld.kind === 'power' ? p / (vf * vf) : ld.iA / vf;
+      v = a / (1 + K * g0);
+      if (v >= 0) { this.vL = v; this.g = g0 * v; this.gp = g0; } else { this.vL = a; this.g = 0; this.gp = 0; }
+    } else {
+      this.vL = a; this.g = 0; this.gp = 0;
+    }
+  }
+
+  /** Path current from G(i) = 0 by Newton in ψ with a bracket; leaves G'(i) in dG. */
+  private solvePath(p: number, dh: number, A: number, K: number, drive0: number, sn: number, cs: number, rL: number): number {
+    const net = this.net;
+    const path = net.paths[p]!;
+    const devs = path.devices;
+    let isRef = Infinity;
+    for (const k of devs) isRef = Math.min(isRef, net.devices[k]!.isA);
+    const lOverDh = path.lH / dh;
+    const R = path.rOhm + lOverDh;
+    const emf = path.a * sn + path.b * cs + lOverDh * rL;
+    let S1 = 0, S2 = 0, B = 0;
+    for (let j = 0; j < net.ports.length; j++) {
+      const s = path.s[j]!;
+      S1 += s * this.rp[j]!; S2 += s * s * this.k[j]!; B += net.ports[j]!.l * this.k[j]! * s;
+    }
+    // The linear part bounds the current: G(i) ≥ lin·i − drive0 with lin the smaller of R + S2
+    // and the slope with a resistive load folded in. That gives a finite upper bracket, and the
+    // cold start sits there (Newton in i is exact when the linear part dominates).
+    const lin = Math.min(R + S2, R + S2 - (B * B * this.gp) / (1 + K * this.gp));
+    const psiHi = lin > 0 ? Math.min(Math.log1p(drive0 / lin / isRef), 700) : 700;
+    const warm = this.psiWarm[p]!;
+    let psi = warm > 0 && warm < psiHi ? warm : psiHi;
+    let lo = 0;
+    let hi = psiHi * (1 + 1e-12) + 1e-300;
+    for (let it = 0; it < 100; it++) {
+      const i = isRef * Math.expm1(psi);
+      let v = 0, dv = 0;
+      for (const k of devs) { v += deviceVoltageV(net.devices[k]!, i, this.slope); dv += this.slope[0]!; }
+      this.solveLoad(A + B * i, K);
+      const G = R * i + v + S1 + S2 * i - B * this.g - emf;
+      this.dG = R + dv + S2 - (B * B * this.gp) / (1 + K * this.gp);
+      if (G === 0) break;
+      if (G < 0) lo = psi; else hi = psi;
+      // G is concave in i and convex in ψ: Newton in i is the bolder move downwards, Newton in
+      // ψ the bolder move upwards. Take the bold one inside the bracket, else the other, else bisect.
+      const psiN = psi - G / (this.dG * (i + isRef));
+      const iN = i - G / this.dG;
+      const psiI = iN > 0 ? Math.log1p(iN / isRef) : -1;
+      let next = G > 0 ? (psiI > lo ? psiI : psiN) : (psiN < hi ? psiN : psiI);
+      if (!(next > lo && next < hi)) next = Number.isFinite(hi) ? 0.5 * (lo + hi) : Math.min(lo + 2 * (psi - lo) + 1, 700);
+      // Relative in ψ, hence in i: an ideal-ish diode can sit at ψ ≪ 1.
+      const done = Math.abs(next - psi) <= 1e-11 * psi;
+      psi = next;
+      if (done) break;
+    }
+    this.psiWarm[p] = psi;
+    const i = isRef * Math.expm1(psi);
+    this.solveLoad(A + B * i, K);
+    return i;
+  }
+
+  private fillOutputs(out: StageOut, mode: number, i: number, D: number, dh: number, K: number, sn: number, cs: number): void {
+    const net = this.net;
+    const n = net.n;
+    const nc = net.nCap;
+    const ports = net.ports;
+    const path = mode >= 0 ? net.paths[mode]! : undefined;
+    const on = path !== undefined;
+    const gp = this.gp;
+    const den = 1 + K * gp;
+    let B = 0;
+    if (path) for (let j = 0; j < ports.length; j++) B += ports[j]!.l * this.k[j]! * path.s[j]!;
+    out.mode = mode; out.iA = i; out.iLoadA = this.g; out.vLoadV = this.vL;
+    let sumSu = 0;
+    for (let j = 0; j < ports.length; j++) {
+      const s = path ? path.s[j]! : 0;
+      const iPort = s * i - ports[j]!.l * this.g;
+      out.u[j] = this.rp[j]! + this.k[j]! * iPort;
+      sumSu += s * out.u[j]!;
+      if (j < nc) { out.f[j] = iPort / ports[j]!.cF; out.y[j] = this.rp[j]! + dh * out.f[j]!; }
+    }
+    if (ports[0]!.bare) out.vLoadV = out.u[0]!;
+    if (net.hasL) {
+      let vdev = 0;
+      if (path) for (const k of path.devices) vdev += deviceVoltageV(net.devices[k]!, i, this.slope);
+      out.y[n - 1] = i;
+      out.didtAps = path && path.lH > 0 ? (path.a * sn + path.b * cs - path.rOhm * i - vdev - sumSu) / path.lH : 0;
+      out.f[n - 1] = out.didtAps;
+    } else out.didtAps = 0;
+    // Sensitivities: for each column m, di/dr_m from ∂G/∂r_m, then the load, then y and f.
+    for (let m = 0; m < n; m++) {
+      let di = 0;
+      let dvL: number;
+      if (m < nc) {
+        if (on) di = -(path.s[m]! - (B * gp * ports[m]!.l) / den) / D;
+        dvL = (ports[m]!.l + B * di) / den;
+      } else {
+        if (on) di = path.lH / dh / D;
+        dvL = (B * di) / den;
+      }
+      const dload = gp * dvL;
+      for (let j = 0; j < nc; j++) {
+        const s = path ? path.s[j]! : 0;
+        const df = (s * di - ports[j]!.l * dload) / ports[j]!.cF;
+        out.dfdr[j * n + m] = df;
+        out.dydr[j * n + m] = (j === m ? 1 : 0) + dh * df;
+      }
+      if (net.hasL) {
+        out.dydr[(n - 1) * n + m] = di;
+        out.dfdr[(n - 1) * n + m] = on ? (di - (m === n - 1 ? 1 : 0)) / dh : 0;
+      }
+    }
+  }
+}

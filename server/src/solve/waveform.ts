@@ -1,0 +1,43 @@
+/**
+ * Uniformly sampled waveforms of a record, for plotting: source voltage, output voltage, the
+ * mains-referred source current and each device's current.
+ */
+import type { PeriodRecord } from './record';
+
+/** Sampled waveforms; every array has the length of tS. */
+export interface Waveform {
+  tS: number[];
+  sourceV: number[];
+  outputV: number[];
+  /** Source current referred to the mains side (times the turns ratio). */
+  sourceA: number[];
+  /** One array per device, in the order of `deviceNames`. */
+  deviceA: number[][];
+  deviceNames: string[];
+}
+
+/** Samples a record at `points` uniform instants from its first to its last point. */
+export function sampleWaveform(rec: PeriodRecord, points: number, mainsScale: number): Waveform {
+  const n = rec.count;
+  const t0 = rec.t[0]!;
+  const t1 = rec.t[n - 1]!;
+  const nd = rec.net.devices.length;
+  const w: Waveform = {
+    tS: [], sourceV: [], outputV: [], sourceA: [], deviceA: rec.net.devices.map(() => []),
+    deviceNames: rec.net.devices.map((d) => d.name),
+  };
+  let k = 0;
+  for (let p = 0; p < points; p++) {
+    const t = points > 1 ? t0 + ((t1 - t0) * p) / (points - 1) : t0;
+    while (k < n - 2 && rec.t[k + 1]! < t) k++;
+    const span = rec.t[k + 1]! - rec.t[k]!;
+    const a = span > 0 ? Math.min(Math.max((t - rec.t[k]!) / span, 0), 1) : 0;
+    const lerp = (f: (j: number) => number) => (1 - a) * f(k) + a * f(k + 1);
+    w.tS.push(t);
+    w.sourceV.push(rec.sourceVoltageV(t));
+    w.outputV.push(lerp((j) => rec.vLoadV[j]!));
+    w.sourceA.push(mainsScale * lerp((j) => rec.sourceCurrentA(j)));
+    for (let d = 0; d < nd; d++) w.deviceA[d]!.push(lerp((j) => rec.deviceCurrentA(j, d)));
+  }
+  return w;
+}
