@@ -18,8 +18,6 @@ export interface AnalysisSettings {
   };
   /** How much the inlay hints say. */
   hintDetail?: 'off' | 'brief' | 'full';
-  /** Parts files already read and parsed by the adapter. */
-  partsFiles?: unknown[];
 }
 
 export const DEFAULT_SETTINGS: AnalysisSettings = { hintDetail: 'brief' };

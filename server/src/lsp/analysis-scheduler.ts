@@ -4,12 +4,16 @@
  * finished analysis of each file, never blocked on a running one.
  */
 import { analyze, type AnalysisInput, type FileAnalysis } from '../analysis/analyze';
+import type { SolutionCache } from '../analysis/rectifier-analysis';
+import type { PartsFile } from '../ratings/index';
 import type { AnalysisSettings } from '../analysis/settings';
 
 export interface SchedulerHooks {
   /** Reads a file's text: an open document, or the disk where allowed. */
   readText: (uri: string) => string | undefined;
   settings: () => AnalysisSettings;
+  /** Validated parts files, read by the server. */
+  partsFiles: () => readonly PartsFile[];
   /** Called with each finished analysis, e.g. to publish diagnostics. */
   onAnalysed: (file: FileAnalysis) => void;
   /** Called when a batch starts or ends, e.g. to show a busy indicator. */
@@ -22,6 +26,8 @@ export class AnalysisScheduler {
   private timer: NodeJS.Timeout | undefined;
   private generation = 0;
   private running: Promise<void> | undefined;
+  /** Solutions survive between analyses: an edit re-solves only the rectifiers whose inputs changed. */
+  private readonly solutionCache: SolutionCache = new Map();
 
   constructor(private readonly hooks: SchedulerHooks, private readonly debounceMs = 10) {}
 
@@ -74,7 +80,9 @@ export class AnalysisScheduler {
       for (const uri of batch) {
         if (generation !== this.generation) return; // a newer edit arrived: its run takes over
         this.pending.delete(uri);
-        const input: AnalysisInput = { roots: [uri], readText: this.hooks.readText, settings: this.hooks.settings() };
+        const input: AnalysisInput = {
+          roots: [uri], readText: this.hooks.readText, settings: this.hooks.settings(), partsFiles: this.hooks.partsFiles(), solutionCache: this.solutionCache,
+        };
         const file = analyze(input).files.get(uri);
         if (file) {
           this.results.set(uri, file);

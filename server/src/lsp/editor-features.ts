@@ -1,7 +1,12 @@
-/** Hover, inlay hints, code lens and code actions: the features that show analysis results. */
-import { CodeActionKind, MarkupKind, type CodeAction } from 'vscode-languageserver/node';
-import { hoverAt } from '../features/hover';
+/** Hover, inlay hints, code lens, code actions and the views: the features that show analysis results. */
+import { CodeActionKind, InlayHintKind, MarkupKind, type CodeAction, type CodeLens, type InlayHint } from 'vscode-languageserver/node';
 import { LineIndex } from '../analysis/line-index';
+import { codeLensesOf } from '../features/code-lens';
+import { hoverAt } from '../features/hover';
+import { inlayHintsOf } from '../features/inlay-hints';
+import { devicesAtCard } from '../features/rectifier-lookup';
+import { stressHover } from '../features/stress-hover';
+import { renderView, type ViewRequest } from './views';
 import { toRange, toWorkspaceEdit } from './convert';
 import type { ServerContext } from './server';
 
@@ -36,9 +41,34 @@ export function registerEditorFeatures(context: ServerContext, guard: Guard): vo
     const file = scheduler.get(params.textDocument.uri);
     if (!file) return null;
     const lines = new LineIndex(file.text);
-    const found = hoverAt(file.netlist, lines.offsetAt(params.position));
+    const found = hoverAt(file.netlist, lines.offsetAt(params.position), (card) => {
+      const hits = devicesAtCard(file, card.span);
+      return hits.length ? stressHover(file, hits) : undefined;
+    });
     return found ? { contents: { kind: MarkupKind.Markdown, value: found.markdown }, range: toRange(lines, found.span) } : null;
   }));
-  connection.languages.inlayHint.on(guard([], () => []));
-  connection.onCodeLens(guard([], () => []));
+
+  connection.languages.inlayHint.on(guard([], (params) => {
+    const file = scheduler.get(params.textDocument.uri);
+    if (!file) return [];
+    const lines = new LineIndex(file.text);
+    const from = lines.offsetAt(params.range.start);
+    const to = lines.offsetAt(params.range.end);
+    return inlayHintsOf(file, context.settings().hintDetail ?? 'brief')
+      .filter((h) => h.offset >= from && h.offset <= to)
+      .map((h): InlayHint => ({ position: lines.positionAt(h.offset), label: h.label, tooltip: h.tooltip, kind: InlayHintKind.Type, paddingLeft: true }));
+  }));
+
+  connection.onCodeLens(guard([], (params) => {
+    const file = scheduler.get(params.textDocument.uri);
+    if (!file) return [];
+    const lines = new LineIndex(file.text);
+    return codeLensesOf(file).map((lens): CodeLens => {
+      const position = lines.positionAt(lens.offset);
+      const range = { start: position, end: position };
+      return { range, command: { title: lens.title, command: lens.command?.id ?? '', arguments: lens.command?.args } };
+    });
+  }));
+
+  connection.onRequest('rectilens/view', guard(null, (params: ViewRequest) => renderView(scheduler.get(params.uri), params)));
 }

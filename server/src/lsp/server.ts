@@ -19,6 +19,8 @@ import { AnalysisScheduler } from './analysis-scheduler';
 import { toDiagnostic, toDocumentSymbol, toFoldingRange, toRange, toWorkspaceEdit } from './convert';
 import { registerEditorFeatures } from './editor-features';
 import { isReadable, type TrustPolicy } from './trust';
+import { readPartsFiles } from './parts-files';
+import type { PartsFile } from '../ratings/index';
 
 const COMPLETION_KIND = {
   keyword: CompletionItemKind.Keyword, property: CompletionItemKind.Property, model: CompletionItemKind.Class,
@@ -51,9 +53,11 @@ export function startServer(connection: Connection): void {
       return undefined;
     }
   };
+  let partsFiles: PartsFile[] = [];
   const scheduler = new AnalysisScheduler({
     readText,
     settings: () => settings,
+    partsFiles: () => partsFiles,
     onAnalysed: (file) => publish(file),
     onBusy: (busy, pending) => void connection.sendNotification('rectilens/busy', { busy, pending }),
   });
@@ -114,8 +118,10 @@ export function startServer(connection: Connection): void {
     }
   }
 
-  function applySettings(next: AnalysisSettings): void {
-    settings = { ...DEFAULT_SETTINGS, ...next };
+  function applySettings(next: AnalysisSettings & { partsFiles?: unknown }): void {
+    const { partsFiles: paths, ...rest } = next;
+    settings = { ...DEFAULT_SETTINGS, ...rest };
+    partsFiles = readPartsFiles(Array.isArray(paths) ? paths.filter((p): p is string => typeof p === 'string') : [], trust, readText);
     scheduler.schedule(documents.all().map((d) => d.uri));
   }
 

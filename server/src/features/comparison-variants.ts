@@ -1,0 +1,167 @@
+/**
+ * The four constructions of a single-phase bridge that the topology comparison puts side by
+ * side, each built from the same equivalent circuit (same source, filter, load and corners):
+ * silicon diodes, Schottky diodes, hybrid (two diodes plus two self-driven MOSFETs) and
+ * synchronous (four MOSFETs gated by a controller). Only the devices change.
+ */
+import { DEFAULT_DERATING, DIODE_CATALOG, SCHOTTKY_MAX_VRRM_V, type CatalogDiode, type CatalogSeriesId } from '../ratings/index';
+import {
+  DEFAULT_CONTROLLER_VMIN_V, DEFAULT_RDSON_TEMP_EXPONENT, SPICE_DIODE_DEFAULTS,
+  type DeviceRole, type DiodeParams, type EquivalentCircuit, type MosfetDevice, type RectifierDevice,
+} from '../solve/index';
+
+export type VariantId = 'silicon' | 'schottky' | 'hybrid' | 'synchronous';
+
+/** What the variants are built from: the file's circuit and its worst stresses. */
+export interface VariantBasis {
+  circuit: EquivalentCircuit;
+  /** Worst reverse voltage over devices and corners. */
+  pivV: number;
+  /** Worst per-device average current over devices and corners. */
+  iavgA: number;
+  /** The controller's minimum voltage when the file has one. */
+  controllerVminV?: number;
+}
+
+/** A variant's circuit, or the reason it is not offered. */
+export interface VariantPlan {
+  id: VariantId;
+  label: string;
+  /** Its devices in words, e.g. "4 × 1N4004-class silicon (1 A)". */
+  construction: string;
+  circuit?: EquivalentCircuit;
+  notApplicable?: string;
+  assumptions: string[];
+}
+
+/**
+ * Thermal resistance junction-to-ambient given to every variant's devices when the file rates
+ * none: 60 K/W, our own assumption for a small leaded or surface-mount part on modest copper.
+ */
+export const ASSUMED_RTHJA_K_PER_W = 60;
+
+/**
+ * On-resistance at 25 °C assumed for the MOSFET variants when the file has no MOSFET, by the
+ * reverse voltage they must block. Our own round figures for parts of each voltage class
+ * (a higher-voltage channel has more resistance per area); not from any datasheet.
+ */
+export const ASSUMED_RDSON_BY_VOLTAGE: readonly { upToV: number; rdsOnOhm: number }[] = [
+  { upToV: 40, rdsOnOhm: 0.02 },
+  { upToV: 120, rdsOnOhm: 0.05 },
+  { upToV: 320, rdsOnOhm: 0.15 },
+  { upToV: Infinity, rdsOnOhm: 0.3 },
+];
+
+const BRIDGE_ROLES: readonly DeviceRole[] = ['upper-a', 'upper-b', 'lower-a', 'lower-b'];
+
+/** Plans all four variants for a single-phase bridge. */
+export function planVariants(basis: VariantBasis): VariantPlan[] {
+  const rth = thermalResistance(basis.circuit);
+  const rdson = onResistance(basis);
+  const silicon = pickSeries(basis, 'silicon');
+  const schottky = pickSeries(basis, 'schottky');
+  const common = [...rth.assumptions];
+  const sync: VariantPlan = planSynchronous(basis, rth.kPerW, rdson, common);
+  return [
+    {
+      id: 'silicon', label: 'Silicon bridge', construction: `4 × ${silicon.label}`,
+      circuit: withDevices(basis.circuit, () => diode(silicon.entry, rth.kPerW)), assumptions: [...common, silicon.why],
+    },
+    planSchottky(basis, schottky, rth.kPerW, common),
+    {
+      id: 'hybrid', label: 'Hybrid bridge', construction: `2 × ${silicon.label} + 2 self-driven MOSFETs (${milliOhm(rdson.ohm)})`,
+      circuit: withDevices(basis.circuit, (role) => (role.startsWith('upper') ? diode(silicon.entry, rth.kPerW) : mosfet(rdson.ohm, 'self-driven', rth.kPerW))),
+      assumptions: [...common, silicon.why, ...rdson.assumptions],
+    },
+    sync,
+  ];
+}
+
+function planSchottky(basis: VariantBasis, series: SeriesChoice, rthKPerW: number, common: string[]): VariantPlan {
+  const plan: VariantPlan = { id: 'schottky', label: 'Schottky bridge', construction: `4 × ${series.label}`, assumptions: [...common, series.why] };
+  if (basis.pivV > SCHOTTKY_MAX_VRRM_V) {
+    plan.notApplicable = `reverse voltage ${Math.round(basis.pivV)} V is beyond the silicon Schottky class (up to ${SCHOTTKY_MAX_VRRM_V} V, common practice)`;
+    return plan;
+  }
+  plan.circuit = withDevices(basis.circuit, () => diode(series.entry, rthKPerW));
+  if (basis.pivV > 40) plan.assumptions.push('forward law of the 40 V Schottky class; a Schottky rated for this voltage drops more, so this variant is optimistic');
+  return plan;
+}
+
+function planSynchronous(basis: VariantBasis, rthKPerW: number, rdson: { ohm: number; assumptions: string[] }, common: string[]): VariantPlan {
+  const vmin = basis.controllerVminV ?? DEFAULT_CONTROLLER_VMIN_V;
+  const assumptions = [...common, ...rdson.assumptions];
+  if (basis.controllerVminV === undefined) assumptions.push(`controller minimum operating voltage ${vmin} V (common practice); below it only the body diodes conduct`);
+  const crestV = basis.circuit.source.vrms * Math.SQRT2;
+  if (crestV < vmin) assumptions.push(`the source crest (${crestV.toFixed(1)} V nominal) stays below the controller's ${vmin} V: the channels never turn on`);
+  const circuit = withDevices(basis.circuit, () => mosfet(rdson.ohm, 'controller', rthKPerW));
+  circuit.controllerVminV = vmin;
+  return {
+    id: 'synchronous', label: 'Synchronous bridge', construction: `4 MOSFETs (${milliOhm(rdson.ohm)}) + controller (vmin ${vmin} V)`,
+    circuit, assumptions,
+  };
+}
+
+interface SeriesChoice {
+  entry: CatalogDiode;
+  label: string;
+  why: string;
+}
+
+/**
+ * The 1 A or the 3 A series of the catalog: the 1 A one when the worst average current stays
+ * within the default current derating of 1 A, else the 3 A one. Within the series, the lowest
+ * VRRM step that keeps the worst reverse voltage within the default reverse derating.
+ */
+function pickSeries(basis: VariantBasis, technology: 'silicon' | 'schottky'): SeriesChoice {
+  const ifFraction = DEFAULT_DERATING.if.value;
+  const small = basis.iavgA <= ifFraction * 1;
+  const id: CatalogSeriesId = technology === 'silicon' ? (small ? '1n4001' : '1n5400') : small ? '1n5817' : '1n5820';
+  const ladder = DIODE_CATALOG.filter((d) => d.series === id);
+  const neededV = basis.pivV / DEFAULT_DERATING.vr.value;
+  const entry = ladder.find((d) => (d.ratings.vrrmV?.value ?? 0) >= neededV) ?? ladder[ladder.length - 1]!;
+  const amps = small ? 1 : 3;
+  const label = `${entry.name}-class ${technology} (${amps} A)`;
+  const why = `${technology} variant: ${amps} A catalog series for a worst average current of ${basis.iavgA.toFixed(2)} A per device; forward law fitted to the catalog's generic class points`;
+  return { entry, label, why: basis.iavgA > 3 * ifFraction ? `${why}; the current exceeds the largest class in the catalog` : why };
+}
+
+function thermalResistance(circuit: EquivalentCircuit): { kPerW: number; assumptions: string[] } {
+  const given = circuit.devices.map((d) => d.rthjaKPerW).find((r) => r !== undefined);
+  if (given !== undefined) return { kPerW: given, assumptions: [`every variant keeps the file's thermal path, RθJA ${given} K/W per device`] };
+  return { kPerW: ASSUMED_RTHJA_K_PER_W, assumptions: [`no RθJA in the file: ${ASSUMED_RTHJA_K_PER_W} K/W per device assumed for every variant (our own assumption)`] };
+}
+
+function onResistance(basis: VariantBasis): { ohm: number; assumptions: string[] } {
+  const fets = basis.circuit.devices.filter((d): d is MosfetDevice => d.kind === 'mosfet');
+  if (fets.length > 0) {
+    const ohm = Math.max(...fets.map((f) => f.rdsOn25Ohm));
+    return { ohm, assumptions: [`MOSFET on-resistance ${milliOhm(ohm)} at 25 °C from the file's MOSFETs`] };
+  }
+  const ohm = ASSUMED_RDSON_BY_VOLTAGE.find((c) => basis.pivV <= c.upToV)!.rdsOnOhm;
+  return { ohm, assumptions: [`no MOSFET in the file: ${milliOhm(ohm)} at 25 °C assumed for a part blocking ${Math.round(basis.pivV)} V (our own round figure)`] };
+}
+
+/** A copy of the circuit whose devices are rebuilt per bridge role, keeping the file's names. */
+function withDevices(circuit: EquivalentCircuit, make: (role: DeviceRole) => Omit<RectifierDevice, 'name' | 'role'>): EquivalentCircuit {
+  const devices = BRIDGE_ROLES.map((role, k): RectifierDevice => {
+    const existing = circuit.devices.find((d) => d.role === role);
+    return { ...make(role), name: existing?.name ?? `Q${k + 1}`, role } as RectifierDevice;
+  });
+  const { controllerVminV: _dropped, ...rest } = circuit;
+  return { ...rest, kind: 'diode-bridge', devices };
+}
+
+function diode(entry: CatalogDiode, rthjaKPerW: number): Omit<RectifierDevice, 'name' | 'role'> {
+  const f = entry.forwardModel;
+  const params: DiodeParams = f ? { isA: f.isA, n: f.n, rsOhm: f.rsOhm, egEv: f.egEv, xti: f.xti, tnomC: f.tnomC } : { ...SPICE_DIODE_DEFAULTS };
+  return { kind: 'diode', params, rthjaKPerW };
+}
+
+function mosfet(rdsOn25Ohm: number, gate: MosfetDevice['gate'], rthjaKPerW: number): Omit<RectifierDevice, 'name' | 'role'> {
+  return { kind: 'mosfet', rdsOn25Ohm, rdsOnTempExponent: DEFAULT_RDSON_TEMP_EXPONENT, body: { ...SPICE_DIODE_DEFAULTS }, gate, rthjaKPerW };
+}
+
+function milliOhm(ohm: number): string {
+  return `${Math.round(ohm * 1000)} mΩ`;
+}

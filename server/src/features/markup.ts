@@ -1,0 +1,45 @@
+/**
+ * Small helpers for the HTML and SVG we write by hand: escaping, number formatting for
+ * coordinates, and the "nice" axis steps of our charts. No I/O.
+ */
+
+const ESCAPES: Readonly<Record<string, string>> = { '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' };
+
+/** Escapes text for an HTML or SVG text node or a double-quoted attribute. */
+export function escapeMarkup(text: string): string {
+  return text.replace(/[&<>"']/g, (ch) => ESCAPES[ch]!);
+}
+
+/** A coordinate with two decimals at most, so the markup stays short and stable. */
+export function coord(value: number): string {
+  return Number.isFinite(value) ? String(Math.round(value * 100) / 100) : '0';
+}
+
+/**
+ * Evenly spaced axis ticks covering [lo, hi] with a step of 1, 2 or 5 times a power of ten,
+ * aiming at about `target` intervals; the returned range is widened to whole steps.
+ */
+export function niceTicks(lo: number, hi: number, target = 5): { ticks: number[]; lo: number; hi: number } {
+  let min = Math.min(lo, hi);
+  let max = Math.max(lo, hi);
+  if (!Number.isFinite(min) || !Number.isFinite(max)) { min = 0; max = 1; }
+  if (max - min < 1e-12) {
+    const pad = Math.abs(max) > 1e-9 ? Math.abs(max) * 0.1 : 1;
+    min -= pad; max += pad;
+  }
+  const raw = (max - min) / target;
+  const power = Math.pow(10, Math.floor(Math.log10(raw)));
+  const step = [1, 2, 5, 10].map((m) => m * power).find((s) => s >= raw * 0.999) ?? 10 * power;
+  const first = Math.floor(min / step + 1e-9) * step;
+  const last = Math.ceil(max / step - 1e-9) * step;
+  const ticks: number[] = [];
+  for (let v = first; v <= last + step * 1e-6; v += step) ticks.push(Math.abs(v) < step * 1e-9 ? 0 : v);
+  return { ticks, lo: first, hi: last };
+}
+
+/** A tick label: no more decimals than the step needs. */
+export function tickLabel(value: number, ticks: readonly number[]): string {
+  const step = ticks.length > 1 ? Math.abs(ticks[1]! - ticks[0]!) : 1;
+  const decimals = Math.max(0, Math.min(6, -Math.floor(Math.log10(step) + 1e-9)));
+  return value.toFixed(decimals).replace('-', '−');
+}

@@ -1,0 +1,85 @@
+/**
+ * The hover table of a rectifier device: nominal and worst values with the corner that produced
+ * each, the rating and how much of it is used, where each rating came from, the assumptions, and
+ * the caution for mains-connected designs.
+ */
+import type { FileAnalysis } from '../analysis/analyze';
+import type { RectifierAnalysis } from '../analysis/rectifier-analysis';
+import { describeOrigin, isAboveExtraLowVoltage, MAINS_CAUTION, type Rated } from '../ratings/index';
+import type { CornerSolution, WorstValue } from '../solve/index';
+import { formatCelsius, formatPercent, formatSi, KIND_NAMES } from './format';
+import type { DeviceHit } from './rectifier-lookup';
+
+const NOMINAL_CORNER = 'nominal-line nominal';
+
+interface Row {
+  label: string;
+  key: 'pivV' | 'ipkA' | 'iavgA' | 'irmsA' | 'lossW' | 'tjC';
+  unit: string;
+  rating?: (hit: DeviceHit) => { symbol: string; rated?: Rated<number> } | undefined;
+}
+
+const ROWS: Row[] = [
+  { label: 'PIV', key: 'pivV', unit: 'V', rating: (h) => h.device.ratings.ratings.kind === 'diode' ? { symbol: 'VRRM', rated: h.device.ratings.ratings.vrrmV } : { symbol: 'VDS', rated: h.device.ratings.ratings.vdsV } },
+  { label: 'Peak current', key: 'ipkA', unit: 'A' },
+  { label: 'Average current', key: 'iavgA', unit: 'A', rating: (h) => h.device.ratings.ratings.kind === 'diode' ? { symbol: 'IF(AV)', rated: h.device.ratings.ratings.ifavA } : { symbol: 'ID', rated: h.device.ratings.ratings.idA } },
+  { label: 'RMS current', key: 'irmsA', unit: 'A' },
+  { label: 'Loss', key: 'lossW', unit: 'W' },
+  { label: 'Junction temperature', key: 'tjC', unit: '°C', rating: (h) => ({ symbol: 'Tjmax', rated: h.device.ratings.ratings.tjmaxC }) },
+];
+
+/** Markdown for the devices under a card (one device, or every device of a packaged bridge). */
+export function stressHover(file: FileAnalysis, hits: readonly DeviceHit[]): string {
+  const sections = hits.map((hit) => deviceSection(hit));
+  const analysis = hits[0]?.analysis;
+  if (!analysis) return '';
+  sections.unshift(rectifierSummary(analysis));
+  const assumptions = file.findings.filter((f) => (f.code === 'assumed-condition' || f.code === 'default-model') && f.span.start === analysis.rectifier.anchor.span.start);
+  if (assumptions.length) sections.push(`**Assumed:** ${assumptions.map((f) => f.message).join('; ')}`);
+  if (isAboveExtraLowVoltage({ acRmsV: analysis.circuit.source.mainsVrms })) sections.push(`⚠ ${MAINS_CAUTION}`);
+  return sections.join('\n\n');
+}
+
+function rectifierSummary(analysis: RectifierAnalysis): string {
+  const worst = analysis.solution.worst;
+  const kind = KIND_NAMES[analysis.rectifier.kind] ?? analysis.rectifier.kind;
+  const parts = [
+    `output ${formatSi(worst.vOutAvgV?.value, 'V')}`,
+    `ripple ${formatSi(worst.rippleVpp?.value, 'V')} p-p`,
+    `efficiency ${formatPercent(worst.efficiency?.value)}`,
+    `inrush ${formatSi(worst.inrushPeakA?.value, 'A')}`,
+  ];
+  return `**${kind}** (${analysis.rectifier.devices.map((d) => d.name).join(', ')}): ${parts.join(' · ')}`;
+}
+
+function deviceSection(hit: DeviceHit): string {
+  const { analysis, device } = hit;
+  const name = device.ref.name;
+  const nominal = analysis.solution.corners.find((c) => c.name === NOMINAL_CORNER) ?? analysis.solution.corners[0];
+  const worst = analysis.solution.devices.find((d) => d.name === name);
+  const lines = [
+    `**${name}** — ${device.ref.type}${device.model ? ` \`${device.model.name}\`` : ''}, ${device.ref.role}`,
+    '',
+    '| | nominal | worst | at corner | rating | used |',
+    '|---|---|---|---|---|---|',
+  ];
+  const origins: string[] = [];
+  for (const row of ROWS) {
+    const nominalValue = deviceValue(nominal, name, row.key);
+    const worstValue = worst?.[row.key] as WorstValue | undefined;
+    const rating = row.rating?.(hit);
+    const ratedText = rating?.rated ? `${rating.symbol} ${row.unit === '°C' ? formatCelsius(rating.rated.value) : formatSi(rating.rated.value, row.unit)}` : rating ? `${rating.symbol} not rated` : '';
+    const used = rating?.rated && worstValue && row.unit !== '°C' ? formatPercent(worstValue.value / rating.rated.value) : '';
+    if (rating?.rated) origins.push(`${rating.symbol}: ${describeOrigin(rating.rated.origin)}`);
+    const show = (v: number | undefined) => (row.unit === '°C' ? formatCelsius(v) : formatSi(v, row.unit));
+    lines.push(`| ${row.label} | ${show(nominalValue)} | ${show(worstValue?.value)} | ${worstValue?.corner ?? ''} | ${ratedText} | ${used} |`);
+  }
+  if (worst?.thermalRunaway) lines.push('', '**Thermal runaway:** the junction temperature does not settle at the hottest corner.');
+  if (origins.length) lines.push('', `Ratings from ${origins.join('; ')}.`);
+  return lines.join('\n');
+}
+
+function deviceValue(corner: CornerSolution | undefined, name: string, key: Row['key']): number | undefined {
+  const value = corner?.devices.find((d) => d.name === name)?.[key];
+  return typeof value === 'number' ? value : undefined;
+}

@@ -1,0 +1,93 @@
+/**
+ * Waveform charts of one solved corner: a steady-state period (source and output voltage above,
+ * source and device currents below) and the switch-on inrush half-cycle. Each trace carries a
+ * stable `data-series` id: `source-voltage`, `output-voltage`, `source-current`,
+ * `device-current:<name>`; inrush traces `inrush-source-voltage`, `inrush-output-voltage`,
+ * `inrush-current` (the source current) and `inrush-device-current:<name>`.
+ */
+import type { CornerSolution, Waveform } from '../solve/index';
+import { renderTimeChart, TRACE_COLOURS, type ChartSeries } from './chart-svg';
+
+/** Which corner a chart shows, for its title. */
+export interface WaveformChartOptions {
+  rectifierLabel: string;
+  widthPx?: number;
+}
+
+/** The steady-state period of a corner as SVG, or undefined when the corner has no waveform. */
+export function renderPeriodSvg(corner: CornerSolution, options: WaveformChartOptions): string | undefined {
+  const w = corner.waveform;
+  if (!w || w.tS.length < 2) return undefined;
+  const t = relativeMs(w);
+  return renderTimeChart({
+    title: `${options.rectifierLabel}: one steady-state period at ${corner.name}`,
+    chartId: 'period',
+    timeUnit: 'ms',
+    widthPx: options.widthPx,
+    panels: [
+      {
+        quantity: 'Voltage', unit: 'V',
+        series: [
+          { id: 'source-voltage', name: 'source EMF', colour: TRACE_COLOURS.sourceVoltage, t, y: w.sourceV, dashed: true },
+          { id: 'output-voltage', name: 'output', colour: TRACE_COLOURS.outputVoltage, t, y: w.outputV },
+        ],
+      },
+      { quantity: 'Current', unit: 'A', series: currentSeries(w, t, '') },
+    ],
+  });
+}
+
+/** The first half-cycle after switch-on at the crest, capacitors empty, or undefined without one. */
+export function renderInrushSvg(corner: CornerSolution, options: WaveformChartOptions): string | undefined {
+  const w = corner.inrushWaveform;
+  if (!w || w.tS.length < 2) return undefined;
+  const t = relativeMs(w);
+  return renderTimeChart({
+    title: `${options.rectifierLabel}: switch-on inrush half-cycle at ${corner.name}`,
+    chartId: 'inrush',
+    timeUnit: 'ms after switch-on',
+    widthPx: options.widthPx,
+    panels: [
+      {
+        quantity: 'Voltage', unit: 'V',
+        series: [
+          { id: 'inrush-source-voltage', name: 'source EMF', colour: TRACE_COLOURS.sourceVoltage, t, y: w.sourceV, dashed: true },
+          { id: 'inrush-output-voltage', name: 'output (charging)', colour: TRACE_COLOURS.outputVoltage, t, y: w.outputV },
+        ],
+      },
+      { quantity: 'Current', unit: 'A', series: currentSeries(w, t, 'inrush-') },
+    ],
+  });
+}
+
+/** The source current (mains side) and each device's current. */
+function currentSeries(w: Waveform, t: number[], prefix: string): ChartSeries[] {
+  const source: ChartSeries = {
+    id: prefix ? 'inrush-current' : 'source-current', name: 'source current (mains side)', colour: TRACE_COLOURS.sourceCurrent,
+    t, y: w.sourceA, dashed: true,
+  };
+  const devices = w.deviceNames.map((name, k): ChartSeries => ({
+    id: `${prefix}device-current:${name}`, name, colour: TRACE_COLOURS.devices[k % TRACE_COLOURS.devices.length]!, t, y: w.deviceA[k] ?? [],
+  }));
+  return [source, ...devices];
+}
+
+/** Sample times in milliseconds from the first sample. */
+function relativeMs(w: Waveform): number[] {
+  const t0 = w.tS[0] ?? 0;
+  return w.tS.map((t) => (t - t0) * 1000);
+}
+
+/**
+ * The corner a period chart shows by default: nominal line at nominal ambient when present (the
+ * operating point a designer thinks of first), else the first corner with a waveform.
+ */
+export function defaultPeriodCorner(corners: readonly CornerSolution[]): CornerSolution | undefined {
+  return corners.find((c) => c.name === 'nominal-line nominal' && c.waveform) ?? corners.find((c) => c.waveform);
+}
+
+/** The corner an inrush chart shows: the one with the largest inrush peak, else the first with a waveform. */
+export function defaultInrushCorner(corners: readonly CornerSolution[]): CornerSolution | undefined {
+  const withWave = corners.filter((c) => c.inrushWaveform);
+  return withWave.reduce<CornerSolution | undefined>((best, c) => (!best || (c.inrushPeakA ?? 0) > (best.inrushPeakA ?? 0) ? c : best), undefined);
+}
