@@ -8,6 +8,7 @@ import { elaborate, type FlatCircuit } from '../circuit/index';
 import type { PartsFile } from '../ratings/index';
 import { recognizeRectifiers, type NearMiss } from '../recognize/index';
 import { applyRules } from '../rules/registry';
+import { filterAllowed } from '../rules/allow';
 import { compareFindings, type Finding } from './findings';
 import { analyseRectifiers, type RectifierAnalysis, type SolutionCache } from './rectifier-analysis';
 import type { AnalysisSettings } from './settings';
@@ -76,8 +77,12 @@ function analyzeRoot(uri: string, input: AnalysisInput, cache: Map<string, Netli
   const settings = input.settings ?? {};
   const { analyses, findings: assumptions } = analyseRectifiers(flat, recognition.rectifiers, settings, input.partsFiles ?? [], input.solutionCache);
   const syntax = [...parsed].flatMap(([fileUri, n]) => n.diagnostics.map((d) => ({ uri: fileUri, ...d })));
-  const ruleFindings = applyRules({ rootUri: uri, netlist, flat, rectifiers: analyses, nearMisses: recognition.nearMisses, settings });
-  const findings = dedupe([...syntax, ...flat.diagnostics, ...recognition.diagnostics, ...assumptions, ...ruleFindings]).sort(compareFindings);
+  const ruleFindings = applyRules({
+    rootUri: uri, netlist, flat, rectifiers: analyses, nearMisses: recognition.nearMisses, settings, partsFiles: input.partsFiles ?? [], parsed,
+  });
+  // `*@ allow` covers the findings of recognition and elaboration of the rectifiers too.
+  const accepted = filterAllowed([...recognition.diagnostics, ...assumptions], flat.directives, parsed);
+  const findings = dedupe([...syntax, ...flat.diagnostics, ...accepted, ...ruleFindings]).sort(compareFindings);
   return {
     uri, text: netlist.text, netlist, findings, dependencies: flat.dependencies.filter((d) => d !== uri), parsed, flat,
     rectifiers: analyses, nearMisses: recognition.nearMisses,

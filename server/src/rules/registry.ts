@@ -1,13 +1,17 @@
 /**
  * The rule registry: every rule is a function of the analysed file that returns findings. A rule
- * that throws becomes one `internal-error` finding and the others still run.
+ * that throws becomes one `internal-error` finding and the others still run. Findings that an
+ * `*@ allow CODE` directive accepts are dropped here (see allow.ts).
  */
 import type { Netlist } from '../../../grammar/src/index';
 import type { FlatCircuit } from '../circuit/index';
 import type { Finding } from '../analysis/findings';
 import type { RectifierAnalysis } from '../analysis/rectifier-analysis';
 import type { AnalysisSettings } from '../analysis/settings';
+import type { PartsFile } from '../ratings/index';
 import type { NearMiss } from '../recognize/index';
+import { ALL_RULES } from './all-rules';
+import { filterAllowed } from './allow';
 
 export interface RuleInput {
   rootUri: string;
@@ -16,6 +20,10 @@ export interface RuleInput {
   rectifiers: readonly RectifierAnalysis[];
   nearMisses: readonly NearMiss[];
   settings: AnalysisSettings;
+  /** Validated workspace parts files: candidates for the part-swap fix. */
+  partsFiles?: readonly PartsFile[];
+  /** Every file the analysis parsed, by URI (the root included), for fixes that edit them. */
+  parsed?: ReadonlyMap<string, Netlist>;
 }
 
 export interface Rule {
@@ -25,10 +33,10 @@ export interface Rule {
 }
 
 /** The registered rules, in the order they run. */
-export const RULES: Rule[] = [];
+export const RULES: readonly Rule[] = ALL_RULES;
 
 export function applyRules(input: RuleInput): Finding[] {
-  return RULES.flatMap((rule) => {
+  const findings = RULES.flatMap((rule) => {
     try {
       return rule.check(input);
     } catch (error) {
@@ -38,4 +46,5 @@ export function applyRules(input: RuleInput): Finding[] {
       }];
     }
   });
+  return filterAllowed(findings, input.flat.directives, input.parsed ?? new Map([[input.rootUri, input.netlist]]));
 }

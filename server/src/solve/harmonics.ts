@@ -44,8 +44,8 @@ export function fourierAmplitude(t: ArrayLike<number>, x: ArrayLike<number>, n: 
 /** Harmonics 1…40, THD and displacement factor of the source current in a record. */
 export function computeHarmonics(rec: PeriodRecord, scale = 1): HarmonicFigures {
   const n = rec.count;
-  const x = new Float64Array(n);
-  const v = new Float64Array(n);
+  const x: number[] = [];
+  const v: number[] = [];
   for (let k = 0; k < n; k++) { x[k] = rec.sourceCurrentA(k) * scale; v[k] = rec.sourceVoltageV(rec.t[k]!); }
   const omega = rec.net.omega;
   const harmonicsA: number[] = [];

@@ -9,6 +9,7 @@ import { Integrator } from './integrator';
 import { PeriodRecord } from './record';
 import { integrationOptions } from './shooting';
 import { refinedMax } from './figures';
+import { zeros } from './vec';
 
 export interface InrushResult {
   /** Largest device current in the first half-cycle. */
@@ -31,7 +32,7 @@ export function simulateInrush(net: Network, relTol = 1e-5): InrushResult {
   const integ = new Integrator(net, new StageSolver(net));
   const record = new PeriodRecord(net);
   const opts = { ...integrationOptions(net, relTol, 20000), sensitivity: false, record, hMaxOnS: T / 1000 };
-  const res = integ.run(tOn, tOn + T / 2, new Float64Array(net.n), -1, opts);
+  const res = integ.run(tOn, tOn + T / 2, zeros(net.n), -1, opts);
   const nd = net.devices.length;
   const i2t = new Array<number>(nd).fill(0);
   let peak = 0;

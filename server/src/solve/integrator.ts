@@ -9,13 +9,14 @@ import type { Network } from './network';
 import type { PeriodRecord } from './record';
 import { StageOut, type StageSolver } from './stage';
 import { applyGates } from './gates';
+import { copyInto, zeros } from './vec';
 
 const GAMMA = 2 - Math.SQRT2;
 const D = GAMMA / 2;
 const W = Math.SQRT2 / 4;
 const WD = W / D;
 // Third-order quadrature on the nodes 0, γ, 1 (exact for quadratics): the embedded formula of
-// the error estimate.
+// the error estimate, and the record's weights.
 const Q0 = (1 - W) / 3;
 const QG = (3 * W + 1) / 3;
 const Q1 = D / 3;
@@ -24,7 +25,7 @@ const RESTART_FRACTION = 5e-5;
 
 export interface IntegrateOptions {
   /** Absolute tolerance per state (V for capacitors, A for the inductor). */
-  atol: Float64Array;
+  atol: number[];
   rtol: number;
   hMaxS: number;
   /** Largest step while a path conducts (finer when recording a period for its figures). */
@@ -46,15 +47,15 @@ export interface IntegrateResult {
 
 /** Integrates a network's states; y and the sensitivity Y are left in the public buffers. */
 export class Integrator {
-  readonly y: Float64Array;
-  readonly f: Float64Array;
+  readonly y: number[];
+  readonly f: number[];
   /** dy/dy0, row-major. */
-  readonly Y: Float64Array;
-  private readonly F: Float64Array;
-  private readonly r1: Float64Array;
-  private readonly r2: Float64Array;
-  private readonly tmp: Float64Array;
-  private readonly tmpG: Float64Array;
+  readonly Y: number[];
+  private readonly F: number[];
+  private readonly r1: number[];
+  private readonly r2: number[];
+  private readonly tmp: number[];
+  private readonly tmpG: number[];
   private oN: StageOut;
   private oG: StageOut;
   private o1: StageOut;
@@ -64,10 +65,10 @@ export class Integrator {
   constructor(private readonly net: Network, private readonly solver: StageSolver) {
     const n = net.n;
     const np = net.ports.length;
-    this.y = new Float64Array(n); this.f = new Float64Array(n);
-    this.Y = new Float64Array(n * n); this.F = new Float64Array(n * n);
-    this.r1 = new Float64Array(n); this.r2 = new Float64Array(n);
-    this.tmp = new Float64Array(n * n); this.tmpG = new Float64Array(n * n);
+    this.y = zeros(n); this.f = zeros(n);
+    this.Y = zeros(n * n); this.F = zeros(n * n);
+    this.r1 = zeros(n); this.r2 = zeros(n);
+    this.tmp = zeros(n * n); this.tmpG = zeros(n * n);
     this.oN = new StageOut(n, np); this.oG = new StageOut(n, np); this.o1 = new StageOut(n, np);
   }
 
@@ -76,7 +77,7 @@ export class Integrator {
     const n = this.net.n;
     const period = this.net.periodS;
     for (let j = 0; j < n; j++) this.y[j] = y0[j]!;
-    this.Y.fill(0);
+    for (let k = 0; k < n * n; k++) this.Y[k] = 0;
     for (let j = 0; j < n; j++) this.Y[j * n + j] = 1;
     const breaks = this.breakpointsBetween(t0, t1, this.net.breakpointsS);
     const crests = this.breakpointsBetween(t0, t1, this.net.crestsS);
@@ -84,6 +85,7 @@ export class Integrator {
     let nb = 0;
     let t = t0;
     let restart = true;
+    let fresh = true; // first TR-BDF2 step after a restart
     // The point at t0 itself, for the record and the first edge test (a vanishing stage).
     applyGates(this.net.devices, this.net.omega, t0);
     this.solver.solve(t0, 1e-9 * period, this.y, mode0, this.oN);
@@ -124,7 +126,8 @@ export class Integrator {
       if (restart) this.acceptBE(t, hTry, o);
       else {
         if (o.sensitivity) this.propagateSensitivity(hTry);
-        this.accept(t, hTry, o.record);
+        this.accept(t, hTry, o.record, fresh);
+        fresh = false;
         const fac = Math.min(5, Math.max(0.2, 0.9 * Math.cbrt(1 / Math.max(err, 1e-12))));
         hCtrl = hTry >= 0.999 * hCtrl ? hTry * fac : Math.min(hCtrl, Math.max(hTry * fac, hCtrl * Math.min(fac, 1)));
       }
@@ -136,6 +139,7 @@ export class Integrator {
       if (hitBreak) nb++;
       while (nc < crests.length && crests[nc]! <= t + 1e-12 * period) nc++;
       restart = modeChanged || hitBreak;
+      if (restart) fresh = true;
       if (modeChanged) { hCtrl = Math.min(hCtrl, period * 4 * RESTART_FRACTION); tEdge = Infinity; }
       if (t >= tEdge) tEdge = Infinity;
     }
@@ -170,12 +174,12 @@ export class Integrator {
   private acceptBE(t: number, h: number, o: IntegrateOptions): void {
     const n = this.net.n;
     if (o.sensitivity) {
-      this.tmp.set(this.Y);
+      copyInto(this.tmp, this.Y);
       matMul(this.o1.dydr, this.tmp, this.Y, n);
       matMul(this.o1.dfdr, this.tmp, this.F, n);
     }
-    this.y.set(this.o1.y);
-    this.f.set(this.o1.f);
+    copyInto(this.y, this.o1.y);
+    copyInto(this.f, this.o1.f);
     const rec = o.record;
     if (!rec) return;
     rec.addWeight(rec.count - 1, 0.5 * h);
@@ -235,14 +239,20 @@ export class Integrator {
     matMul(this.o1.dfdr, R, this.F, n);
   }
 
-  private accept(t: number, h: number, rec: PeriodRecord | undefined): void {
-    this.y.set(this.o1.y);
-    this.f.set(this.o1.f);
+  private accept(t: number, h: number, rec: PeriodRecord | undefined, fresh: boolean): void {
+    copyInto(this.y, this.o1.y);
+    copyInto(this.f, this.o1.f);
     if (!rec) return;
-    // Only step ends are recorded: the trapezoidal γ-stage is accurate as a state but its
-    // algebraic current can overshoot for a step or two after an ideal-diode edge.
-    rec.addWeight(rec.count - 1, 0.5 * h);
-    rec.addWeight(rec.push(t + h, this.o1), 0.5 * h);
+    if (fresh) {
+      // Right after an ideal-diode edge the trapezoidal γ-stage's algebraic current can overshoot
+      // (the state is fine): record only the step end, with trapezoidal weights.
+      rec.addWeight(rec.count - 1, 0.5 * h);
+      rec.addWeight(rec.push(t + h, this.o1), 0.5 * h);
+      return;
+    }
+    rec.addWeight(rec.count - 1, Q0 * h);
+    rec.addWeight(rec.push(t + GAMMA * h, this.oG), QG * h);
+    rec.addWeight(rec.push(t + h, this.o1), Q1 * h);
   }
 }
 
@@ -252,7 +262,7 @@ function shortenedStep(tCross: number, h: number, hEdge: number): number {
 }
 
 /** c = a·b for n×n row-major matrices (c must not alias a or b). */
-function matMul(a: Float64Array, b: Float64Array, c: Float64Array, n: number): void {
+function matMul(a: readonly number[], b: readonly number[], c: number[], n: number): void {
   for (let i = 0; i < n; i++) {
     for (let j = 0; j < n; j++) {
       let s = 0;

@@ -44,7 +44,7 @@ export interface ConductingDevice extends DiodeAtTemp {
  * channel on, V solves I = V/rds + IS·(e^(V/N·Vt) − 1); the body diode's RS is neglected then
  * because the channel carries nearly all the current until V nears a diode drop.
  */
-export function deviceVoltageV(d: ConductingDevice, iA: number, slope: Float64Array): number {
+export function deviceVoltageV(d: ConductingDevice, iA: number, slope: number[]): number {
   if (!d.channelOn) {
     slope[0] = diodeSlopeOhm(iA, d);
     return diodeVoltageV(iA, d);

@@ -10,24 +10,22 @@ import { deviceVoltageV } from './mosfet-model';
 /** Structure-of-arrays storage of solution points. */
 export class PeriodRecord {
   count = 0;
-  private capacity = 0;
-  t = new Float64Array(0);
+  t: number[] = [];
   /** Quadrature weight of each point, seconds. */
-  w = new Float64Array(0);
-  mode = new Int32Array(0);
-  iA = new Float64Array(0);
-  vLoadV = new Float64Array(0);
-  iLoadA = new Float64Array(0);
+  w: number[] = [];
+  mode: number[] = [];
+  iA: number[] = [];
+  vLoadV: number[] = [];
+  iLoadA: number[] = [];
   /** Port voltages, count × nPorts. */
-  u = new Float64Array(0);
+  u: number[] = [];
   /** Device voltages anode − cathode, count × nDevices (negative while blocking). */
-  devV = new Float64Array(0);
-  private readonly slope = new Float64Array(1);
-  private readonly lineV: Float64Array;
+  devV: number[] = [];
+  private readonly slope = [0];
+  private readonly lineV: number[];
 
   constructor(readonly net: Network) {
-    this.lineV = new Float64Array(net.lines.length);
-    this.grow(256);
+    this.lineV = net.lines.map(() => 0);
   }
 
   reset(): void {
@@ -36,7 +34,7 @@ export class PeriodRecord {
 
   /** Appends the solution point of a stage at time t; returns its index. */
   push(t: number, o: StageOut): number {
-    if (this.count === this.capacity) this.grow(this.capacity * 2);
+    // Arrays are overwritten in place after a reset and grow by assignment past their end.
     const k = this.count++;
     const np = this.net.ports.length;
     const nd = this.net.devices.length;
@@ -84,14 +82,15 @@ export class PeriodRecord {
     const sn = Math.sin(net.omega * t);
     const cs = Math.cos(net.omega * t);
     let vMax = -Infinity, vMin = Infinity;
-    net.lines.forEach((l, x) => {
+    for (let x = 0; x < net.lines.length; x++) {
+      const l = net.lines[x]!;
       let v = l.a * sn + l.b * cs;
       for (let j = 0; j < l.portCoeff.length; j++) v += l.portCoeff[j]! * o.u[j]!;
       const dir = path ? (path.upLine === x ? 1 : path.lowLine === x ? -1 : 0) : 0;
       v -= dir * (o.iA * l.rOhm + o.didtAps * l.lH);
       this.lineV[x] = v;
       vMax = Math.max(vMax, v); vMin = Math.min(vMin, v);
-    });
+    }
     let vPlus = 0, vMinus = 0;
     if (net.floatingRails) {
       const vBus = o.u[0]!;
@@ -107,27 +106,12 @@ export class PeriodRecord {
     } else {
       for (let j = 0; j < net.ports.length; j++) { vPlus += net.railPlus[j]! * o.u[j]!; vMinus += net.railMinus[j]! * o.u[j]!; }
     }
-    net.devices.forEach((d, k) => {
+    for (let k = 0; k < net.devices.length; k++) {
+      const d = net.devices[k]!;
       const conducting = path !== undefined && path.devices.includes(k);
       this.devV[off + k] = conducting
         ? deviceVoltageV(d, o.iA, this.slope)
         : d.upper ? this.lineV[d.line]! - vPlus : vMinus - this.lineV[d.line]!;
-    });
-  }
-
-  private grow(n: number): void {
-    const np = this.net.ports.length;
-    const nd = this.net.devices.length;
-    const ext = <T extends Float64Array | Int32Array>(a: T, size: number, make: (s: number) => T): T => {
-      const b = make(size);
-      b.set(a.subarray(0, Math.min(a.length, size)));
-      return b;
-    };
-    const f = (s: number) => new Float64Array(s);
-    this.t = ext(this.t, n, f); this.w = ext(this.w, n, f); this.iA = ext(this.iA, n, f);
-    this.vLoadV = ext(this.vLoadV, n, f); this.iLoadA = ext(this.iLoadA, n, f);
-    this.mode = ext(this.mode, n, (s) => new Int32Array(s));
-    this.u = ext(this.u, n * np, f); this.devV = ext(this.devV, n * nd, f);
-    this.capacity = n;
+    }
   }
 }

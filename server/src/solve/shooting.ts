@@ -8,6 +8,7 @@ import type { Network } from './network';
 import { StageSolver } from './stage';
 import { Integrator, type IntegrateOptions } from './integrator';
 import { PeriodRecord } from './record';
+import { zeros } from './vec';
 
 /** Accuracy and effort settings; all optional. */
 export interface SteadyStateOptions {
@@ -27,7 +28,7 @@ export interface SteadyState {
   iterations: number;
   /** Periods integrated in all, the recorded one included. */
   periods: number;
-  y0: Float64Array;
+  y0: number[];
   mode0: number;
   /** Largest |P(x) − x| of the recorded period relative to its tolerance. */
   residual: number;
@@ -36,7 +37,7 @@ export interface SteadyState {
 }
 
 /** Finds the periodic steady state of a network, starting from `guess` when given. */
-export function findSteadyState(net: Network, options: SteadyStateOptions = {}, guess?: { y0: Float64Array; mode0: number }): SteadyState {
+export function findSteadyState(net: Network, options: SteadyStateOptions = {}, guess?: { y0: readonly number[]; mode0: number }): SteadyState {
   const n = net.n;
   const T = net.periodS;
   const relTol = options.relTol ?? 1e-5;
@@ -48,15 +49,15 @@ export function findSteadyState(net: Network, options: SteadyStateOptions = {}, 
   const record = new PeriodRecord(net);
   // Without a guess the first period is the switch-on from empty, a physical start whose
   // Newton correction already lands near the orbit.
-  const y0 = new Float64Array(n);
+  const y0 = zeros(n);
   let mode0 = -1;
   let periods = 0;
-  if (guess) { y0.set(guess.y0); mode0 = guess.mode0; }
+  if (guess) { for (let j = 0; j < n; j++) y0[j] = guess.y0[j]!; mode0 = guess.mode0; }
   let iterations = 0;
   let converged = n === 0;
   let fine = n === 0;
   let lastWorst = Infinity;
-  const g = new Float64Array(n);
+  const g = zeros(n);
   const fineOpts = { ...opts, record, hMaxOnS: T * (options.recordStepFraction ?? 1 / 600) };
   // Coarse periods until the orbit is near; then every period is recorded at the fine step, so
   // the period that passes the periodicity test is the one whose figures are reported.
@@ -101,7 +102,7 @@ export function findSteadyState(net: Network, options: SteadyStateOptions = {}, 
 /** Integration settings derived from the network's scales. */
 export function integrationOptions(net: Network, relTol: number, maxSteps: number): IntegrateOptions {
   const n = net.n;
-  const atol = new Float64Array(n);
+  const atol = zeros(n);
   const vTol = relTol * net.vScaleV;
   for (let j = 0; j < net.nCap; j++) atol[j] = vTol;
   if (net.hasL) {
@@ -114,9 +115,9 @@ export function integrationOptions(net: Network, relTol: number, maxSteps: numbe
 }
 
 /** Newton correction δ from (Φ − I)·δ = −g; falls back to δ = g when Φ − I is singular. */
-function solveNewton(phi: Float64Array, g: Float64Array, n: number): Float64Array {
-  const a = new Float64Array(n * n);
-  const b = new Float64Array(n);
+function solveNewton(phi: readonly number[], g: readonly number[], n: number): number[] {
+  const a = zeros(n * n);
+  const b = zeros(n);
   for (let i = 0; i < n; i++) {
     for (let j = 0; j < n; j++) a[i * n + j] = phi[i * n + j]! - (i === j ? 1 : 0);
     b[i] = -g[i]!;
@@ -124,7 +125,7 @@ function solveNewton(phi: Float64Array, g: Float64Array, n: number): Float64Arra
   for (let c = 0; c < n; c++) {
     let p = c;
     for (let r = c + 1; r < n; r++) if (Math.abs(a[r * n + c]!) > Math.abs(a[p * n + c]!)) p = r;
-    if (Math.abs(a[p * n + c]!) < 1e-12) return Float64Array.from(g);
+    if (Math.abs(a[p * n + c]!) < 1e-12) return g.slice();
     if (p !== c) {
       for (let j = 0; j < n; j++) { const t = a[c * n + j]!; a[c * n + j] = a[p * n + j]!; a[p * n + j] = t; }
       const t = b[c]!; b[c] = b[p]!; b[p] = t;
@@ -143,7 +144,7 @@ function solveNewton(phi: Float64Array, g: Float64Array, n: number): Float64Arra
   return b;
 }
 
-function maxAbs(a: Float64Array): number {
+function maxAbs(a: readonly number[]): number {
   let m = 0;
   for (const x of a) m = Math.max(m, Math.abs(x));
   return m;

@@ -8,17 +8,18 @@
  */
 import type { Network } from './network';
 import { deviceVoltageV } from './mosfet-model';
+import { copyInto, zeros } from './vec';
 
 /** Everything one stage produces; buffers are reused. */
 export class StageOut {
-  readonly y: Float64Array;
-  readonly f: Float64Array;
+  readonly y: number[];
+  readonly f: number[];
   /** dy/dr, row-major n×n. */
-  readonly dydr: Float64Array;
+  readonly dydr: number[];
   /** df/dr, row-major n×n. */
-  readonly dfdr: Float64Array;
+  readonly dfdr: number[];
   /** Port voltages u_j (capacitor plus ESR drop, or the bare load's voltage). */
-  readonly u: Float64Array;
+  readonly u: number[];
   /** Conducting path, or −1. */
   mode = -1;
   /** Edge function: positive while a path conducts, crossing zero at its edges. */
@@ -28,14 +29,14 @@ export class StageOut {
   iLoadA = 0;
   vLoadV = 0;
   constructor(n: number, nPorts: number) {
-    this.y = new Float64Array(n);
-    this.f = new Float64Array(n);
-    this.dydr = new Float64Array(n * n);
-    this.dfdr = new Float64Array(n * n);
-    this.u = new Float64Array(nPorts);
+    this.y = zeros(n);
+    this.f = zeros(n);
+    this.dydr = zeros(n * n);
+    this.dfdr = zeros(n * n);
+    this.u = zeros(nPorts);
   }
   copyFrom(o: StageOut): void {
-    this.y.set(o.y); this.f.set(o.f); this.dydr.set(o.dydr); this.dfdr.set(o.dfdr); this.u.set(o.u);
+    copyInto(this.y, o.y); copyInto(this.f, o.f); copyInto(this.dydr, o.dydr); copyInto(this.dfdr, o.dfdr); copyInto(this.u, o.u);
     this.mode = o.mode; this.phi = o.phi; this.iA = o.iA; this.didtAps = o.didtAps;
     this.iLoadA = o.iLoadA; this.vLoadV = o.vLoadV;
   }
@@ -43,23 +44,23 @@ export class StageOut {
 
 /** The stage solver for one network; holds scratch space and warm starts. */
 export class StageSolver {
-  private readonly k: Float64Array;
-  private readonly rp: Float64Array;
-  private readonly psiWarm: Float64Array;
-  private readonly slope = new Float64Array(1);
+  private readonly k: number[];
+  private readonly rp: number[];
+  private readonly psiWarm: number[];
+  private readonly slope = [0];
   // Load solution scratch: voltage, current, dI/dV.
   private vL = 0;
   private g = 0;
   private gp = 0;
 
   constructor(private readonly net: Network) {
-    this.k = new Float64Array(net.ports.length);
-    this.rp = new Float64Array(net.ports.length);
-    this.psiWarm = new Float64Array(net.paths.length);
+    this.k = zeros(net.ports.length);
+    this.rp = zeros(net.ports.length);
+    this.psiWarm = zeros(net.paths.length);
   }
 
   /** Solves one stage at time t with coefficient dh from right-hand side r; modeIn is the path holding the inductor current. */
-  solve(t: number, dh: number, r: Float64Array, modeIn: number, out: StageOut): void {
+  solve(t: number, dh: number, r: readonly number[], modeIn: number, out: StageOut): void {
     const net = this.net;
     const ports = net.ports;
     const np = ports.length;

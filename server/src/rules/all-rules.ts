@@ -1,0 +1,25 @@
+/**
+ * Every rule, in the order they run. Kept apart from registry.ts so the rules may import the
+ * registry's types without a cycle. `reversed-device` comes from recognition, and
+ * `default-model` and `assumed-condition` from the equivalent circuit; they are not rules here.
+ */
+import type { Rule } from './registry';
+import { capRippleRule } from './cap-ripple';
+import { capVoltageRule } from './cap-voltage';
+import { controllerUndervoltageRule } from './controller-undervoltage';
+import { currentRatingRule } from './current-rating';
+import { harmonicLimitRule } from './harmonic-limit';
+import { hazardousVoltageRule } from './hazardous-voltage';
+import { junctionTempRule } from './junction-temp';
+import { missingRatingRule } from './missing-rating';
+import { mixedBridgeRule } from './mixed-bridge';
+import { mosfetVdsRule } from './mosfet-vds';
+import { pivMarginRule } from './piv-margin';
+import { surgeRatingRule } from './surge-rating';
+import { thermalRunawayRule } from './thermal-runaway';
+
+export const ALL_RULES: readonly Rule[] = [
+  pivMarginRule, currentRatingRule, surgeRatingRule, junctionTempRule, thermalRunawayRule,
+  mosfetVdsRule, capVoltageRule, capRippleRule, controllerUndervoltageRule, harmonicLimitRule,
+  missingRatingRule, mixedBridgeRule, hazardousVoltageRule,
+];

@@ -1,0 +1,39 @@
+/**
+ * `cap-voltage` — fires when a filter capacitor's peak voltage at the worst corner (the output
+ * maximum, or its share in a doubler: capacitor-view.ts) exceeds the policy's fraction of its
+ * rated voltage.
+ *
+ * Why: an electrolytic above its rated voltage heats, vents and fails; margin below the rating
+ * is the main lever on its life.
+ *
+ * Threshold: `cap` of the policy (default 80 %, Reliability Analysis Center "Part Derating
+ * Parameters", aluminium electrolytic in a benign environment; REFERENCES.md §4, C). Error above
+ * the rated voltage itself, warning above the derated limit. Fix: the next standard voltage class.
+ */
+import type { Finding } from '../analysis/findings';
+import type { Rule } from './registry';
+import { capacitorsOf } from './capacitor-view';
+import { raiseCapacitorVoltageFix } from './fixes/raise-cap-voltage';
+import { allowsText, fmt, pct, placeOf, policyOf, severityOf } from './rule-context';
+
+export const capVoltageRule: Rule = {
+  code: 'cap-voltage',
+  check(input) {
+    const cap = policyOf(input).cap;
+    const findings: Finding[] = [];
+    for (const view of capacitorsOf(input)) {
+      const rated = view.ratings.vratedV;
+      if (!rated || !view.peakV) continue;
+      const severity = severityOf(view.peakV.value, rated.value, cap.value);
+      if (!severity) continue;
+      const fix = raiseCapacitorVoltageFix(view, view.peakV.value / cap.value);
+      findings.push({
+        ...placeOf(view.element.origin, view.name), severity, code: 'cap-voltage',
+        message: `${view.name}: peak ${fmt(view.peakV.value)} V at ${view.peakV.corner} is ${pct(view.peakV.value / rated.value)} ` +
+          `of its rated ${fmt(rated.value)} V; ${allowsText(cap)}`,
+        ...(fix ? { fixes: [fix] } : {}),
+      });
+    }
+    return findings;
+  },
+};

@@ -1,0 +1,134 @@
+/**
+ * The part-swap fix (DESIGN.md §6): the lowest-rated catalog or parts-file diode that passes
+ * every stress rule, for all devices of the rectifier that share the failing device's model (a
+ * bridge keeps one part). Candidates are ranked by `selectPassingPart` against the minimum
+ * ratings the present stresses and the policy demand (never a silicon Schottky beyond its class);
+ * the best few are then re-solved with their own forward model, because a part with another
+ * forward drop sees other currents and another junction temperature. The fix edits each device's
+ * model reference and, when the file has no `.model` of that name, adds one with the part's
+ * forward model; a thermal resistance the old model's ratings gave is carried over in a `rate`
+ * line, since RθJA belongs to the mounting as much as to the part.
+ */
+import type { Fix, TextEdit } from '../../analysis/findings';
+import type { RectifierAnalysis } from '../../analysis/rectifier-analysis';
+import {
+  checkDiodeRequirement, diodePartsFromFiles, diodeRequirementFromStress, DIODE_CATALOG, junctionLimitC, selectPassingPart,
+  type DeratingPolicy, type DiodePart, type DiodeRatings,
+} from '../../ratings/index';
+import { solveRectifier, type EquivalentCircuit, type RectifierSolution } from '../../solve/index';
+import type { RuleInput } from '../registry';
+import { fmt, policyOf } from '../rule-context';
+import { surgeCapability, surgeFigureA, surgeStressOf } from '../surge-stress';
+import { cardAt, insertLinesAfter, insertLinesBefore } from './text-edits';
+
+/** How many ranked candidates are re-solved before giving up. */
+const MAX_VERIFIED = 3;
+
+const cache = new WeakMap<RuleInput, Map<string, Fix | null>>();
+
+/** The swap fix for the diode at `index` of `analysis`, or undefined when no part passes. */
+export function diodeSwapFix(input: RuleInput, analysis: RectifierAnalysis, index: number): Fix | undefined {
+  const group = groupOf(analysis, index);
+  const cacheKey = `${analysis.rectifier.id}|${group.join(',')}`;
+  const perInput = cache.get(input) ?? new Map<string, Fix | null>();
+  cache.set(input, perInput);
+  if (!perInput.has(cacheKey)) perInput.set(cacheKey, buildFix(input, analysis, group) ?? null);
+  return perInput.get(cacheKey) ?? undefined;
+}
+
+/** Indices of the devices of the rectifier (same type) that share the device's model (the device alone without one). */
+export function groupOf(analysis: RectifierAnalysis, index: number): number[] {
+  const { model, type } = analysis.devices[index]!.ref;
+  if (model === undefined) return [index];
+  return analysis.devices.flatMap((d, k) => (d.ref.type === type && d.ref.model === model ? [k] : []));
+}
+
+function buildFix(input: RuleInput, analysis: RectifierAnalysis, group: readonly number[]): Fix | undefined {
+  const policy = policyOf(input);
+  const current = analysis.devices[group[0]!]!.model?.name.toLowerCase();
+  let candidates = [...DIODE_CATALOG, ...diodePartsFromFiles(input.partsFiles ?? [])].filter((p) => p.name.toLowerCase() !== current);
+  const requirement = diodeRequirementFromStress(groupStress(analysis, group), policy);
+  for (let tries = 0; tries < MAX_VERIFIED; tries++) {
+    const part = selectPassingPart(requirement, candidates);
+    if (!part) return undefined;
+    if (passesAfterSwap(analysis, group, part, policy)) return toFix(input, analysis, group, part);
+    candidates = candidates.filter((p) => p !== part);
+  }
+  return undefined;
+}
+
+function groupStress(analysis: RectifierAnalysis, group: readonly number[]) {
+  const worst = (get: (k: number) => number | undefined) => Math.max(0, ...group.map(get).filter((v): v is number => v !== undefined));
+  const pivV = worst((k) => analysis.solution.devices[k]?.pivV?.value);
+  const iavgA = worst((k) => analysis.solution.devices[k]?.iavgA?.value);
+  const surges = group.map((k) => surgeStressOf(analysis, k)).filter((s) => s !== undefined);
+  const surge = surges.length ? { peakA: Math.max(...surges.map(surgeFigureA)), durationS: surges[0]!.durationS } : undefined;
+  return surge ? { pivV, iavgA, surge } : { pivV, iavgA };
+}
+
+/** Re-solves the rectifier with the part's forward model in the group's places and checks every stress rule. */
+export function passesAfterSwap(analysis: RectifierAnalysis, group: readonly number[], part: DiodePart, policy: DeratingPolicy): boolean {
+  const circuit = swappedCircuit(analysis.circuit, group, part);
+  const solution = solveRectifier(circuit, analysis.corners, { waveformPoints: 0 });
+  const trial: RectifierAnalysis = { ...analysis, circuit, solution };
+  return group.every((k) => devicePasses(trial, solution, k, part.ratings, policy));
+}
+
+function swappedCircuit(circuit: EquivalentCircuit, group: readonly number[], part: DiodePart): EquivalentCircuit {
+  const fm = part.forwardModel;
+  if (!fm) return circuit;
+  const params = { isA: fm.isA, n: fm.n, rsOhm: fm.rsOhm, egEv: fm.egEv, xti: fm.xti, tnomC: fm.tnomC };
+  const devices = circuit.devices.map((d, k) => (group.includes(k) && d.kind === 'diode' ? { ...d, params } : d));
+  return { ...circuit, devices };
+}
+
+function devicePasses(trial: RectifierAnalysis, solution: RectifierSolution, k: number, r: DiodeRatings, policy: DeratingPolicy): boolean {
+  const w = solution.devices[k];
+  if (!w || w.thermalRunaway) return false;
+  if (checkDiodeRequirement({ name: 'trial', ratings: r }, diodeRequirementFromStress({ pivV: w.pivV?.value ?? 0, iavgA: w.iavgA?.value }, policy)).length) return false;
+  const surge = surgeStressOf(trial, k);
+  const capability = surge && surgeCapability(r, surge.durationS);
+  if (surge && (!capability || surgeFigureA(surge) > policy.ifsm.value * capability.equivalentA)) return false;
+  const rthja = trial.circuit.devices[k]?.rthjaKPerW;
+  return rthja === undefined || w.tjC === undefined || w.tjC.value <= junctionLimitC(policy.tj.value, r.tjmaxC?.value);
+}
+
+function toFix(input: RuleInput, analysis: RectifierAnalysis, group: readonly number[], part: DiodePart): Fix | undefined {
+  const edits: TextEdit[] = [];
+  for (const k of group) {
+    const origin = analysis.devices[k]!.ref.origin;
+    const card = cardAt(input.parsed?.get(origin.uri) ?? (origin.uri === input.rootUri ? input.netlist : undefined), origin.span);
+    if (card?.kind !== 'diode' || !card.model) return undefined;
+    edits.push({ uri: origin.uri, span: card.model.span, newText: part.name });
+  }
+  const added = addedLines(input, analysis, group, part);
+  if (added.length) edits.push(placeLines(input, analysis, group, added));
+  const names = group.map((k) => analysis.devices[k]!.ref.name).join(', ');
+  const r = part.ratings;
+  return { title: `Use ${part.name} (${fmt(r.vrrmV?.value ?? 0)} V, ${fmt(r.ifavA?.value ?? 0)} A) for ${names}`, edits, preferred: true };
+}
+
+/** A `.model` for the part when the circuit has none of that name, and the carried-over RθJA. */
+function addedLines(input: RuleInput, analysis: RectifierAnalysis, group: readonly number[], part: DiodePart): string[] {
+  const lines: string[] = [];
+  const name = part.name.toLowerCase();
+  const known = [...input.flat.models.keys()].some((k) => k === name || k.endsWith(`.${name}`));
+  const fm = part.forwardModel;
+  if (!known && fm) {
+    const num = (v: number) => String(Number(v.toPrecision(4)));
+    lines.push(`.model ${part.name} D(IS=${num(fm.isA)} N=${num(fm.n)} RS=${num(fm.rsOhm)} EG=${num(fm.egEv)} XTI=${num(fm.xti)} TNOM=${num(fm.tnomC)})`);
+  }
+  const rth = analysis.devices[group[0]!]!.ratings.ratings.rthjaKPerW;
+  const instanceLevel = rth?.origin.kind === 'rate-directive' && rth.origin.target === 'instance';
+  if (rth && !instanceLevel && !part.ratings.rthjaKPerW) lines.push(`*@ rate ${part.name} rthja=${fmt(rth.value)}`);
+  return lines;
+}
+
+function placeLines(input: RuleInput, analysis: RectifierAnalysis, group: readonly number[], lines: string[]): TextEdit {
+  const first = analysis.devices[group[0]!]!;
+  const uri = first.ref.origin.uri;
+  const text = input.parsed?.get(uri)?.text ?? input.netlist.text;
+  const model = first.model;
+  if (model && model.uri === uri) return insertLinesAfter(uri, text, model.span.end, lines);
+  return insertLinesBefore(uri, text, first.ref.origin.span.start, lines);
+}

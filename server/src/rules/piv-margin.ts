@@ -1,0 +1,39 @@
+/**
+ * `piv-margin` — fires when a rectifier diode's peak inverse voltage at its worst corner exceeds
+ * the policy's fraction of its repetitive reverse rating VRRM (DESIGN.md §6).
+ *
+ * Why: reverse voltage beyond VRRM breaks the junction down; mains surges and line swell eat any
+ * margin left at high line, so designs keep PIV to a fraction of VRRM.
+ *
+ * Threshold: `vr` of the derating policy (`*@ derate vr=`, then the setting, then the default
+ * 80 %, IPC-9592B from memory — see derating-policy.ts). Severity: error when PIV exceeds VRRM
+ * itself (outside the part's rating), warning when it only exceeds the derated limit. Fix: the
+ * lowest-rated part that passes every stress rule (fixes/swap-diode.ts).
+ */
+import type { Finding } from '../analysis/findings';
+import type { Rule } from './registry';
+import { diodeSwapFix } from './fixes/swap-diode';
+import { allowsText, devicesOf, fmt, pct, placeOf, policyOf, ratingTag, severityOf } from './rule-context';
+
+export const pivMarginRule: Rule = {
+  code: 'piv-margin',
+  check(input) {
+    const vr = policyOf(input).vr;
+    const findings: Finding[] = [];
+    for (const { analysis, index, device, worst } of devicesOf(input)) {
+      const rating = device.ratings.ratings;
+      if (rating.kind !== 'diode' || !rating.vrrmV || !worst?.pivV) continue;
+      const piv = worst.pivV;
+      const severity = severityOf(piv.value, rating.vrrmV.value, vr.value);
+      if (!severity) continue;
+      const fix = diodeSwapFix(input, analysis, index);
+      findings.push({
+        ...placeOf(device.ref.origin, device.ref.name), severity, code: 'piv-margin',
+        message: `${device.ref.name}: PIV ${fmt(piv.value)} V at ${piv.corner} is ${pct(piv.value / rating.vrrmV.value)} of VRRM ` +
+          `${fmt(rating.vrrmV.value)} V${ratingTag(rating.vrrmV)}; ${allowsText(vr)}`,
+        ...(fix ? { fixes: [fix] } : {}),
+      });
+    }
+    return findings;
+  },
+};

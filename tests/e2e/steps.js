@@ -1,0 +1,169 @@
+// The steps of the end-to-end run, in order. Each takes { page, folder, log, check, shot }.
+'use strict';
+const fs = require('fs');
+const path = require('path');
+
+const DEMO = 'led-driver-230v.cir';
+const MISTAKES = 'deliberate-mistakes.cir';
+const EDITOR = '.editor-instance .monaco-editor';
+
+/** Opens a workspace file from the Explorer (Quick Open when the row is not visible). */
+async function openFile(page, name) {
+  await page.keyboard.press('Escape');
+  const row = page.locator('.explorer-folders-view .monaco-list-row', { hasText: name }).first();
+  if (await row.waitFor({ timeout: 60000 }).then(() => true, () => false)) await row.click();
+  else {
+    await page.keyboard.press('Control+P');
+    const input = page.locator('.quick-input-widget input');
+    await input.waitFor({ timeout: 30000 });
+    await input.fill(name);
+    await page.waitForSelector(`.quick-input-list .monaco-list-row[aria-label*="${name}"]`, { timeout: 30000 });
+    await page.keyboard.press('Enter');
+  }
+  await page.waitForFunction((n) => {
+    const tab = document.querySelector('.tabs-container .tab.active');
+    return tab && tab.textContent.includes(n);
+  }, name, { timeout: 30000 });
+}
+
+function viewText(page) {
+  return page.evaluate((sel) => (document.querySelector(`${sel} .view-lines`)?.textContent || '').replace(/\u00a0/g, ' '), EDITOR);
+}
+
+/** Centre of the first occurrence of `word` on the rendered line that starts with `lineStart`. */
+function wordPoint(page, lineStart, word) {
+  return page.evaluate(([sel, start, w]) => {
+    for (const line of document.querySelectorAll(`${sel} .view-line`)) {
+      if (!line.textContent.replace(/\u00a0/g, ' ').startsWith(start)) continue;
+      const walker = document.createTreeWalker(line, NodeFilter.SHOW_TEXT);
+      for (let n = walker.nextNode(); n; n = walker.nextNode()) {
+        const i = n.data.indexOf(w);
+        if (i < 0) continue;
+        const r = document.createRange();
+        r.setStart(n, i);
+        r.setEnd(n, i + w.length);
+        const b = r.getBoundingClientRect();
+        return { x: b.x + b.width / 2, y: b.y + b.height / 2 };
+      }
+    }
+    return null;
+  }, [EDITOR, lineStart, word]);
+}
+
+async function runCommand(page, title) {
+  await page.keyboard.press('Escape');
+  await page.keyboard.press('F1');
+  await page.waitForSelector('.quick-input-widget input', { timeout: 30000 });
+  await page.keyboard.type(title);
+  await page.waitForSelector(`.quick-input-list .monaco-list-row[aria-label*="${title}"]`, { timeout: 30000 });
+  await page.keyboard.press('Enter');
+}
+
+/** The text of the first webview frame whose document holds `selector`. */
+async function webviewWith(page, selector, timeoutMs = 60000) {
+  const deadline = Date.now() + timeoutMs;
+  while (Date.now() < deadline) {
+    for (const frame of page.frames()) {
+      const found = await frame.evaluate((s) => {
+        const el = document.querySelector(s);
+        return el ? document.body.innerHTML : null;
+      }, selector).catch(() => null);
+      if (found) return found;
+    }
+    await page.waitForEvent('frameattached', { timeout: 1000 }).catch(() => {});
+  }
+  return null;
+}
+
+async function languageMode({ page, check, shot }) {
+  await openFile(page, DEMO);
+  await page.waitForFunction(() => /SPICE netlist/.test(document.querySelector('#status\\.editor\\.mode')?.textContent || ''), null, { timeout: 60000 });
+  check('language mode is SPICE netlist', true);
+  await shot('01-language-mode');
+}
+
+async function inlayHints({ page, check, shot }) {
+  await page.waitForFunction((sel) => /PIV \d+\/\d+ V/.test(document.querySelector(`${sel} .view-lines`)?.textContent.replace(/\u00a0/g, ' ') || ''), EDITOR, { timeout: 90000 });
+  const text = await viewText(page);
+  check('inlay hints carry PIV against the rating and the loss on the bridge diodes', /D1 l1 bus DGEN\s*PIV \d+\/400 V · [\d.]+ m?W/.test(text), text.match(/D1 .{0,60}/)?.[0]);
+  await shot('02-inlay-hints');
+}
+
+async function codeLens({ page, check, shot }) {
+  await page.waitForFunction(() => [...document.querySelectorAll('.codelens-decoration')].some((e) => /diode bridge · η/.test(e.textContent)), null, { timeout: 60000 });
+  const lens = await page.evaluate(() => [...document.querySelectorAll('.codelens-decoration')].map((e) => e.textContent).join(' | '));
+  check('code lens above the rectifier with kind, efficiency, ripple, power factor and the view commands', /diode bridge · η [\d.]+ % · ripple .* PF/.test(lens) && /Waveforms/.test(lens) && /Compare topologies/.test(lens), lens);
+  await shot('03-code-lens');
+}
+
+async function hover({ page, check, shot }) {
+  const pt = await wordPoint(page, 'D1 l1 bus', 'D1');
+  let text = '';
+  for (let attempt = 0; pt && attempt < 5 && !/VRRM/.test(text); attempt++) {
+    await page.mouse.move(pt.x - 2 + attempt, pt.y);
+    await page.waitForSelector('.monaco-hover:not(.hidden)', { timeout: 5000 }).catch(() => {});
+    await page.waitForFunction(() => /VRRM/.test([...document.querySelectorAll('.monaco-hover')].map((e) => e.textContent).join(' ')), null, { timeout: 5000 }).catch(() => {});
+    text = (await page.locator('.monaco-hover').allTextContents()).join(' | ');
+  }
+  check('hover on a bridge diode shows its stress table with the corner and the rating', /PIV/.test(text) && /high-line/.test(text) && /VRRM 400 V/.test(text), text.slice(0, 200));
+  await shot('04-hover');
+  await page.mouse.move(5, 5);
+  await page.keyboard.press('Escape');
+}
+
+async function squiggles({ page, check, shot }) {
+  await openFile(page, MISTAKES);
+  await page.waitForSelector(`${EDITOR} .squiggly-error`, { timeout: 60000 }).catch(() => {});
+  await page.waitForSelector(`${EDITOR} .squiggly-warning`, { timeout: 30000 }).catch(() => {});
+  const errors = await page.locator(`${EDITOR} .squiggly-error`).count();
+  const warnings = await page.locator(`${EDITOR} .squiggly-warning`).count();
+  check('error and warning squiggles on the example with mistakes', errors > 0 && warnings > 0, { errors, warnings });
+  await shot('05-squiggles');
+}
+
+async function quickFix({ page, check, shot, log }) {
+  const before = await page.locator(`${EDITOR} .squiggly-error`).count();
+  const line = await page.evaluate((sel) => [...document.querySelectorAll(`${sel} .view-line`)].map((l) => l.textContent.replace(/\u00a0/g, ' ')).find((t) => /^DREV /.test(t)), EDITOR);
+  const pt = await wordPoint(page, 'DREV', 'DREV');
+  await page.mouse.click(pt.x, pt.y);
+  await page.keyboard.press('Control+.');
+  await page.waitForSelector('.action-widget .monaco-list-row', { timeout: 30000 });
+  const items = await page.locator('.action-widget .monaco-list-row').allTextContents();
+  log('quick-fix menu:', items.join(' | '));
+  await shot('06-quick-fix-menu');
+  await page.locator('.action-widget .monaco-list-row', { hasText: /Swap/i }).first().click();
+  await page.waitForFunction(([sel, old]) => {
+    const now = [...document.querySelectorAll(`${sel} .view-line`)].map((l) => l.textContent.replace(/\u00a0/g, ' ')).find((t) => /^DREV /.test(t));
+    return now && now !== old;
+  }, [EDITOR, line], { timeout: 30000 });
+  await page.waitForFunction(([sel, n]) => document.querySelectorAll(`${sel} .squiggly-error`).length < n, [EDITOR, before], { timeout: 30000 }).catch(() => {});
+  const after = await page.locator(`${EDITOR} .squiggly-error`).count();
+  check('quick fix from the editor menu swaps the reversed diode and its error goes', after < before, { before, after, line });
+  await shot('07-quick-fix-applied');
+}
+
+async function views({ page, check, shot }) {
+  await openFile(page, DEMO);
+  await runCommand(page, 'Rectilens: Show Rectifier Waveforms');
+  const waveforms = await webviewWith(page, 'svg [data-series="output-voltage"]');
+  check('waveform view opens with its SVG series', Boolean(waveforms) && /data-series="source-voltage"/.test(waveforms), (waveforms || '').slice(0, 100));
+  await shot('08-waveform-view');
+  await runCommand(page, 'Rectilens: Compare Bridge Topologies');
+  const comparison = await webviewWith(page, 'svg [data-variant]');
+  check('comparison view opens with its SVG bars', Boolean(comparison) && /data-variant="synchronous"/.test(comparison), (comparison || '').slice(0, 100));
+  await shot('09-comparison-view');
+}
+
+async function settingsChange({ page, folder, check, shot }) {
+  await openFile(page, DEMO);
+  await page.waitForSelector(`${EDITOR} .squiggly-warning, ${EDITOR} .squiggly-error`, { timeout: 60000 }).catch(() => {});
+  const before = await page.locator(`${EDITOR} .squiggly-warning, ${EDITOR} .squiggly-error`).count();
+  fs.mkdirSync(path.join(folder, '.vscode'), { recursive: true });
+  fs.writeFileSync(path.join(folder, '.vscode', 'settings.json'), JSON.stringify({ 'rectilens.derating.reverseVoltage': 1.0 }, null, 2));
+  await page.waitForFunction(([sel, n]) => document.querySelectorAll(`${sel} .squiggly-warning, ${sel} .squiggly-error`).length < n, [EDITOR, before], { timeout: 60000 }).catch(() => {});
+  const after = await page.locator(`${EDITOR} .squiggly-warning, ${EDITOR} .squiggly-error`).count();
+  check('relaxing the reverse-voltage derating in the settings clears the PIV finding', before > 0 && after < before, { before, after });
+  await shot('10-settings-change');
+}
+
+module.exports = { ALL: [languageMode, inlayHints, codeLens, hover, squiggles, quickFix, views, settingsChange] };
