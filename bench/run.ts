@@ -1,10 +1,16 @@
 /** `npm run bench`: every figure of DESIGN.md §10 with its target; writes bench/results/latest.json. */
 import { mkdirSync, writeFileSync } from 'node:fs';
 import type { BenchFigure } from './measure';
+import { runLspBench } from './lsp-bench';
 import { runParseBench } from './parse-bench';
+import { runSolveBench } from './solve-bench';
 
 async function main(): Promise<void> {
-  const sections: [string, BenchFigure[]][] = [['parse', runParseBench()]];
+  const sections: [string, BenchFigure[]][] = [
+    ['parse', runParseBench()],
+    ['steady state', (await runSolveBench()).map(withVerdict)],
+    ['language server', await runLspBench()],
+  ];
   for (const [section, figures] of sections) {
     console.log(`\n${section}`);
     for (const f of figures) {
@@ -17,6 +23,14 @@ async function main(): Promise<void> {
   const result = { date: new Date().toISOString(), node: process.version, sections: Object.fromEntries(sections) };
   writeFileSync('bench/results/latest.json', JSON.stringify(result, null, 2) + '\n');
   console.log('\nwritten bench/results/latest.json');
+}
+
+/** The solver bench states targets as text; turn them into verdicts. */
+function withVerdict(row: BenchFigure): BenchFigure {
+  const match = /^([≤≥])\s*([\d.]+)/.exec(row.target ?? '');
+  if (!match) return row;
+  const limit = Number(match[2]);
+  return { ...row, met: match[1] === '≤' ? row.value <= limit : row.value >= limit };
 }
 
 function formatValue(value: number): string {

@@ -1,6 +1,6 @@
 /** `rectilens check <files or folders…> [--format text|json] [--fail-on error|warning|never]`. */
 import { isAbsolute, relative as relativePath, sep } from 'node:path';
-import { analyze } from '../analysis/analyze';
+import { analyze, type FileAnalysis, type Snapshot } from '../analysis/analyze';
 import { reaches } from '../analysis/findings';
 import { parseArgs, UsageError } from './args';
 import { cachedReader, collectNetlistFiles } from './netlist-files';
@@ -8,6 +8,7 @@ import { toJsonReport } from './report-json';
 import { toSarif } from './report-sarif';
 import { toTextReport } from './report-text';
 import type { CommandIo } from './command-io';
+import { TOOL_VERSION } from './tool-version';
 
 export const CHECK_USAGE = 'rectilens check <files or folders…> [--format text|json|sarif] [--fail-on error|warning|never]';
 
@@ -17,7 +18,9 @@ export function runCheck(argv: readonly string[], io: CommandIo): number {
   if (args.positional.length === 0) throw new UsageError(`check needs at least one file or folder\nusage: ${CHECK_USAGE}`);
   const { files, problems } = collectNetlistFiles(args.positional);
   const read = cachedReader();
-  const snapshot = analyze({ roots: files, readText: read });
+  const snapshot = files.length >= PROGRESS_MIN_FILES && io.stderrIsTty
+    ? analyzeWithProgress(files, read, io)
+    : analyze({ roots: files, readText: read });
   for (const problem of problems) io.stderr(`rectilens: cannot read ${problem.path}: ${problem.reason}\n`);
   for (const path of snapshot.unreadable) io.stderr(`rectilens: cannot read ${path}\n`);
   const report = toJsonReport(snapshot);
@@ -32,9 +35,25 @@ export function runCheck(argv: readonly string[], io: CommandIo): number {
   return failing ? 1 : 0;
 }
 
-/** The version stamped into reports; esbuild replaces it at bundle time. */
-declare const RECTILENS_VERSION: string | undefined;
-const TOOL_VERSION = typeof RECTILENS_VERSION === 'string' ? RECTILENS_VERSION : '0.0.0-dev';
+/** From this many files on, a terminal gets a progress line (a handful finishes before it would be read). */
+export const PROGRESS_MIN_FILES = 5;
+
+/**
+ * Analyses file by file so a progress line can be drawn on stderr between them; it is
+ * overwritten in place with a carriage return and cleared at the end, so logs stay clean.
+ */
+function analyzeWithProgress(files: readonly string[], read: (path: string) => string | undefined, io: CommandIo): Snapshot {
+  const all = new Map<string, FileAnalysis>();
+  const unreadable: string[] = [];
+  files.forEach((path, k) => {
+    io.stderr(`\r\x1b[Krectilens: checking ${k + 1}/${files.length} ${path}`);
+    const one = analyze({ roots: [path], readText: read });
+    for (const [uri, file] of one.files) all.set(uri, file);
+    unreadable.push(...one.unreadable);
+  });
+  io.stderr('\r\x1b[K');
+  return { files: all, unreadable };
+}
 
 /** SARIF artifact locations are URIs; relative paths stay relative to the working folder, as scanning services expect. */
 function toRelativeUri(path: string): string {

@@ -2,11 +2,15 @@
 import { UsageError } from './args';
 import { CHECK_USAGE, runCheck } from './check-command';
 import { processIo, type CommandIo } from './command-io';
+import { COMPARE_USAGE, runCompare } from './compare-command';
+import { REPORT_USAGE, runReport } from './report-command';
 import { startStdioOrIpcServer } from '../lsp/start';
 
 const LSP_USAGE = 'rectilens lsp --stdio';
 const USAGE = `usage:
   ${CHECK_USAGE}
+  ${REPORT_USAGE}
+  ${COMPARE_USAGE}
   ${LSP_USAGE}
 `;
 
@@ -17,6 +21,10 @@ export function runCommandLine(argv: readonly string[], io: CommandIo): number {
     switch (command) {
       case 'check':
         return runCheck(rest, io);
+      case 'report':
+        return runReport(rest, io);
+      case 'compare':
+        return runCompare(rest, io);
       case 'lsp':
         if (!rest.includes('--stdio')) throw new UsageError(`the language server speaks over standard input and output: ${LSP_USAGE}`);
         startLanguageServer();

@@ -14,6 +14,10 @@ export interface ChartSeries {
   t: readonly number[];
   y: readonly number[];
   dashed?: boolean;
+  /** Leave out the stretches where the trace rests at zero. */
+  hideIdle?: boolean;
+  /** Line width; wider traces drawn first stay visible under narrower ones that coincide. */
+  strokeWidthPx?: number;
 }
 
 export interface ChartPanel {
@@ -96,14 +100,28 @@ function renderPanel(panel: ChartPanel, top: number, width: number, x: (t: numbe
 }
 
 function renderTrace(s: ChartSeries, x: (t: number) => number, y: (v: number) => number): string {
-  const points: string[] = [];
-  for (let k = 0; k < s.t.length; k++) {
-    const v = s.y[k];
-    if (v === undefined || !Number.isFinite(v)) continue;
-    points.push(`${coord(x(s.t[k]!))},${coord(y(v))}`);
-  }
   const dash = s.dashed ? ' stroke-dasharray="6 4"' : '';
-  return `<polyline class="rl-trace" data-series="${escapeMarkup(s.id)}" fill="none" stroke="${escapeMarkup(s.colour)}"${dash} points="${points.join(' ')}"><title>${escapeMarkup(s.name)}</title></polyline>`;
+  const width = s.strokeWidthPx !== undefined ? ` stroke-width="${coord(s.strokeWidthPx)}"` : '';
+  return `<path class="rl-trace" data-series="${escapeMarkup(s.id)}" fill="none" stroke="${escapeMarkup(s.colour)}"${dash}${width} d="${tracePath(s, x, y)}"><title>${escapeMarkup(s.name)}</title></path>`;
+}
+
+/**
+ * The path data of a trace. With `hideIdle`, stretches where the trace rests at zero are left
+ * out (a device current is zero most of the period, and a dozen zero lines would bury the axis);
+ * the sample on either side of a pulse is kept so each pulse starts and ends on the axis.
+ */
+function tracePath(s: ChartSeries, x: (t: number) => number, y: (v: number) => number): string {
+  const peak = Math.max(0, ...s.y.filter(Number.isFinite).map(Math.abs));
+  const idle = (k: number) => !(Math.abs(s.y[k] ?? 0) > peak * 1e-3);
+  const shown = (k: number) => Number.isFinite(s.y[k]) && (!s.hideIdle || !idle(k) || (k > 0 && !idle(k - 1)) || (k + 1 < s.y.length && !idle(k + 1)));
+  const parts: string[] = [];
+  let pen = false;
+  for (let k = 0; k < s.t.length; k++) {
+    if (!shown(k)) { pen = false; continue; }
+    parts.push(`${pen ? 'L' : 'M'}${coord(x(s.t[k]!))},${coord(y(s.y[k]!))}`);
+    pen = true;
+  }
+  return parts.join(' ');
 }
 
 /** The legend: a short stroke sample and the name of each trace, laid out left to right. */
@@ -129,7 +147,8 @@ const CHART_STYLE = `<style>
 .rl-tick{font:11px system-ui,sans-serif;fill:#5b574f}
 .rl-axis-title{font:600 12px system-ui,sans-serif;fill:#34312c}
 .rl-legend-text{font:12px system-ui,sans-serif;fill:#34312c}
-.rl-trace{stroke-width:1.8;stroke-linejoin:round}
+.rl-trace{stroke-linejoin:round}
+.rl-trace:not([stroke-width]){stroke-width:1.8}
 </style>`;
 
 /** Trace colours of our own: a calm set that stays apart on a light background. */

@@ -7,7 +7,7 @@
 import { DEFAULT_DERATING, DIODE_CATALOG, SCHOTTKY_MAX_VRRM_V, type CatalogDiode, type CatalogSeriesId } from '../ratings/index';
 import {
   DEFAULT_CONTROLLER_VMIN_V, DEFAULT_RDSON_TEMP_EXPONENT, SPICE_DIODE_DEFAULTS,
-  type DeviceRole, type DiodeParams, type EquivalentCircuit, type MosfetDevice, type RectifierDevice,
+  type DeviceRole, type DiodeDevice, type DiodeParams, type EquivalentCircuit, type MosfetDevice, type RectifierDevice, type RectifierKind,
 } from '../solve/index';
 
 export type VariantId = 'silicon' | 'schottky' | 'hybrid' | 'synchronous';
@@ -52,6 +52,9 @@ export const ASSUMED_RDSON_BY_VOLTAGE: readonly { upToV: number; rdsOnOhm: numbe
   { upToV: Infinity, rdsOnOhm: 0.3 },
 ];
 
+/** A device without its place in the bridge. */
+type DeviceBody = Omit<DiodeDevice, 'name' | 'role'> | Omit<MosfetDevice, 'name' | 'role'>;
+
 const BRIDGE_ROLES: readonly DeviceRole[] = ['upper-a', 'upper-b', 'lower-a', 'lower-b'];
 
 /** Plans all four variants for a single-phase bridge. */
@@ -65,12 +68,12 @@ export function planVariants(basis: VariantBasis): VariantPlan[] {
   return [
     {
       id: 'silicon', label: 'Silicon bridge', construction: `4 × ${silicon.label}`,
-      circuit: withDevices(basis.circuit, () => diode(silicon.entry, rth.kPerW)), assumptions: [...common, silicon.why],
+      circuit: withDevices(basis.circuit, 'diode-bridge', () => diode(silicon.entry, rth.kPerW)), assumptions: [...common, silicon.why],
     },
     planSchottky(basis, schottky, rth.kPerW, common),
     {
       id: 'hybrid', label: 'Hybrid bridge', construction: `2 × ${silicon.label} + 2 self-driven MOSFETs (${milliOhm(rdson.ohm)})`,
-      circuit: withDevices(basis.circuit, (role) => (role.startsWith('upper') ? diode(silicon.entry, rth.kPerW) : mosfet(rdson.ohm, 'self-driven', rth.kPerW))),
+      circuit: withDevices(basis.circuit, 'hybrid-bridge', (role) => (role.startsWith('upper') ? diode(silicon.entry, rth.kPerW) : mosfet(rdson.ohm, 'self-driven', rth.kPerW))),
       assumptions: [...common, silicon.why, ...rdson.assumptions],
     },
     sync,
@@ -83,7 +86,7 @@ function planSchottky(basis: VariantBasis, series: SeriesChoice, rthKPerW: numbe
     plan.notApplicable = `reverse voltage ${Math.round(basis.pivV)} V is beyond the silicon Schottky class (up to ${SCHOTTKY_MAX_VRRM_V} V, common practice)`;
     return plan;
   }
-  plan.circuit = withDevices(basis.circuit, () => diode(series.entry, rthKPerW));
+  plan.circuit = withDevices(basis.circuit, 'diode-bridge', () => diode(series.entry, rthKPerW));
   if (basis.pivV > 40) plan.assumptions.push('forward law of the 40 V Schottky class; a Schottky rated for this voltage drops more, so this variant is optimistic');
   return plan;
 }
@@ -94,7 +97,7 @@ function planSynchronous(basis: VariantBasis, rthKPerW: number, rdson: { ohm: nu
   if (basis.controllerVminV === undefined) assumptions.push(`controller minimum operating voltage ${vmin} V (common practice); below it only the body diodes conduct`);
   const crestV = basis.circuit.source.vrms * Math.SQRT2;
   if (crestV < vmin) assumptions.push(`the source crest (${crestV.toFixed(1)} V nominal) stays below the controller's ${vmin} V: the channels never turn on`);
-  const circuit = withDevices(basis.circuit, () => mosfet(rdson.ohm, 'controller', rthKPerW));
+  const circuit = withDevices(basis.circuit, 'active-bridge', () => mosfet(rdson.ohm, 'controller', rthKPerW));
   circuit.controllerVminV = vmin;
   return {
     id: 'synchronous', label: 'Synchronous bridge', construction: `4 MOSFETs (${milliOhm(rdson.ohm)}) + controller (vmin ${vmin} V)`,
@@ -121,7 +124,7 @@ function pickSeries(basis: VariantBasis, technology: 'silicon' | 'schottky'): Se
   const neededV = basis.pivV / DEFAULT_DERATING.vr.value;
   const entry = ladder.find((d) => (d.ratings.vrrmV?.value ?? 0) >= neededV) ?? ladder[ladder.length - 1]!;
   const amps = small ? 1 : 3;
-  const label = `${entry.name}-class ${technology} (${amps} A)`;
+  const label = `${entry.name}-class ${technology === 'schottky' ? 'Schottky' : 'silicon'} (${amps} A)`;
   const why = `${technology} variant: ${amps} A catalog series for a worst average current of ${basis.iavgA.toFixed(2)} A per device; forward law fitted to the catalog's generic class points`;
   return { entry, label, why: basis.iavgA > 3 * ifFraction ? `${why}; the current exceeds the largest class in the catalog` : why };
 }
@@ -143,22 +146,22 @@ function onResistance(basis: VariantBasis): { ohm: number; assumptions: string[]
 }
 
 /** A copy of the circuit whose devices are rebuilt per bridge role, keeping the file's names. */
-function withDevices(circuit: EquivalentCircuit, make: (role: DeviceRole) => Omit<RectifierDevice, 'name' | 'role'>): EquivalentCircuit {
+function withDevices(circuit: EquivalentCircuit, kind: RectifierKind, make: (role: DeviceRole) => DeviceBody): EquivalentCircuit {
   const devices = BRIDGE_ROLES.map((role, k): RectifierDevice => {
     const existing = circuit.devices.find((d) => d.role === role);
     return { ...make(role), name: existing?.name ?? `Q${k + 1}`, role } as RectifierDevice;
   });
   const { controllerVminV: _dropped, ...rest } = circuit;
-  return { ...rest, kind: 'diode-bridge', devices };
+  return { ...rest, kind, devices };
 }
 
-function diode(entry: CatalogDiode, rthjaKPerW: number): Omit<RectifierDevice, 'name' | 'role'> {
+function diode(entry: CatalogDiode, rthjaKPerW: number): DeviceBody {
   const f = entry.forwardModel;
   const params: DiodeParams = f ? { isA: f.isA, n: f.n, rsOhm: f.rsOhm, egEv: f.egEv, xti: f.xti, tnomC: f.tnomC } : { ...SPICE_DIODE_DEFAULTS };
   return { kind: 'diode', params, rthjaKPerW };
 }
 
-function mosfet(rdsOn25Ohm: number, gate: MosfetDevice['gate'], rthjaKPerW: number): Omit<RectifierDevice, 'name' | 'role'> {
+function mosfet(rdsOn25Ohm: number, gate: MosfetDevice['gate'], rthjaKPerW: number): DeviceBody {
   return { kind: 'mosfet', rdsOn25Ohm, rdsOnTempExponent: DEFAULT_RDSON_TEMP_EXPONENT, body: { ...SPICE_DIODE_DEFAULTS }, gate, rthjaKPerW };
 }
 

@@ -30,11 +30,12 @@ export function niceTicks(lo: number, hi: number, target = 5): { ticks: number[]
   const raw = (max - min) / target;
   const power = Math.pow(10, Math.floor(Math.log10(raw)));
   const step = [1, 2, 5, 10].map((m) => m * power).find((s) => s >= raw * 0.999) ?? 10 * power;
-  const first = Math.floor(min / step + 1e-9) * step;
-  const last = Math.ceil(max / step - 1e-9) * step;
+  const firstIndex = Math.floor(min / step + 1e-9);
+  const lastIndex = Math.ceil(max / step - 1e-9);
   const ticks: number[] = [];
-  for (let v = first; v <= last + step * 1e-6; v += step) ticks.push(Math.abs(v) < step * 1e-9 ? 0 : v);
-  return { ticks, lo: first, hi: last };
+  // Whole multiples of the step, rounded so that 3 × 0.2 prints as 0.6.
+  for (let k = firstIndex; k <= lastIndex; k++) ticks.push(k === 0 ? 0 : Number((k * step).toPrecision(12)));
+  return { ticks, lo: ticks[0]!, hi: ticks[ticks.length - 1]! };
 }
 
 /** A tick label: no more decimals than the step needs. */

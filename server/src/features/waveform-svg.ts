@@ -66,8 +66,11 @@ function currentSeries(w: Waveform, t: number[], prefix: string): ChartSeries[] 
     id: prefix ? 'inrush-current' : 'source-current', name: 'source current (mains side)', colour: TRACE_COLOURS.sourceCurrent,
     t, y: w.sourceA, dashed: true,
   };
+  // Devices that conduct together (a bridge's diagonal pair) have the same current; each later
+  // trace is drawn narrower, so the ones beneath still show at its edges.
   const devices = w.deviceNames.map((name, k): ChartSeries => ({
     id: `${prefix}device-current:${name}`, name, colour: TRACE_COLOURS.devices[k % TRACE_COLOURS.devices.length]!, t, y: w.deviceA[k] ?? [],
+    strokeWidthPx: Math.max(1.4, 4.2 - 0.9 * k), hideIdle: true,
   }));
   return [source, ...devices];
 }

@@ -1,5 +1,6 @@
 /** The `rectilens/view` request: the waveform or comparison view of a rectifier, rendered by the core. */
 import type { FileAnalysis } from '../analysis/analyze';
+import { renderComparisonView, renderWaveformView, type ViewContent } from '../features/view-content';
 
 export interface ViewRequest {
   kind: 'waveforms' | 'comparison';
@@ -7,13 +8,7 @@ export interface ViewRequest {
   rectifierId?: string;
 }
 
-export interface ViewContent {
-  title: string;
-  body: string;
-}
-
-/** Filled in once the view renderers land; until then the view says so. */
 export function renderView(file: FileAnalysis | undefined, request: ViewRequest): ViewContent | null {
   if (!file || file.rectifiers.length === 0) return null;
-  return { title: `Rectilens ${request.kind}`, body: '<p>Views are not available yet.</p>' };
+  return request.kind === 'comparison' ? renderComparisonView(file, request.rectifierId) : renderWaveformView(file, request.rectifierId);
 }

@@ -1,0 +1,35 @@
+/** `rectilens report <file> [--html out.html]`: the annotated netlist and tables, or one HTML page. */
+import { parseArgs, UsageError } from './args';
+import type { CommandIo } from './command-io';
+import { describeError } from './netlist-files';
+import { analyseSingleNetlist } from './single-netlist';
+import { TOOL_VERSION } from './tool-version';
+import { renderHtmlReport } from '../features/report-html';
+import { renderAnnotatedText } from '../features/report-text-annotated';
+
+export const REPORT_USAGE = 'rectilens report <file> [--html out.html]';
+
+/** Runs the report; exit 0 when written, 2 on a usage error or an unreadable or unwritable file. */
+export function runReport(argv: readonly string[], io: CommandIo): number {
+  const args = parseArgs(argv, { html: {} });
+  const htmlPath = args.flags.get('html') as string | undefined;
+  if (htmlPath !== undefined && htmlPath.trim() === '') throw new UsageError(`--html needs a file name\nusage: ${REPORT_USAGE}`);
+  const file = analyseSingleNetlist(args.positional, 'report', REPORT_USAGE, io);
+  if (!file) return 2;
+  const displayPath = args.positional[0]!;
+  if (htmlPath === undefined) {
+    io.stdout(renderAnnotatedText(file, displayPath));
+    return 0;
+  }
+  const page = renderHtmlReport([{ file, displayPath }], { generator: `Rectilens ${TOOL_VERSION}` });
+  if (!io.writeFile) throw new Error('this command line cannot write files');
+  try {
+    io.writeFile(htmlPath, page);
+  } catch (error) {
+    io.stderr(`rectilens: cannot write ${htmlPath}: ${describeError(error)}\n`);
+    return 2;
+  }
+  const n = file.rectifiers.length;
+  io.stdout(`wrote ${htmlPath}: ${n} rectifier${n === 1 ? '' : 's'}, ${file.findings.length} finding${file.findings.length === 1 ? '' : 's'}\n`);
+  return 0;
+}

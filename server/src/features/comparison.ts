@@ -1,0 +1,139 @@
+/**
+ * The topology comparison (DESIGN.md §7): a single-phase bridge solved as drawn and as four
+ * constructions of the same circuit (silicon, Schottky, hybrid, synchronous) at the file's own
+ * corners, with the worst efficiency, rectifier loss, hottest junction, inrush peak and, when
+ * the file states part costs, the cost of each. A pure function of one analysed rectifier.
+ */
+import type { DeviceAnalysis, RectifierAnalysis } from '../analysis/rectifier-analysis';
+import { solveRectifier, type RectifierSolution, type WorstValue } from '../solve/index';
+import { planVariants, type VariantId, type VariantPlan } from './comparison-variants';
+
+export type { VariantId } from './comparison-variants';
+
+/** One row of the comparison. */
+export interface ComparisonRow {
+  id: VariantId | 'as-drawn';
+  label: string;
+  construction: string;
+  /** False when the construction does not suit this circuit; `reason` says why. */
+  applicable: boolean;
+  reason?: string;
+  /** Lowest efficiency over the corners, with its corner. */
+  efficiency?: WorstValue;
+  /** Highest total rectifier loss over the corners. */
+  rectifierLossW?: WorstValue;
+  /** Hottest junction over devices and corners, with the device. */
+  hottestTjC?: WorstValue & { device: string };
+  inrushPeakA?: WorstValue;
+  thermalRunaway: boolean;
+  /** Sum of the parts' costs in the file's own currency, when the file gives them. */
+  cost?: number;
+  assumptions: string[];
+}
+
+export interface TopologyComparison {
+  rectifierId: string;
+  kind: string;
+  /** False for rectifiers other than single-phase bridges. */
+  applicable: boolean;
+  reason?: string;
+  rows: ComparisonRow[];
+  /** Assumptions shared by every variant (listed once). */
+  assumptions: string[];
+}
+
+const BRIDGE_KINDS = new Set(['diode-bridge', 'active-bridge', 'hybrid-bridge']);
+
+/** Compares constructions of one rectifier; the variants are solved here (a few milliseconds each). */
+export function compareTopologies(analysis: RectifierAnalysis): TopologyComparison {
+  const { rectifier, solution, circuit } = analysis;
+  const base = { rectifierId: rectifier.id, kind: rectifier.kind };
+  if (!BRIDGE_KINDS.has(rectifier.kind) || circuit.devices.length !== 4) {
+    return { ...base, applicable: false, reason: 'the comparison covers single-phase four-device bridges only', rows: [], assumptions: [] };
+  }
+  const plans = planVariants({
+    circuit,
+    pivV: maxWorst(solution, 'pivV'),
+    iavgA: maxWorst(solution, 'iavgA'),
+    controllerVminV: circuit.controllerVminV ?? analysis.controller?.vminV?.value,
+  });
+  const costs = partCosts(analysis);
+  const asDrawn: ComparisonRow = {
+    id: 'as-drawn', label: 'As drawn', construction: describeAsDrawn(analysis), applicable: true,
+    ...figuresOf(solution), cost: costs.asDrawn, assumptions: asDrawnNotes(solution),
+  };
+  const rows = [asDrawn, ...plans.map((plan) => solvePlan(plan, analysis, costs))];
+  const shared = plans.map((p) => p.assumptions).reduce((a, b) => a.filter((x) => b.includes(x)));
+  for (const row of rows.slice(1)) row.assumptions = row.assumptions.filter((a) => !shared.includes(a));
+  return { ...base, applicable: true, rows, assumptions: shared };
+}
+
+function solvePlan(plan: VariantPlan, analysis: RectifierAnalysis, costs: PartCosts): ComparisonRow {
+  const row: ComparisonRow = {
+    id: plan.id, label: plan.label, construction: plan.construction, applicable: !plan.notApplicable && !!plan.circuit,
+    thermalRunaway: false, assumptions: plan.assumptions,
+  };
+  if (plan.notApplicable || !plan.circuit) return { ...row, reason: plan.notApplicable ?? 'not built' };
+  // Waveforms are not drawn for variants; leaving them out keeps the comparison quick.
+  const solved = solveRectifier(plan.circuit, analysis.corners, { waveformPoints: 0 });
+  const cost = costs.variant(plan.id);
+  return { ...row, ...figuresOf(solved), ...(cost !== undefined ? { cost } : {}) };
+}
+
+function figuresOf(solution: RectifierSolution): Pick<ComparisonRow, 'efficiency' | 'rectifierLossW' | 'hottestTjC' | 'inrushPeakA' | 'thermalRunaway'> {
+  let hottest: (WorstValue & { device: string }) | undefined;
+  for (const d of solution.devices) {
+    if (d.tjC && (!hottest || d.tjC.value > hottest.value)) hottest = { ...d.tjC, device: d.name };
+  }
+  return {
+    efficiency: solution.worst.efficiency, rectifierLossW: solution.worst.rectifierLossW, hottestTjC: hottest,
+    inrushPeakA: solution.worst.inrushPeakA, thermalRunaway: solution.devices.some((d) => d.thermalRunaway),
+  };
+}
+
+function asDrawnNotes(solution: RectifierSolution): string[] {
+  return solution.notes.some((n) => n.includes('no RθJA')) ? ['no RθJA in the file for some parts: their Tj is taken as ambient'] : [];
+}
+
+function maxWorst(solution: RectifierSolution, key: 'pivV' | 'iavgA'): number {
+  return Math.max(0, ...solution.devices.map((d) => d[key]?.value ?? 0));
+}
+
+function describeAsDrawn(analysis: RectifierAnalysis): string {
+  const byModel = new Map<string, number>();
+  for (const d of analysis.devices) {
+    const name = `${d.ref.type === 'diode' ? 'diode' : 'MOSFET'} ${d.model?.name ?? '(no model)'}`;
+    byModel.set(name, (byModel.get(name) ?? 0) + 1);
+  }
+  return [...byModel].map(([name, n]) => `${n} × ${name}`).join(' + ');
+}
+
+interface PartCosts {
+  asDrawn?: number;
+  variant: (id: VariantId) => number | undefined;
+}
+
+/**
+ * Costs come only from the file's own `cost=` ratings: a variant is costed when the file prices a
+ * part of each kind it uses (a diode of the same technology, a MOSFET, the controller).
+ */
+function partCosts(analysis: RectifierAnalysis): PartCosts {
+  const costOf = (d: DeviceAnalysis) => d.ratings.ratings.cost?.value;
+  const diodes = analysis.devices.filter((d) => d.ref.type === 'diode');
+  const techOf = (d: DeviceAnalysis) => (d.ratings.ratings.kind === 'diode' ? d.ratings.ratings.technology?.value ?? 'silicon' : undefined);
+  const diodeCost = (tech: string) => diodes.filter((d) => techOf(d) === tech).map(costOf).find((c) => c !== undefined);
+  const fetCost = analysis.devices.filter((d) => d.ref.type === 'mosfet').map(costOf).find((c) => c !== undefined);
+  const controllerCost = analysis.controller?.cost?.value;
+  const sum = (...parts: (number | undefined)[]) => (parts.every((p) => p !== undefined) ? parts.reduce<number>((a, b) => a + b!, 0) : undefined);
+  const hasFets = analysis.devices.some((d) => d.ref.type === 'mosfet') && analysis.rectifier.kind === 'active-bridge';
+  return {
+    asDrawn: sum(...analysis.devices.map(costOf), ...(hasFets ? [controllerCost] : [])),
+    variant: (id) => {
+      const si = diodeCost('silicon');
+      if (id === 'silicon') return sum(si, si, si, si);
+      if (id === 'schottky') { const s = diodeCost('schottky'); return sum(s, s, s, s); }
+      if (id === 'hybrid') return sum(si, si, fetCost, fetCost);
+      return sum(fetCost, fetCost, fetCost, fetCost, controllerCost);
+    },
+  };
+}

@@ -1,0 +1,108 @@
+/**
+ * The figures of one rectifier as tables of formatted cells, one column per corner, with the
+ * worst corner of each row marked: the one model behind the HTML report and the terminal text.
+ */
+import type { DeviceAnalysis, RectifierAnalysis } from '../analysis/rectifier-analysis';
+import type { CornerSolution, DeviceSolution, WorstFigures, WorstValue } from '../solve/index';
+import { formatCelsius, formatPercent, formatSi } from './format';
+
+export interface FigureRow {
+  label: string;
+  cells: string[];
+  /** Index of the worst corner's column, when the row has one. */
+  worstIndex?: number;
+  /** The part's rating for this figure, formatted, when known. */
+  rating?: string;
+}
+
+export interface FigureTable {
+  title: string;
+  corners: string[];
+  rows: FigureRow[];
+}
+
+type CornerFigure = {
+  label: string;
+  key: keyof WorstFigures;
+  get: (c: CornerSolution) => number | undefined;
+  show: (v: number | undefined) => string;
+};
+
+const RECTIFIER_FIGURES: readonly CornerFigure[] = [
+  { label: 'Output, average', key: 'vOutAvgV', get: (c) => c.vOutAvgV, show: (v) => formatSi(v, 'V') },
+  { label: 'Output ripple, peak to peak', key: 'rippleVpp', get: (c) => c.rippleVpp, show: (v) => formatSi(v, 'V') },
+  { label: 'Capacitor ripple current, RMS', key: 'capRippleIrmsA', get: (c) => c.capRippleIrmsA, show: (v) => formatSi(v, 'A') },
+  { label: 'Rectifier loss', key: 'rectifierLossW', get: (c) => c.rectifierLossW, show: (v) => formatSi(v, 'W') },
+  { label: 'Efficiency', key: 'efficiency', get: (c) => c.efficiency, show: formatPercent },
+  { label: 'Source current, RMS (mains side)', key: 'sourceIrmsA', get: (c) => c.sourceIrmsA, show: (v) => formatSi(v, 'A') },
+  { label: 'Power factor', key: 'powerFactor', get: (c) => c.powerFactor, show: (v) => (v === undefined ? '—' : v.toFixed(3)) },
+  { label: 'Current THD (orders 2–40)', key: 'thd', get: (c) => c.thd, show: formatPercent },
+  { label: 'Inrush peak', key: 'inrushPeakA', get: (c) => c.inrushPeakA, show: (v) => formatSi(v, 'A') },
+  { label: 'Inrush I²t, first half-cycle', key: 'inrushI2tA2s', get: (c) => c.inrushI2tA2s, show: (v) => formatSi(v, 'A²s') },
+  { label: 'Hold-up to load vmin', key: 'holdUpS', get: (c) => c.holdUpS, show: (v) => formatSi(v, 's') },
+];
+
+/** The rectifier-level figures per corner; rows with no value at any corner are left out. */
+export function rectifierFigureTable(analysis: RectifierAnalysis): FigureTable {
+  const { corners, worst } = analysis.solution;
+  const names = corners.map((c) => c.name);
+  const rows = RECTIFIER_FIGURES.filter((f) => corners.some((c) => f.get(c) !== undefined)).map((f): FigureRow => ({
+    label: f.label, cells: corners.map((c) => f.show(f.get(c))), ...worstIndexOf(worst[f.key], names),
+  }));
+  return { title: 'Rectifier figures per corner', corners: names, rows };
+}
+
+type DeviceFigure = { label: string; key: keyof DeviceSolution & keyof DeviceRowWorst; show: (v: number | undefined) => string; rating?: (d: DeviceAnalysis) => number | undefined; ratingUnit?: string };
+type DeviceRowWorst = { pivV?: WorstValue; ipkA?: WorstValue; iavgA?: WorstValue; irmsA?: WorstValue; lossW?: WorstValue; tjC?: WorstValue };
+
+const DEVICE_FIGURES: readonly DeviceFigure[] = [
+  { label: 'PIV', key: 'pivV', show: (v) => formatSi(v, 'V'), rating: (d) => reverseRatingV(d), ratingUnit: 'V' },
+  { label: 'Peak current', key: 'ipkA', show: (v) => formatSi(v, 'A') },
+  { label: 'Average current', key: 'iavgA', show: (v) => formatSi(v, 'A'), rating: (d) => (d.ratings.ratings.kind === 'diode' ? d.ratings.ratings.ifavA?.value : d.ratings.ratings.kind === 'mosfet' ? d.ratings.ratings.idA?.value : undefined), ratingUnit: 'A' },
+  { label: 'RMS current', key: 'irmsA', show: (v) => formatSi(v, 'A') },
+  { label: 'Loss', key: 'lossW', show: (v) => formatSi(v, 'W') },
+  { label: 'Junction temperature', key: 'tjC', show: formatCelsius, rating: (d) => (d.ratings.ratings.kind === 'diode' || d.ratings.ratings.kind === 'mosfet' ? d.ratings.ratings.tjmaxC?.value : undefined), ratingUnit: '°C' },
+];
+
+/**
+ * One table per device: its stresses per corner, the worst marked, and its rating beside.
+ * Devices whose tables are identical (the symmetric halves of a bridge) share one table.
+ */
+export function deviceFigureTables(analysis: RectifierAnalysis): FigureTable[] {
+  const names = analysis.solution.corners.map((c) => c.name);
+  const groups = new Map<string, { devices: string[]; model?: string; rows: FigureRow[] }>();
+  analysis.solution.devices.forEach((worst, k) => {
+    const device = analysis.devices[k];
+    const rows = deviceRows(analysis, k, names);
+    const model = device?.model?.name;
+    const signature = JSON.stringify([model, rows]);
+    const group = groups.get(signature);
+    if (group) group.devices.push(worst.name);
+    else groups.set(signature, { devices: [worst.name], model, rows });
+  });
+  return [...groups.values()].map((g) => ({ title: `${g.devices.join(', ')}${g.model ? ` (${g.model})` : ''}`, corners: names, rows: g.rows }));
+}
+
+function deviceRows(analysis: RectifierAnalysis, k: number, names: readonly string[]): FigureRow[] {
+  const worst = analysis.solution.devices[k]!;
+  const device = analysis.devices[k];
+  return DEVICE_FIGURES.map((f): FigureRow => {
+    const rated = device && f.rating ? f.rating(device) : undefined;
+    const cells = analysis.solution.corners.map((c) => f.show(c.devices[k]?.[f.key] as number | undefined));
+    const row: FigureRow = { label: f.label, cells, ...worstIndexOf(worst[f.key], names) };
+    if (rated !== undefined) row.rating = f.ratingUnit === '°C' ? formatCelsius(rated) : formatSi(rated, f.ratingUnit ?? '');
+    return row;
+  });
+}
+
+/** The reverse rating a device's PIV is held against: VRRM for a diode, VDS for a MOSFET. */
+export function reverseRatingV(d: DeviceAnalysis): number | undefined {
+  const r = d.ratings.ratings;
+  return r.kind === 'diode' ? r.vrrmV?.value : r.kind === 'mosfet' ? r.vdsV?.value : undefined;
+}
+
+function worstIndexOf(worst: WorstValue | undefined, names: readonly string[]): { worstIndex?: number } {
+  if (!worst) return {};
+  const index = names.indexOf(worst.corner);
+  return index >= 0 ? { worstIndex: index } : {};
+}

@@ -1,0 +1,100 @@
+/**
+ * The two editor views as self-contained HTML fragments (inline SVG and one `<style>` element, no
+ * scripts, no external resources): the waveforms of a rectifier and its topology comparison.
+ * The VS Code webview and the language server's `rectilens/view` request show these as they are.
+ */
+import type { FileAnalysis } from '../analysis/analyze';
+import type { RectifierAnalysis } from '../analysis/rectifier-analysis';
+import { compareTopologies } from './comparison';
+import { renderComparisonSvg, renderComparisonTable } from './comparison-svg';
+import { needsCaution, rectifierLabel, renderCautionHtml, renderNotesHtml } from './html-blocks';
+import { escapeMarkup } from './markup';
+import { PAGE_CSS } from './page-style';
+import { defaultInrushCorner, defaultPeriodCorner, renderInrushSvg, renderPeriodSvg } from './waveform-svg';
+import { formatPercent, formatSi } from './format';
+
+/** A view's title (for the panel tab) and its body (an HTML fragment). */
+export interface ViewContent {
+  title: string;
+  body: string;
+}
+
+/** Without a rectifier id, at most this many rectifiers are drawn, so a huge file stays quick. */
+export const MAX_RECTIFIERS_PER_VIEW = 8;
+
+/**
+ * Waveforms of one rectifier (by `Rectifier.id`), or of every rectifier in the file when no id
+ * is given: a steady-state period at the nominal corner and the inrush half-cycle at the corner
+ * with the largest inrush.
+ */
+export function renderWaveformView(file: FileAnalysis, rectifierId?: string): ViewContent {
+  return renderView(file, rectifierId, 'Waveforms', (analysis) => {
+    const label = rectifierLabel(analysis);
+    const period = defaultPeriodCorner(analysis.solution.corners);
+    const inrush = defaultInrushCorner(analysis.solution.corners);
+    const periodSvg = period && renderPeriodSvg(period, { rectifierLabel: label });
+    const inrushSvg = inrush && renderInrushSvg(inrush, { rectifierLabel: label });
+    return [
+      `<h3>One period at ${escapeMarkup(period?.name ?? '—')}</h3>`,
+      period ? `<p class="rl-sub">${escapeMarkup(periodSummary(period))}</p>` : '',
+      periodSvg ?? '<p class="rl-na">No steady-state waveform: the solver found no solution for this rectifier.</p>',
+      `<h3>Switch-on inrush at ${escapeMarkup(inrush?.name ?? '—')}</h3>`,
+      inrush ? `<p class="rl-sub">Closed at the crest with the capacitor empty: peak ${escapeMarkup(formatSi(inrush.inrushPeakA, 'A'))}, I²t ${escapeMarkup(formatSi(inrush.inrushI2tA2s, 'A²s'))}.</p>` : '',
+      inrushSvg ?? '<p class="rl-na">No inrush waveform for this rectifier.</p>',
+      renderNotesHtml(analysis),
+    ].join('\n');
+  });
+}
+
+/** The topology comparison of one bridge (or of every rectifier in the file without an id). */
+export function renderComparisonView(file: FileAnalysis, rectifierId?: string): ViewContent {
+  return renderView(file, rectifierId, 'Topology comparison', (analysis) => renderComparisonSection(analysis));
+}
+
+/** The comparison chart and table of one rectifier, or a line saying why there is none. */
+export function renderComparisonSection(analysis: RectifierAnalysis): string {
+  const comparison = compareTopologies(analysis);
+  if (!comparison.applicable) return `<p class="rl-na" data-comparison="not-applicable">No comparison: ${escapeMarkup(comparison.reason ?? '')}.</p>`;
+  return [
+    '<p class="rl-sub">The same source, filter, load and corners with four bridge constructions; worst corner of each figure shown under it.</p>',
+    renderComparisonSvg(comparison),
+    renderComparisonTable(comparison),
+  ].join('\n');
+}
+
+function renderView(file: FileAnalysis, rectifierId: string | undefined, what: string, section: (a: RectifierAnalysis) => string): ViewContent {
+  const chosen = rectifierId === undefined
+    ? file.rectifiers.slice(0, MAX_RECTIFIERS_PER_VIEW)
+    : file.rectifiers.filter((r) => r.rectifier.id === rectifierId);
+  const name = fileName(file.uri);
+  const title = chosen.length === 1 ? `${what}: ${rectifierLabel(chosen[0]!)} (${name})` : `${what}: ${name}`;
+  const parts = [`<style>${PAGE_CSS}</style>`, `<div class="rl-page" data-view="${what === 'Waveforms' ? 'waveforms' : 'comparison'}">`, `<h1>${escapeMarkup(title)}</h1>`];
+  if (chosen.length === 0) {
+    parts.push(rectifierId === undefined
+      ? '<p class="rl-na">No rectifier was recognised in this file.</p>'
+      : `<p class="rl-na">No rectifier with id ${escapeMarkup(rectifierId)} in this file (it may have changed since the view was asked for).</p>`);
+  }
+  for (const analysis of chosen) {
+    parts.push(`<section class="rl-card" data-rectifier="${escapeMarkup(analysis.rectifier.id)}">`, `<h2>${escapeMarkup(rectifierLabel(analysis))}</h2>`);
+    if (needsCaution(analysis)) parts.push(renderCautionHtml());
+    parts.push(section(analysis), '</section>');
+  }
+  if (rectifierId === undefined && file.rectifiers.length > chosen.length) {
+    parts.push(`<p class="rl-sub">Showing the first ${chosen.length} of ${file.rectifiers.length} rectifiers; open the view from a rectifier's code lens for the others.</p>`);
+  }
+  parts.push('</div>');
+  return { title, body: parts.join('\n') };
+}
+
+function periodSummary(c: NonNullable<ReturnType<typeof defaultPeriodCorner>>): string {
+  return `Output ${formatSi(c.vOutAvgV, 'V')} average, ripple ${formatSi(c.rippleVpp, 'V')} p-p, efficiency ${formatPercent(c.efficiency)}, power factor ${c.powerFactor?.toFixed(3) ?? '—'}.`;
+}
+
+function fileName(uri: string): string {
+  const tail = uri.split(/[\\/]/).pop() ?? uri;
+  try {
+    return decodeURIComponent(tail);
+  } catch {
+    return tail;
+  }
+}
