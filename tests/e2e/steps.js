@@ -60,8 +60,8 @@ function wordPoint(page, lineStart, word) {
 }
 
 async function runCommand(page, title) {
-  // A webview keeps the keyboard; give it back to the workbench first.
-  await page.locator('.sidebar .title-label').first().click().catch(() => {});
+  // A webview keeps the keyboard; give it back to the netlist editor first.
+  await page.locator(`${EDITOR} .view-lines`).first().click({ position: { x: 5, y: 5 } }).catch(() => {});
   await page.keyboard.press('Escape');
   await page.keyboard.press('F1');
   await page.waitForSelector('.quick-input-widget input', { timeout: 30000 });
@@ -141,7 +141,10 @@ async function quickFix({ page, check, shot, log }) {
   const items = await page.locator('.action-widget .monaco-list-row').allTextContents();
   log('quick-fix menu:', items.join(' | '));
   await shot('06-quick-fix-menu');
-  await page.locator('.action-widget .monaco-list-row', { hasText: /Swap/i }).first().click();
+  // The menu has the keyboard: move to the swap entry and accept it.
+  const index = items.findIndex((t) => /swap/i.test(t));
+  for (let i = 0; i < index - 1; i++) await page.keyboard.press('ArrowDown');
+  await page.keyboard.press('Enter');
   await page.waitForFunction((sel) => [...document.querySelectorAll(`${sel} .view-line`)].some((l) => l.textContent.replace(/\u00a0/g, ' ').startsWith('D3 0 l1 D100')), EDITOR, { timeout: 30000 });
   const line = 'D3 0 l1 D100';
   await page.waitForFunction(([sel, n]) => document.querySelectorAll(`${sel} .squiggly-error`).length < n, [EDITOR, before], { timeout: 30000 }).catch(() => {});

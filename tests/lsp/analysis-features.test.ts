@@ -77,3 +77,4 @@ describe('analysis features over the protocol', () => {
     expect(lenses![1]!.range.start.line).toBe(4);
   });
 });
+

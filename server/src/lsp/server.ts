@@ -81,7 +81,7 @@ export function startServer(connection: Connection): void {
   connection.onInitialize((params: InitializeParams): InitializeResult => {
     const options = (params.initializationOptions ?? {}) as { trusted?: boolean; settings?: AnalysisSettings };
     trust = { trusted: options.trusted !== false, folders: (params.workspaceFolders ?? []).map((f) => f.uri) };
-    if (options.settings) settings = { ...DEFAULT_SETTINGS, ...options.settings };
+    if (options.settings) settings = { ...DEFAULT_SETTINGS, ...withoutEmpty(options.settings) };
     pullConfiguration = Boolean(params.capabilities.workspace?.configuration);
     return {
       capabilities: {
@@ -119,7 +119,7 @@ export function startServer(connection: Connection): void {
   }
 
   function applySettings(next: AnalysisSettings & { partsFiles?: unknown }): void {
-    const { partsFiles: paths, ...rest } = next;
+    const { partsFiles: paths, ...rest } = withoutEmpty(next);
     settings = { ...DEFAULT_SETTINGS, ...rest };
     partsFiles = readPartsFiles(Array.isArray(paths) ? paths.filter((p): p is string => typeof p === 'string') : [], trust, readText);
     scheduler.schedule(documents.all().map((d) => d.uri));
@@ -207,4 +207,19 @@ export function startServer(connection: Connection): void {
   registerEditorFeatures(context, guard);
   documents.listen(connection);
   connection.listen();
+}
+
+/**
+ * Drops null and non-finite entries: an editor reports a setting with no default as null, and
+ * that must mean "use the default", never zero.
+ */
+function withoutEmpty<T>(value: T): T {
+  if (Array.isArray(value)) return value;
+  if (value === null || typeof value !== 'object') return value;
+  const out: Record<string, unknown> = {};
+  for (const [k, v] of Object.entries(value as Record<string, unknown>)) {
+    if (v === null || v === undefined || (typeof v === 'number' && !Number.isFinite(v))) continue;
+    out[k] = typeof v === 'object' ? withoutEmpty(v) : v;
+  }
+  return out as T;
 }

@@ -18,11 +18,13 @@ import type { RuleInput } from './registry';
 export function deratingSettings(settings: AnalysisSettings): DeratingSettings {
   const d = settings.derating ?? {};
   const out: DeratingSettings = {};
-  if (d.reverseVoltage !== undefined) out.vr = d.reverseVoltage;
-  if (d.forwardCurrent !== undefined) out.if = d.forwardCurrent;
-  if (d.surgeCurrent !== undefined) out.ifsm = d.surgeCurrent;
-  if (d.junctionTempC !== undefined) out.tj = d.junctionTempC;
-  if (d.capacitorVoltage !== undefined) out.cap = d.capacitorVoltage;
+  // Only real numbers count: an unset editor setting may arrive as null.
+  const given = (v: unknown): v is number => typeof v === 'number' && Number.isFinite(v);
+  if (given(d.reverseVoltage)) out.vr = d.reverseVoltage;
+  if (given(d.forwardCurrent)) out.if = d.forwardCurrent;
+  if (given(d.surgeCurrent)) out.ifsm = d.surgeCurrent;
+  if (given(d.junctionTempC)) out.tj = d.junctionTempC;
+  if (given(d.capacitorVoltage)) out.cap = d.capacitorVoltage;
   return out;
 }
 
