@@ -6,7 +6,7 @@ const path = require('path');
 const DEMO = 'led-driver-230v.cir';
 const MISTAKES = 'mistakes-demo.cir';
 /** The card of the reversed diode in the mistakes example, as rendered. */
-const REVERSED = 'D3 l1 0 D100';
+const REVERSED = 'D3 l1 0 D400';
 const EDITOR = '.editor-instance .monaco-editor';
 
 /** Opens a workspace file from the Explorer (Quick Open when the row is not visible). */
@@ -145,8 +145,8 @@ async function quickFix({ page, check, shot, log }) {
   const index = items.findIndex((t) => /swap/i.test(t));
   for (let i = 0; i < index - 1; i++) await page.keyboard.press('ArrowDown');
   await page.keyboard.press('Enter');
-  await page.waitForFunction((sel) => [...document.querySelectorAll(`${sel} .view-line`)].some((l) => l.textContent.replace(/\u00a0/g, ' ').startsWith('D3 0 l1 D100')), EDITOR, { timeout: 30000 });
-  const line = 'D3 0 l1 D100';
+  await page.waitForFunction((sel) => [...document.querySelectorAll(`${sel} .view-line`)].some((l) => l.textContent.replace(/\u00a0/g, ' ').startsWith('D3 0 l1 D400')), EDITOR, { timeout: 30000 });
+  const line = 'D3 0 l1 D400';
   await page.waitForFunction(([sel, n]) => document.querySelectorAll(`${sel} .squiggly-error`).length < n, [EDITOR, before], { timeout: 30000 }).catch(() => {});
   const after = await page.locator(`${EDITOR} .squiggly-error`).count();
   check('quick fix from the editor menu swaps the reversed diode and its error goes', after < before, { before, after, line });
