@@ -2,6 +2,7 @@
 export function generateNetlist(lineCount: number, rectifierEvery = 100): string {
   const lines: string[] = ['Generated benchmark netlist (synthetic)', '*@ mains 230V 50Hz tol=-10%,+10%', '*@ ambient 25C..50C'];
   lines.push('.model DGEN D(IS=2.5n N=1.75 RS=0.04)', '*@ rate DGEN vrrm=600V ifav=1A ifsm=30A tjmax=150C rthja=100');
+  lines.push('.subckt FILTER in out ref rval=1k cval=1n', 'R1 in out {rval}', 'C1 out ref {cval}', '.ends FILTER');
   let block = 0;
   while (lines.length < lineCount) {
     const b = block++;

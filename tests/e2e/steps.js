@@ -116,6 +116,11 @@ async function hover({ page, check, shot }) {
     await page.waitForFunction(() => /VRRM/.test([...document.querySelectorAll('.monaco-hover')].map((e) => e.textContent).join(' ')), null, { timeout: 5000 }).catch(() => {});
     text = (await page.locator('.monaco-hover').allTextContents()).join(' | ');
   }
+  // The hover fades in; the screenshot waits until it is fully opaque.
+  await page.waitForFunction(() => [...document.querySelectorAll('.monaco-hover')].some((el) => {
+    for (let e = el; e; e = e.parentElement) if (Number(getComputedStyle(e).opacity) < 1) return false;
+    return /VRRM/.test(el.textContent);
+  }), null, { timeout: 10000 }).catch(() => {});
   check('hover on a bridge diode shows its stress table with the corner and the rating', /PIV/.test(text) && /high-line/.test(text) && /VRRM 600 V/.test(text), text.slice(0, 200));
   await shot('04-hover');
   await page.mouse.move(5, 5);

@@ -10,7 +10,8 @@ import { recognizeRectifiers, type NearMiss } from '../recognize/index';
 import { applyRules } from '../rules/registry';
 import { filterAllowed } from '../rules/allow';
 import { compareFindings, type Finding } from './findings';
-import { analyseRectifiers, type RectifierAnalysis, type SolutionCache } from './rectifier-analysis';
+import { analyseRectifiers, type RectifierAnalysis } from './rectifier-analysis';
+import { memoisedSolver, type SolutionCache } from './solver-memo';
 import type { AnalysisSettings } from './settings';
 
 export interface AnalysisInput {
@@ -75,10 +76,11 @@ function analyzeRoot(uri: string, input: AnalysisInput, cache: Map<string, Netli
   const flat = elaborate(uri, load);
   const recognition = recognizeRectifiers(flat);
   const settings = input.settings ?? {};
-  const { analyses, findings: assumptions } = analyseRectifiers(flat, recognition.rectifiers, settings, input.partsFiles ?? [], input.solutionCache);
+  const solve = memoisedSolver(input.solutionCache);
+  const { analyses, findings: assumptions } = analyseRectifiers(flat, recognition.rectifiers, settings, input.partsFiles ?? [], solve);
   const syntax = [...parsed].flatMap(([fileUri, n]) => n.diagnostics.map((d) => ({ uri: fileUri, ...d })));
   const ruleFindings = applyRules({
-    rootUri: uri, netlist, flat, rectifiers: analyses, nearMisses: recognition.nearMisses, settings, partsFiles: input.partsFiles ?? [], parsed,
+    rootUri: uri, netlist, flat, rectifiers: analyses, nearMisses: recognition.nearMisses, settings, partsFiles: input.partsFiles ?? [], parsed, solve,
   });
   // `*@ allow` covers the findings of recognition and elaboration of the rectifiers too.
   const accepted = filterAllowed([...recognition.diagnostics, ...assumptions], flat.directives, parsed);

@@ -1,14 +1,14 @@
 /**
  * One recognised rectifier taken through ratings and the solver: its parts' ratings (with their
- * origins), its equivalent circuit, its corners and the solution. Solutions are memoised by their
- * exact inputs in a cache the adapter owns, so an edit elsewhere in the file re-solves nothing.
+ * origins), its equivalent circuit, its corners and the solution (through the memoised solver).
  */
 import type { FlatCircuit, FlatModel } from '../circuit/index';
 import type { Finding } from './findings';
 import type { AnalysisSettings } from './settings';
 import { createRatingResolver, type PartsFile, type RatingsOf, type ResolvedRatings } from '../ratings/index';
 import { toEquivalentCircuit, type DeviceRatingHints, type Rectifier, type RectifierDeviceRef } from '../recognize/index';
-import { defaultCorners, solveRectifier, type Corner, type EquivalentCircuit, type RectifierSolution } from '../solve/index';
+import { defaultCorners, type Corner, type EquivalentCircuit, type RectifierSolution } from '../solve/index';
+import type { SolveFn } from './solver-memo';
 
 export interface DeviceAnalysis {
   ref: RectifierDeviceRef;
@@ -32,14 +32,10 @@ export interface RectifierAnalysis {
   controller?: RatingsOf<'controller'>;
 }
 
-/** Cache of solutions by the JSON of their inputs; the adapter decides its lifetime. */
-export type SolutionCache = Map<string, RectifierSolution>;
-
-/** Largest cache the analysis fills; beyond it the oldest entries are dropped. */
-const CACHE_LIMIT = 2000;
+export type { SolutionCache } from './solver-memo';
 
 export function analyseRectifiers(
-  flat: FlatCircuit, rectifiers: readonly Rectifier[], settings: AnalysisSettings, partsFiles: readonly PartsFile[], cache?: SolutionCache,
+  flat: FlatCircuit, rectifiers: readonly Rectifier[], settings: AnalysisSettings, partsFiles: readonly PartsFile[], solve: SolveFn,
 ): { analyses: RectifierAnalysis[]; findings: Finding[] } {
   const resolve = createRatingResolver({ directives: flat.directives, partsFiles });
   const findings: Finding[] = [];
@@ -49,7 +45,7 @@ export function analyseRectifiers(
     const { circuit, diagnostics } = toEquivalentCircuit(rectifier, flat.models, hints);
     findings.push(...diagnostics);
     const corners = cornersFor(rectifier, flat, settings);
-    const solution = solveCached(circuit, corners, cache);
+    const solution = solve(circuit, corners);
     const capacitors = rectifier.surroundings.capacitors.flatMap((c) => c.names).map((name) => ({
       name, ratings: resolve({ kind: 'capacitor', instanceName: name }).ratings,
     }));
@@ -100,15 +96,4 @@ function cornersFor(rectifier: Rectifier, flat: FlatCircuit, settings: AnalysisS
     ambientNominalC: fromAmbient?.nominalC ?? settings.corners?.ambientNominalC,
     ambientMaxC: fromAmbient?.maxC ?? settings.corners?.ambientMaxC,
   });
-}
-
-function solveCached(circuit: EquivalentCircuit, corners: Corner[], cache: SolutionCache | undefined): RectifierSolution {
-  if (!cache) return solveRectifier(circuit, corners);
-  const cacheKey = JSON.stringify([circuit, corners]);
-  const hit = cache.get(cacheKey);
-  if (hit) return hit;
-  const solution = solveRectifier(circuit, corners);
-  if (cache.size >= CACHE_LIMIT) cache.delete(cache.keys().next().value!);
-  cache.set(cacheKey, solution);
-  return solution;
 }

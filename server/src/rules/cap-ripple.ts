@@ -27,7 +27,7 @@ export const capRippleRule: Rule = {
       if (!rated || !view.irmsA) continue;
       const severity = severityOf(view.irmsA.value, rated.value, ripple.value);
       if (!severity) continue;
-      const fix = capacitorBankFix(view, ripple.value, files);
+      const fix = capacitorBankFix(view, ripple.value, files, input.solve);
       findings.push({
         ...placeOf(view.element.origin, view.name), severity, code: 'cap-ripple',
         message: `${view.name}: ripple current ${fmt(view.irmsA.value)} A rms at ${view.irmsA.corner} is ${pct(view.irmsA.value / rated.value)} ` +

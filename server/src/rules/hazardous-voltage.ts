@@ -15,7 +15,7 @@ import type { Finding } from '../analysis/findings';
 import { anchorOf, type SourceElement } from '../circuit/index';
 import { ELV_SOURCE, isAboveExtraLowVoltage, MAINS_CAUTION } from '../ratings/index';
 import type { Rule, RuleInput } from './registry';
-import { fmt } from './rule-context';
+import { circuitIndexOf, fmt } from './rule-context';
 
 export const hazardousVoltageRule: Rule = {
   code: 'hazardous-voltage',
@@ -47,8 +47,8 @@ export const hazardousVoltageRule: Rule = {
   },
 };
 
-function sourceElements(input: RuleInput): SourceElement[] {
-  return input.flat.elements.filter((e): e is SourceElement => e.kind === 'vsource');
+function sourceElements(input: RuleInput): readonly SourceElement[] {
+  return circuitIndexOf(input).voltageSources;
 }
 
 function caution(place: Pick<Finding, 'uri' | 'span'>, what: string): Finding {

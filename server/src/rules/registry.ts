@@ -8,6 +8,7 @@ import type { FlatCircuit } from '../circuit/index';
 import type { Finding } from '../analysis/findings';
 import type { RectifierAnalysis } from '../analysis/rectifier-analysis';
 import type { AnalysisSettings } from '../analysis/settings';
+import type { SolveFn } from '../analysis/solver-memo';
 import type { PartsFile } from '../ratings/index';
 import type { NearMiss } from '../recognize/index';
 import { ALL_RULES } from './all-rules';
@@ -24,6 +25,8 @@ export interface RuleInput {
   partsFiles?: readonly PartsFile[];
   /** Every file the analysis parsed, by URI (the root included), for fixes that edit them. */
   parsed?: ReadonlyMap<string, Netlist>;
+  /** The solver for fix trials, memoised across analyses by the adapter's cache; plain solving when absent. */
+  solve?: SolveFn;
 }
 
 export interface Rule {

@@ -3,7 +3,7 @@
  * the severity of a figure against a rating and its derated limit, and number formatting.
  */
 import type { Severity } from '../../../grammar/src/index';
-import { anchorOf, type Origin } from '../circuit/index';
+import { anchorOf, type FlatElement, type Origin, type SourceElement } from '../circuit/index';
 import type { Finding, RelatedPlace } from '../analysis/findings';
 import type { AnalysisSettings } from '../analysis/settings';
 import type { DeviceAnalysis, RectifierAnalysis } from '../analysis/rectifier-analysis';
@@ -103,4 +103,29 @@ export function ratingTag(rated: Rated<number>): string {
 /** The full origin of a rating, for related messages. */
 export function ratingOriginText(rated: Rated<number>): string {
   return describeOrigin(rated.origin);
+}
+
+/** Look-ups over the flat circuit that several rules need, built once per analysis. */
+export interface CircuitIndex {
+  elementKeys: ReadonlySet<string>;
+  nodeNames: ReadonlySet<string>;
+  voltageSources: readonly SourceElement[];
+  byKey: ReadonlyMap<string, FlatElement>;
+}
+
+const indexes = new WeakMap<RuleInput, CircuitIndex>();
+
+export function circuitIndexOf(input: RuleInput): CircuitIndex {
+  let index = indexes.get(input);
+  if (!index) {
+    const elements = input.flat.elements;
+    index = {
+      elementKeys: new Set(elements.map((e) => e.key)),
+      nodeNames: new Set(elements.flatMap((e) => e.terminals.map((t) => t.node))),
+      voltageSources: elements.filter((e): e is SourceElement => e.kind === 'vsource'),
+      byKey: new Map(elements.map((e) => [e.key, e])),
+    };
+    indexes.set(input, index);
+  }
+  return index;
 }

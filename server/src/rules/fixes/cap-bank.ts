@@ -16,6 +16,7 @@ import type { Fix, TextEdit } from '../../analysis/findings';
 import type { Netlist } from '../../../../grammar/src/index';
 import type { RectifierAnalysis } from '../../analysis/rectifier-analysis';
 import { solveRectifier } from '../../solve/index';
+import type { SolveFn } from '../../analysis/solver-memo';
 import type { CapacitorView } from '../capacitor-view';
 import { fmt } from '../rule-context';
 import { cardAt, insertLinesBefore, spiceNumber } from './text-edits';
@@ -24,7 +25,9 @@ import { cardAt, insertLinesBefore, spiceNumber } from './text-edits';
 const MAX_PARTS = 12;
 
 /** The bank fix for a capacitor whose ripple exceeds `allowedFraction` of its rating. */
-export function capacitorBankFix(view: CapacitorView, allowedFraction: number, files: ReadonlyMap<string, Netlist>): Fix | undefined {
+export function capacitorBankFix(
+  view: CapacitorView, allowedFraction: number, files: ReadonlyMap<string, Netlist>, solve: SolveFn = solveRectifier,
+): Fix | undefined {
   const rated = view.ratings.iRippleA;
   const cF = view.element.value;
   const netlist = files.get(view.element.origin.uri);
@@ -32,7 +35,7 @@ export function capacitorBankFix(view: CapacitorView, allowedFraction: number, f
   if (!rated || rated.origin.kind !== 'rate-directive' || !cF || !netlist || card?.kind !== 'passive' || !card.value || !view.irmsA) return undefined;
   const start = Math.max(2, Math.ceil(view.irmsA.value / (allowedFraction * rated.value)));
   for (let n = start; n <= MAX_PARTS; n++) {
-    const perPartA = rippleShareWithBank(view.analysis, view.group, cF, n);
+    const perPartA = rippleShareWithBank(view.analysis, view.group, cF, n, solve);
     if (perPartA > allowedFraction * rated.value) continue;
     const v = card.value;
     const valueText = v.form === 'number' ? spiceNumber(n * cF) : `{${n}*(${v.text.replace(/^[{']|[}']$/g, '')})}`;
@@ -53,10 +56,10 @@ export function capacitorBankFix(view: CapacitorView, allowedFraction: number, f
 }
 
 /** Worst RMS ripple per part when the capacitor becomes a bank of `n`, over every corner. */
-export function rippleShareWithBank(analysis: RectifierAnalysis, group: number, partF: number, n: number): number {
+export function rippleShareWithBank(analysis: RectifierAnalysis, group: number, partF: number, n: number, solve: SolveFn = solveRectifier): number {
   const caps = analysis.circuit.capacitors.map((c, k) => (k === group ? { ...c, cF: c.cF + (n - 1) * partF } : c));
   const groupF = caps[group]!.cF;
-  const solution = solveRectifier({ ...analysis.circuit, capacitors: caps }, analysis.corners, { waveformPoints: 0, inrush: false });
+  const solution = solve({ ...analysis.circuit, capacitors: caps }, analysis.corners, { waveformPoints: 0, inrush: false });
   const worst = Math.max(0, ...solution.corners.map((c) => c.capacitorIrmsA?.[group] ?? 0));
   return (worst * (n * partF)) / groupF / n;
 }

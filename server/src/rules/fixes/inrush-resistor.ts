@@ -15,8 +15,9 @@ import type { RectifierAnalysis } from '../../analysis/rectifier-analysis';
 import type { SourceElement } from '../../circuit/index';
 import { E_SERIES_SOURCE, nextPreferredValue, type DeratingPolicy } from '../../ratings/index';
 import { solveRectifier, type RectifierSolution } from '../../solve/index';
+import type { SolveFn } from '../../analysis/solver-memo';
 import type { RuleInput } from '../registry';
-import { fmt, policyOf } from '../rule-context';
+import { circuitIndexOf, fmt, policyOf } from '../rule-context';
 import { surgeCapability, surgeFigureA, surgeStressOf } from '../surge-stress';
 import { cardAt, insertLinesAfter, spiceNumber } from './text-edits';
 
@@ -38,7 +39,7 @@ function buildFix(input: RuleInput, analysis: RectifierAnalysis): Fix | undefine
   const card = source && cardAt(input.netlist, source.origin.span);
   if (!source || card?.kind !== 'source' || !card.nodes[0]) return undefined;
   const policy = policyOf(input);
-  const trial = (ohm: number) => solveWithSeries(analysis, ohm);
+  const trial = (ohm: number) => solveWithSeries(analysis, ohm, input.solve);
   let lo = 0;
   let hi = INRUSH_LADDER_OHM.length - 1;
   let best: { ohm: number; solution: RectifierSolution } | undefined;
@@ -48,9 +49,10 @@ function buildFix(input: RuleInput, analysis: RectifierAnalysis): Fix | undefine
     if (surgePasses(analysis, solution, policy)) { best = { ohm: INRUSH_LADDER_OHM[mid]!, solution }; hi = mid - 1; } else lo = mid + 1;
   }
   if (!best) return undefined;
-  const name = freshName('RINRUSH', (n) => input.flat.elements.some((e) => e.key === n.toLowerCase()));
+  const index = circuitIndexOf(input);
+  const name = freshName('RINRUSH', (n) => index.elementKeys.has(n.toLowerCase()));
   const oldNode = card.nodes[0];
-  const newNode = freshName(`${oldNode.text}_rin`, (n) => input.flat.elements.some((e) => e.terminals.some((t) => t.node === n.toLowerCase())));
+  const newNode = freshName(`${oldNode.text}_rin`, (n) => index.nodeNames.has(n.toLowerCase()));
   const irms = Math.max(...best.solution.corners.map((c) => c.sourceIrmsA ?? 0));
   return {
     title: `Insert ${name} ${fmt(best.ohm)} Ω (E12, ${E_SERIES_SOURCE.split(',')[0]}) in series with ${source.name}: ` +
@@ -67,18 +69,18 @@ function sourceOf(input: RuleInput, analysis: RectifierAnalysis): SourceElement 
   const found = analysis.rectifier.surroundings.source;
   if (found.assumed || analysis.rectifier.kind === 'three-phase-bridge') return undefined;
   const names = new Set(found.elements.map((n) => n.toLowerCase()));
-  const sources = input.flat.elements.filter((e): e is SourceElement => e.kind === 'vsource' && names.has(e.key));
+  const sources = circuitIndexOf(input).voltageSources.filter((e) => names.has(e.key));
   const source = sources.length === 1 ? sources[0] : undefined;
   return source && source.origin.chain.length === 0 && source.origin.uri === input.rootUri ? source : undefined;
 }
 
 /** The high-line corners re-solved with `ohm` more in series on the source side. */
-export function solveWithSeries(analysis: RectifierAnalysis, ohm: number): RectifierSolution {
+export function solveWithSeries(analysis: RectifierAnalysis, ohm: number, solve: SolveFn = solveRectifier): RectifierSolution {
   const src = analysis.circuit.source;
   const tr = src.turnsRatio > 0 ? src.turnsRatio : 1;
   const circuit = { ...analysis.circuit, source: { ...src, seriesROhm: src.seriesROhm + ohm * tr * tr } };
   const top = Math.max(...analysis.corners.map((c) => c.lineScale));
-  return solveRectifier(circuit, analysis.corners.filter((c) => c.lineScale === top), { waveformPoints: 0 });
+  return solve(circuit, analysis.corners.filter((c) => c.lineScale === top), { waveformPoints: 0 });
 }
 
 /** Whether every rated device's surge is within its derated IFSM in `solution`. */

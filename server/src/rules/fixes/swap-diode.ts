@@ -16,6 +16,7 @@ import {
   type DeratingPolicy, type DiodePart, type DiodeRatings,
 } from '../../ratings/index';
 import { solveRectifier, type EquivalentCircuit, type RectifierSolution } from '../../solve/index';
+import type { SolveFn } from '../../analysis/solver-memo';
 import type { RuleInput } from '../registry';
 import { fmt, policyOf } from '../rule-context';
 import { surgeCapability, surgeFigureA, surgeStressOf } from '../surge-stress';
@@ -51,7 +52,7 @@ function buildFix(input: RuleInput, analysis: RectifierAnalysis, group: readonly
   for (let tries = 0; tries < MAX_VERIFIED; tries++) {
     const part = selectPassingPart(requirement, candidates);
     if (!part) return undefined;
-    if (passesAfterSwap(analysis, group, part, policy)) return toFix(input, analysis, group, part);
+    if (passesAfterSwap(analysis, group, part, policy, input.solve)) return toFix(input, analysis, group, part);
     candidates = candidates.filter((p) => p !== part);
   }
   return undefined;
@@ -67,9 +68,11 @@ function groupStress(analysis: RectifierAnalysis, group: readonly number[]) {
 }
 
 /** Re-solves the rectifier with the part's forward model in the group's places and checks every stress rule. */
-export function passesAfterSwap(analysis: RectifierAnalysis, group: readonly number[], part: DiodePart, policy: DeratingPolicy): boolean {
+export function passesAfterSwap(
+  analysis: RectifierAnalysis, group: readonly number[], part: DiodePart, policy: DeratingPolicy, solve: SolveFn = solveRectifier,
+): boolean {
   const circuit = swappedCircuit(analysis.circuit, group, part);
-  const solution = solveRectifier(circuit, analysis.corners, { waveformPoints: 0 });
+  const solution = solve(circuit, analysis.corners, { waveformPoints: 0 });
   const trial: RectifierAnalysis = { ...analysis, circuit, solution };
   return group.every((k) => devicePasses(trial, solution, k, part.ratings, policy));
 }
