@@ -17,7 +17,7 @@ describe('README', () => {
 
   it('shows pictures that exist in the repository', () => {
     const images = [...README.matchAll(/!\[[^\]]+\]\(([^)]+)\)/g)].map((m) => m[1]!);
-    expect(images).toEqual(['docs/report.png', 'docs/report-waveforms.png']);
+    expect(images).toEqual(['docs/report.png', 'docs/report-waveforms.png', 'docs/editor-hover.png']);
     for (const image of images) expect(existsSync(join(ROOT, image)), image).toBe(true);
   });
 
