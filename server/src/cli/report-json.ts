@@ -2,6 +2,7 @@
 import type { FileAnalysis, Snapshot } from '../analysis/analyze';
 import { LineIndex } from '../analysis/line-index';
 import type { RectifierAnalysis } from '../analysis/rectifier-analysis';
+import type { DeviceSolution } from '../solve/index';
 
 export interface JsonDiagnostic {
   line: number;
@@ -13,15 +14,7 @@ export interface JsonDiagnostic {
   message: string;
 }
 
-export interface JsonDevice {
-  name: string;
-  pivV?: number;
-  ipkA?: number;
-  iavgA?: number;
-  irmsA?: number;
-  lossW?: number;
-  tjC?: number;
-}
+export type JsonDevice = Pick<DeviceSolution, 'name' | 'pivV' | 'ipkA' | 'iavgA' | 'irmsA' | 'lossW' | 'tjC'>;
 
 export interface JsonCorner {
   name: string;

@@ -3,6 +3,7 @@
  * came from and how far to trust it (a directive the user wrote, a parts-file entry, a catalog
  * entry with its source, or the `.model BV` fallback). SI units, temperatures in °C.
  */
+import type { DiodeParams } from '../solve/equivalent-circuit';
 import type { ForwardPoint, Span } from '../../../grammar/src/index';
 
 export type { ForwardPoint } from '../../../grammar/src/index';
@@ -140,14 +141,7 @@ export type RatingsOf<K extends PartKind> = Extract<PartRatings, { kind: K }>;
  * A SPICE diode model (IS, N, RS, EG, XTI; Berkeley SPICE3 diode model) suggested for a part
  * whose `.model` carries no parameters, with the reason it may be trusted as far as it may.
  */
-export interface ForwardModel {
-  isA: number;
-  n: number;
-  rsOhm: number;
-  egEv: number;
-  xti: number;
-  /** Temperature the fitted points describe. */
-  tnomC: number;
+export interface ForwardModel extends DiodeParams {
   /** Where the fit comes from, for the hint. */
   note: string;
 }

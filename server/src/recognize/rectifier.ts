@@ -4,7 +4,7 @@
  */
 import type { MainsDirective } from '../../../grammar/src/index';
 import type { CoreDiagnostic, CoreFix, Origin, Place } from '../circuit/index';
-import type { DeviceRole, Load, RectifierKind } from '../solve/equivalent-circuit';
+import type { AcSource, DeviceRole, Load, RectifierKind } from '../solve/equivalent-circuit';
 
 /** How a MOSFET's gate is driven. */
 export type GateDrive = 'controller' | 'self-driven' | 'undriven';
@@ -46,15 +46,7 @@ export interface TransformerFinding {
 }
 
 /** The AC source as the rectifier sees it, referred through any transformer. */
-export interface SourceFinding {
-  vrms: number;
-  freqHz: number;
-  seriesROhm: number;
-  seriesLH: number;
-  /** RMS of the mains (or the source) before any transformer. */
-  mainsVrms: number;
-  /** Ratio that refers source-side quantities to the rectifier side (1 without a transformer). */
-  turnsRatio: number;
+export interface SourceFinding extends AcSource {
   /** Names of the sources, resistors, inductors and windings in the loop. */
   elements: string[];
   transformer?: TransformerFinding;
