@@ -17,4 +17,6 @@ if [ "${#missing[@]}" -gt 0 ]; then
   apt-get install -y -q "${missing[@]}" >/tmp/rectilens-apt.log 2>&1 || { tail -30 /tmp/rectilens-apt.log; exit 1; }
 fi
 
-bash ../shared/vscode-e2e/setup.sh >/tmp/rectilens-e2e-setup.log 2>&1 || { tail -30 /tmp/rectilens-e2e-setup.log; exit 1; }
+KIT=../shared/vscode-e2e
+[ -f "$KIT/setup.sh" ] || { echo "the shared VS Code end-to-end kit is missing: expected $KIT/setup.sh beside this checkout" >&2; exit 1; }
+bash "$KIT/setup.sh" >/tmp/rectilens-e2e-setup.log 2>&1 || { tail -30 /tmp/rectilens-e2e-setup.log; exit 1; }

@@ -4,14 +4,9 @@
  */
 import * as vscode from 'vscode';
 import type { LanguageClient } from 'vscode-languageclient/node';
+import { viewPage, type ViewContent } from './view-page';
 
 export type ViewKind = 'waveforms' | 'comparison';
-
-interface ViewContent {
-  title: string;
-  /** Self-contained HTML body (SVG and tables) rendered by the server. */
-  body: string;
-}
 
 export async function showAnalysisView(
   context: vscode.ExtensionContext, client: LanguageClient, kind: ViewKind, uri: string, rectifierId?: string,
@@ -26,17 +21,5 @@ export async function showAnalysisView(
     localResourceRoots: [],
   });
   context.subscriptions.push(panel);
-  panel.webview.html = pageOf(content, panel.webview.cspSource);
-}
-
-function pageOf(content: ViewContent, cspSource: string): string {
-  return `<!DOCTYPE html>
-<html lang="en"><head><meta charset="utf-8">
-<meta http-equiv="Content-Security-Policy" content="default-src 'none'; img-src ${cspSource} data:; style-src 'unsafe-inline';">
-<title>${escapeHtml(content.title)}</title></head>
-<body>${content.body}</body></html>`;
-}
-
-function escapeHtml(text: string): string {
-  return text.replace(/[&<>"]/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;' })[c]!);
+  panel.webview.html = viewPage(content, panel.webview.cspSource);
 }

@@ -134,6 +134,8 @@ function readTolerance(value: Word, record: MainsDirective, report: Report): voi
   }
 }
 
+const ABSOLUTE_ZERO_C = -273.15;
+
 function readAmbient(words: Word[], span: Span, report: Report): AmbientDirective {
   const record: AmbientDirective = { keyword: 'ambient', span };
   const word = words[0];
@@ -151,6 +153,12 @@ function readAmbient(words: Word[], span: Span, report: Report): AmbientDirectiv
     }
   } else {
     record.nominalC = record.maxC = readQuantity(word, 'C', report, span);
+  }
+  // Below absolute zero the device models' kelvin temperatures turn negative and the solver's figures NaN.
+  if ((record.nominalC ?? 0) < ABSOLUTE_ZERO_C || (record.maxC ?? 0) < ABSOLUTE_ZERO_C) {
+    report(word, `ambient below absolute zero (${ABSOLUTE_ZERO_C} °C)`);
+    delete record.nominalC;
+    delete record.maxC;
   }
   for (const extra of words.slice(1)) report(extra, `unexpected '${extra.text}'; ambient takes one range such as 25C..60C`);
   return record;
@@ -220,8 +228,15 @@ function readRatingEntry(word: Word, report: Report): RatingEntry | undefined {
     if (ratingKey !== 'ifsm') report(duration, `only ifsm takes a duration after '@'`);
     else entry.durationS = readQuantity(duration, 's', report, word);
   }
+  // Stresses are reported as a fraction of these ratings: a zero or negative one has no meaning.
+  if (entry.value !== undefined && POSITIVE_RATINGS.has(ratingKey) && !(entry.value > 0)) {
+    report(word, `rating '${key}' must be above zero`);
+    return undefined;
+  }
   return entry.value === undefined ? undefined : entry;
 }
+
+const POSITIVE_RATINGS: ReadonlySet<RatingKey> = new Set(['vrrm', 'ifav', 'ifsm', 'vds', 'id', 'vrated', 'iripple']);
 
 function splitAt(word: Word): [Word, Word | undefined] {
   const at = word.text.indexOf('@');

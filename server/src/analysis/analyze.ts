@@ -11,8 +11,9 @@ import { applyRules } from '../rules/registry';
 import { filterAllowed } from '../rules/allow';
 import { compareFindings, type Finding } from './findings';
 import { analyseRectifiers, type RectifierAnalysis } from './rectifier-analysis';
-import { memoisedSolver, type SolutionCache } from './solver-memo';
+import { memoisedSolver, type SolutionCache, type SolveFn } from './solver-memo';
 import type { AnalysisSettings } from './settings';
+import { DEFAULT_LIMITS, parseWithinLimits, solverFindings, unsolvedFinding, type AnalysisLimits } from './limits';
 
 export interface AnalysisInput {
   /** The files to analyse as top-level netlists (URIs or paths, as the adapter names them). */
@@ -24,6 +25,13 @@ export interface AnalysisInput {
   partsFiles?: readonly PartsFile[];
   /** Solutions kept between analyses by the adapter (see `SolutionCache`). */
   solutionCache?: SolutionCache;
+  /**
+   * A clock in milliseconds for the time budget (`performance.now` in the adapters). The core reads
+   * no clock itself; without one the budget is not enforced.
+   */
+  now?: () => number;
+  /** Overrides of the hard limits (tests lower them); see limits.ts. */
+  limits?: Partial<AnalysisLimits>;
 }
 
 export interface FileAnalysis {
@@ -60,12 +68,14 @@ export function analyze(input: AnalysisInput): Snapshot {
 }
 
 function analyzeRoot(uri: string, input: AnalysisInput, cache: Map<string, Netlist | undefined>): FileAnalysis | undefined {
+  const started = input.now?.();
+  const limits: AnalysisLimits = { ...DEFAULT_LIMITS, ...input.limits };
   const parsed = new Map<string, Netlist>();
   const load = (target: string): Netlist | undefined => {
     if (!cache.has(target)) {
       const text = input.readText(target);
       // Included files have no title line; only the root does.
-      cache.set(target, text === undefined ? undefined : parseNetlist(text, { titleLine: target === uri }));
+      cache.set(target, text === undefined ? undefined : parseWithinLimits(text, (t) => parseNetlist(t, { titleLine: target === uri }), limits));
     }
     const netlist = cache.get(target);
     if (netlist) parsed.set(target, netlist);
@@ -73,22 +83,35 @@ function analyzeRoot(uri: string, input: AnalysisInput, cache: Map<string, Netli
   };
   const netlist = load(uri);
   if (!netlist) return undefined;
-  const flat = elaborate(uri, load);
+  const flat = elaborate(uri, load, { maxDepth: limits.maxHierarchyDepth, maxElements: limits.maxElements });
   const recognition = recognizeRectifiers(flat);
   const settings = input.settings ?? {};
-  const solve = memoisedSolver(input.solutionCache);
-  const { analyses, findings: assumptions } = analyseRectifiers(flat, recognition.rectifiers, settings, input.partsFiles ?? [], solve);
+  const solve = withIterationLimit(memoisedSolver(input.solutionCache), limits.solverIterations);
+  const toSolve = recognition.rectifiers.slice(0, limits.maxRectifiers);
+  const outOfTime = input.now && started !== undefined ? () => input.now!() - started > limits.timeBudgetMs : undefined;
+  const { analyses, findings: assumptions } = analyseRectifiers(flat, toSolve, settings, input.partsFiles ?? [], solve, outOfTime);
+  const limitFindings = [
+    ...unsolvedFinding(toSolve.slice(analyses.length), `the analysis passed its time budget of ${limits.timeBudgetMs} ms (limit: time per analysis)`),
+    ...unsolvedFinding(recognition.rectifiers.slice(toSolve.length), `more than ${limits.maxRectifiers} rectifiers (limit: rectifiers solved per analysis)`),
+    ...solverFindings(analyses),
+  ];
   const syntax = [...parsed].flatMap(([fileUri, n]) => n.diagnostics.map((d) => ({ uri: fileUri, ...d })));
   const ruleFindings = applyRules({
     rootUri: uri, netlist, flat, rectifiers: analyses, nearMisses: recognition.nearMisses, settings, partsFiles: input.partsFiles ?? [], parsed, solve,
   });
   // `*@ allow` covers the findings of recognition and elaboration of the rectifiers too.
-  const accepted = filterAllowed([...recognition.diagnostics, ...assumptions], flat.directives, parsed);
+  const accepted = filterAllowed([...recognition.diagnostics, ...assumptions, ...limitFindings], flat.directives, parsed);
   const findings = dedupe([...syntax, ...flat.diagnostics, ...accepted, ...ruleFindings]).sort(compareFindings);
   return {
     uri, text: netlist.text, netlist, findings, dependencies: flat.dependencies.filter((d) => d !== uri), parsed, flat,
     rectifiers: analyses, nearMisses: recognition.nearMisses,
   };
+}
+
+/** The solver with a lowered Newton iteration cap, when the limits set one (tests do, to reach it). */
+function withIterationLimit(solve: SolveFn, maxIterations: number | undefined): SolveFn {
+  if (maxIterations === undefined) return solve;
+  return (circuit, corners, options) => solve(circuit, corners, { ...options, steadyState: { ...options?.steadyState, maxIterations } });
 }
 
 /** The same finding reached twice (e.g. a shared include) is reported once. */

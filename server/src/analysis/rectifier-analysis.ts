@@ -34,12 +34,19 @@ export interface RectifierAnalysis {
 
 export type { SolutionCache } from './solver-memo';
 
+/**
+ * Analyses the rectifiers in order. `outOfTime` is asked before each one; once it says yes the
+ * rest are left out (the caller reports them), so a time budget yields a partial result.
+ */
 export function analyseRectifiers(
   flat: FlatCircuit, rectifiers: readonly Rectifier[], settings: AnalysisSettings, partsFiles: readonly PartsFile[], solve: SolveFn,
+  outOfTime?: () => boolean,
 ): { analyses: RectifierAnalysis[]; findings: Finding[] } {
   const resolve = createRatingResolver({ directives: flat.directives, partsFiles });
   const findings: Finding[] = [];
-  const analyses = rectifiers.map((rectifier) => {
+  const analyses: RectifierAnalysis[] = [];
+  for (const rectifier of rectifiers) {
+    if (outOfTime?.()) break;
     const devices = rectifier.devices.map((ref) => resolveDevice(ref, flat, resolve));
     const hints = ratingHints(devices, resolve);
     const { circuit, diagnostics } = toEquivalentCircuit(rectifier, flat.models, hints);
@@ -52,8 +59,8 @@ export function analyseRectifiers(
     const controllerRef = rectifier.devices.flatMap((d) => d.controllers ?? [])[0];
     const analysis: RectifierAnalysis = { rectifier, circuit, corners, solution, devices, capacitors };
     if (controllerRef) analysis.controller = resolve({ kind: 'controller', instanceName: controllerRef.name, modelName: controllerRef.subckt }).ratings;
-    return analysis;
-  });
+    analyses.push(analysis);
+  }
   return { analyses, findings };
 }
 

@@ -20,7 +20,7 @@ export function runCheck(argv: readonly string[], io: CommandIo): number {
   const read = cachedReader();
   const snapshot = files.length >= PROGRESS_MIN_FILES && io.stderrIsTty
     ? analyzeWithProgress(files, read, io)
-    : analyze({ roots: files, readText: read });
+    : analyze({ roots: files, readText: read, now: () => performance.now() });
   for (const problem of problems) io.stderr(`rectilens: cannot read ${problem.path}: ${problem.reason}\n`);
   for (const path of snapshot.unreadable) io.stderr(`rectilens: cannot read ${path}\n`);
   const report = toJsonReport(snapshot);
@@ -47,7 +47,7 @@ function analyzeWithProgress(files: readonly string[], read: (path: string) => s
   const unreadable: string[] = [];
   files.forEach((path, k) => {
     io.stderr(`\r\x1b[Krectilens: checking ${k + 1}/${files.length} ${path}`);
-    const one = analyze({ roots: [path], readText: read });
+    const one = analyze({ roots: [path], readText: read, now: () => performance.now() });
     for (const [uri, file] of one.files) all.set(uri, file);
     unreadable.push(...one.unreadable);
   });

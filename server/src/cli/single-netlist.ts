@@ -19,7 +19,7 @@ export function analyseSingleNetlist(positional: readonly string[], command: str
     io.stderr(`rectilens: cannot read ${path}: ${describeError(error)}\n`);
     return undefined;
   }
-  const snapshot = analyze({ roots: [path], readText: cachedReader() });
+  const snapshot = analyze({ roots: [path], readText: cachedReader(), now: () => performance.now() });
   const file = snapshot.files.get(path);
   if (!file) io.stderr(`rectilens: cannot read ${path}\n`);
   return file;

@@ -82,6 +82,7 @@ export class AnalysisScheduler {
         this.pending.delete(uri);
         const input: AnalysisInput = {
           roots: [uri], readText: this.hooks.readText, settings: this.hooks.settings(), partsFiles: this.hooks.partsFiles(), solutionCache: this.solutionCache,
+          now: () => performance.now(),
         };
         const file = analyze(input).files.get(uri);
         if (file) {

@@ -18,6 +18,7 @@ import { foldingRangesOf, outlineOf } from '../features/outline';
 import { AnalysisScheduler } from './analysis-scheduler';
 import { toDiagnostic, toDocumentSymbol, toFoldingRange, toRange, toWorkspaceEdit } from './convert';
 import { registerEditorFeatures } from './editor-features';
+import { registerDocumentTextRequest } from './document-text-request';
 import { isReadable, type TrustPolicy } from './trust';
 import { readPartsFiles } from './parts-files';
 import type { PartsFile } from '../ratings/index';
@@ -205,6 +206,7 @@ export function startServer(connection: Connection): void {
   }
 
   registerEditorFeatures(context, guard);
+  registerDocumentTextRequest(connection, documents);
   documents.listen(connection);
   connection.listen();
 }

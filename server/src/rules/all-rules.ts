@@ -10,16 +10,18 @@ import { controllerUndervoltageRule } from './controller-undervoltage';
 import { currentRatingRule } from './current-rating';
 import { harmonicLimitRule } from './harmonic-limit';
 import { hazardousVoltageRule } from './hazardous-voltage';
+import { implausibleValueRule } from './implausible-value';
 import { junctionTempRule } from './junction-temp';
 import { missingRatingRule } from './missing-rating';
 import { mixedBridgeRule } from './mixed-bridge';
 import { mosfetVdsRule } from './mosfet-vds';
 import { pivMarginRule } from './piv-margin';
+import { shortedSourceRule } from './shorted-source';
 import { surgeRatingRule } from './surge-rating';
 import { thermalRunawayRule } from './thermal-runaway';
 
 export const ALL_RULES: readonly Rule[] = [
   pivMarginRule, currentRatingRule, surgeRatingRule, junctionTempRule, thermalRunawayRule,
   mosfetVdsRule, capVoltageRule, capRippleRule, controllerUndervoltageRule, harmonicLimitRule,
-  missingRatingRule, mixedBridgeRule, hazardousVoltageRule,
+  missingRatingRule, mixedBridgeRule, hazardousVoltageRule, implausibleValueRule, shortedSourceRule,
 ];

@@ -59,6 +59,10 @@ const ANALYSIS_HELP: Readonly<Record<string, string>> = {
   'assumed-condition': 'State the condition in the netlist (e.g. *@ mains, *@ load) to remove the assumption.',
   'mixed-bridge': 'Devices of different models share the stress unevenly; use one model unless that is intended.',
   'hazardous-voltage': 'Estimates only, not a safety or compliance test; follow local codes and licensed practice.',
+  'implausible-value': 'Correct the value; the part is left out of the analysis until then.',
+  'shorted-source': 'Remove the short or give the source its real value.',
+  'limit-exceeded': 'Split the netlist, or analyse the part that matters; the message names the limit.',
+  'figure-omitted': 'Check the values feeding the rectifier for ones far outside any real part.',
 };
 
 /** Metadata for a code, with a generic fallback for codes added later. */

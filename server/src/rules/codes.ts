@@ -16,4 +16,8 @@ export const FINDING_CODES: Readonly<Record<string, string>> = {
   'assumed-condition': 'a condition the netlist does not state was assumed',
   'mixed-bridge': 'the devices of one bridge use different models',
   'hazardous-voltage': 'a source above extra-low voltage: caution',
+  'implausible-value': 'a value no real part has: zero or negative capacitance, negative resistance, negative SIN amplitude',
+  'shorted-source': 'a voltage source shorted by 0 Ω, or a 0 V source across a rectifier input',
+  'limit-exceeded': 'a hard limit of the analysis was reached (file size, cards, rectifiers, time, solver iterations); the result is partial',
+  'figure-omitted': 'a figure was left out because it was not a finite number',
 };

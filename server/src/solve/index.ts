@@ -17,3 +17,4 @@ export { findSteadyState, type SteadyState, type SteadyStateOptions } from './sh
 export { simulateInrush, type InrushResult } from './inrush';
 export { settleJunctionTemperatures, type ThermalResult, type ThermalOptions } from './thermal';
 export type { Waveform } from './waveform';
+export { NON_FINITE_NOTE } from './finite-figures';

@@ -13,6 +13,7 @@ import { checkHarmonicLimits } from './iec61000-3-2';
 import { simulateInrush } from './inrush';
 import { sampleWaveform } from './waveform';
 import { defaultCorners, pickWorst } from './corners';
+import { dropNonFiniteFigures } from './finite-figures';
 
 /** Solver configuration; every field has a default. */
 export interface SolveOptions {
@@ -64,6 +65,7 @@ export function solveCorner(circuit: EquivalentCircuit, corner: Corner, options:
   const points = options.waveformPoints ?? 200;
   if (points > 0) solution.waveform = sampleWaveform(ss.record, points, circuit.source.turnsRatio);
   if (options.inrush ?? true) addInrush(solution, net, circuit, ta, points, options.steadyState?.relTol);
+  dropNonFiniteFigures(solution);
   return solution;
 }
 

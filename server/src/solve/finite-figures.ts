@@ -1,0 +1,42 @@
+/**
+ * Keeps the promise of solution.ts that no figure is NaN or infinite. Extreme inputs (a value
+ * near the floating-point range, a degenerate circuit) can still drive a computation out of range;
+ * such a figure is removed rather than shown, and a note names it so the analysis can report it.
+ */
+import type { CornerSolution } from './solution';
+
+/** Start of the note that lists omitted figures (the analysis turns it into a finding). */
+export const NON_FINITE_NOTE = 'figures omitted because they are not finite';
+
+/** Removes every optional figure of a corner (and of its devices) that holds a non-finite number. */
+export function dropNonFiniteFigures(solution: CornerSolution): void {
+  const dropped = dropFrom(solution as unknown as Record<string, unknown>, OPTIONAL_KEYS, '');
+  solution.devices.forEach((device) => dropped.push(...dropFrom(device as unknown as Record<string, unknown>, DEVICE_KEYS, `${device.name}.`)));
+  if (dropped.length) solution.notes.push(`${NON_FINITE_NOTE}: ${dropped.join(', ')}`);
+}
+
+/** Whether any number reachable from `value` is NaN or infinite. */
+export function holdsNonFinite(value: unknown): boolean {
+  if (typeof value === 'number') return !Number.isFinite(value);
+  if (Array.isArray(value)) return value.some(holdsNonFinite);
+  if (value && typeof value === 'object') return Object.values(value).some(holdsNonFinite);
+  return false;
+}
+
+// Required fields (name, lineScale, lineVrms, ambientC, counters) come from the inputs and stay.
+const OPTIONAL_KEYS = [
+  'vOutAvgV', 'vOutRmsV', 'vOutMinV', 'vOutMaxV', 'rippleVpp', 'capRippleIrmsA', 'capacitorIrmsA', 'outputPowerW', 'rectifierLossW',
+  'inputPowerW', 'efficiency', 'sourceIrmsA', 'powerFactor', 'displacementPowerFactor', 'thd', 'harmonicsA', 'iecClassA', 'iecClassD',
+  'inrushPeakA', 'inrushI2tA2s', 'holdUpS', 'waveform', 'inrushWaveform',
+];
+const DEVICE_KEYS = ['pivV', 'ipkA', 'iavgA', 'irmsA', 'lossW', 'tjC', 'inrushI2tA2s'];
+
+function dropFrom(record: Record<string, unknown>, keys: readonly string[], prefix: string): string[] {
+  const dropped: string[] = [];
+  for (const key of keys) {
+    if (record[key] === undefined || !holdsNonFinite(record[key])) continue;
+    delete record[key];
+    dropped.push(prefix + key);
+  }
+  return dropped;
+}

@@ -1,0 +1,27 @@
+/**
+ * Grammar-aware fuzzing: random netlists with rectifiers (netlist-arbitrary.ts) through parse →
+ * analysis → every feature. These reach the solver, the rules and the views, where the numbers are.
+ */
+import fc from 'fast-check';
+import { describe, expect, it } from 'vitest';
+import { analyseOnce, checkDocument } from './document-properties';
+import { FUZZ_SEED, runs, timeoutFor } from './fuzz-config';
+import { netlistText } from './netlist-arbitrary';
+import { probeFractions } from './text-arbitraries';
+
+const NETLISTS = runs(80);
+
+describe('random netlists with rectifiers through every feature', () => {
+  it('the generator mostly produces recognised rectifiers (so the properties reach the solver)', () => {
+    const samples = fc.sample(netlistText, { seed: FUZZ_SEED, numRuns: 30 });
+    const withRectifiers = samples.filter((text) => analyseOnce(text).rectifiers.length > 0).length;
+    expect(withRectifiers).toBeGreaterThanOrEqual(20);
+  }, 120_000);
+
+  it(`${NETLISTS} netlists: no exception, bounded time, ranges inside, finite figures, no NaN text; every fourth analysed twice`, () => {
+    let index = 0;
+    fc.assert(fc.property(netlistText, probeFractions, (text, probes) => {
+      checkDocument(text, { probes, noNanText: true, determinism: index++ % 4 === 0 });
+    }), { seed: FUZZ_SEED + 10, numRuns: NETLISTS });
+  }, timeoutFor(NETLISTS, 2_000));
+});
