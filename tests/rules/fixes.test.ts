@@ -137,3 +137,21 @@ describe('reversed device (recognition) through the whole pipeline', () => {
     expect(analyseText(fixed).rectifiers.map((r) => r.rectifier.kind)).toEqual(['diode-bridge']);
   });
 });
+
+describe('fixes that need trial solves are computed when asked for', () => {
+  it('does not run a fix trial until the finding\'s fixes are read, then keeps them', async () => {
+    const { withLazyFixes } = await import('../../server/src/analysis/findings');
+    let computed = 0;
+    const finding = withLazyFixes(
+      { uri: 'file:///x.cir', span: { start: 0, end: 1 }, severity: 'warning', code: 'piv-margin', message: 'm' },
+      () => {
+        computed++;
+        return [{ title: 'Use a part that passes', edits: [] }, undefined];
+      },
+    );
+    expect(computed).toBe(0);
+    expect(finding.fixes!.map((f) => f.title)).toEqual(['Use a part that passes']);
+    expect(finding.fixes).toHaveLength(1);
+    expect(computed).toBe(1);
+  });
+});

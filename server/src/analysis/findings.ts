@@ -42,3 +42,17 @@ export function reaches(severity: Severity, threshold: Severity): boolean {
 export function compareFindings(a: Finding, b: Finding): number {
   return a.uri.localeCompare(b.uri) || a.span.start - b.span.start || SEVERITY_RANK[a.severity] - SEVERITY_RANK[b.severity];
 }
+
+/**
+ * Gives a finding fixes that are computed on first read of `fixes` and then kept. Fix trials
+ * re-solve the rectifier, and most findings are never opened for a fix, so they are not computed
+ * with every keystroke's analysis.
+ */
+export function withLazyFixes(finding: Finding, compute: () => (Fix | undefined)[]): Finding {
+  let fixes: Fix[] | undefined;
+  return Object.defineProperty(finding, 'fixes', {
+    get: () => (fixes ??= compute().filter((f): f is Fix => f !== undefined)),
+    enumerable: true,
+    configurable: true,
+  });
+}

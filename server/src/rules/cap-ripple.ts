@@ -10,7 +10,7 @@
  * above the rating itself, warning above a stricter derated limit only. Fix: a bank of parallel
  * parts (fixes/cap-bank.ts).
  */
-import type { Finding } from '../analysis/findings';
+import { withLazyFixes, type Finding } from '../analysis/findings';
 import type { Rule } from './registry';
 import { capacitorsOf } from './capacitor-view';
 import { capacitorBankFix } from './fixes/cap-bank';
@@ -27,13 +27,11 @@ export const capRippleRule: Rule = {
       if (!rated || !view.irmsA) continue;
       const severity = severityOf(view.irmsA.value, rated.value, ripple.value);
       if (!severity) continue;
-      const fix = capacitorBankFix(view, ripple.value, files, input.solve);
-      findings.push({
+      findings.push(withLazyFixes({
         ...placeOf(view.element.origin, view.name), severity, code: 'cap-ripple',
         message: `${view.name}: ripple current ${fmt(view.irmsA.value)} A rms at ${view.irmsA.corner} is ${pct(view.irmsA.value / rated.value)} ` +
           `of its rated ${fmt(rated.value)} A; ${allowsText(ripple)}`,
-        ...(fix ? { fixes: [fix] } : {}),
-      });
+      }, () => [capacitorBankFix(view, ripple.value, files, input.solve)]));
     }
     return findings;
   },

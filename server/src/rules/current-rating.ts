@@ -11,7 +11,7 @@
  * a continuous rating, so its RMS current (what heats the channel) is compared: our reading,
  * common practice. Error above the rating itself, warning above the derated limit only.
  */
-import type { Finding } from '../analysis/findings';
+import { withLazyFixes, type Finding } from '../analysis/findings';
 import type { Rule } from './registry';
 import { diodeSwapFix } from './fixes/swap-diode';
 import { allowsText, devicesOf, fmt, pct, placeOf, policyOf, ratingTag, severityOf, type DeviceView } from './rule-context';
@@ -33,13 +33,11 @@ function diodeFinding(input: RuleInput, { analysis, index, device, worst }: Devi
   if (r.kind !== 'diode' || !r.ifavA || !worst?.iavgA) return undefined;
   const severity = severityOf(worst.iavgA.value, r.ifavA.value, limit.value);
   if (!severity) return undefined;
-  const fix = diodeSwapFix(input, analysis, index);
-  return {
+  return withLazyFixes({
     ...placeOf(device.ref.origin, device.ref.name), severity, code: 'current-rating',
     message: `${device.ref.name}: average current ${fmt(worst.iavgA.value)} A at ${worst.iavgA.corner} is ` +
       `${pct(worst.iavgA.value / r.ifavA.value)} of IF(AV) ${fmt(r.ifavA.value)} A${ratingTag(r.ifavA)}; ${allowsText(limit)}`,
-    ...(fix ? { fixes: [fix] } : {}),
-  };
+  }, () => [diodeSwapFix(input, analysis, index)]);
 }
 
 function mosfetFinding(input: RuleInput, { device, worst }: DeviceView): Finding | undefined {

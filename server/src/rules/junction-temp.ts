@@ -10,7 +10,7 @@
  * above the part's Tjmax. Error above Tjmax itself, warning above the derated limit only.
  * Devices without RθJA are skipped: their Tj is only the ambient (missing-rating says so).
  */
-import type { Finding } from '../analysis/findings';
+import { withLazyFixes, type Finding } from '../analysis/findings';
 import { describePolicyOrigin, junctionLimitC } from '../ratings/index';
 import type { Rule } from './registry';
 import { diodeSwapFix } from './fixes/swap-diode';
@@ -29,14 +29,12 @@ export const junctionTempRule: Rule = {
       const limitC = junctionLimitC(tj.value, tjmaxC);
       const beyondMax = tjmaxC !== undefined && worst.tjC.value > tjmaxC;
       if (!beyondMax && worst.tjC.value <= limitC) continue;
-      const fix = r.kind === 'diode' ? diodeSwapFix(input, analysis, index) : undefined;
       const max = tjmaxC === undefined ? 'no Tjmax rated' : `Tjmax ${fmt(tjmaxC)} °C`;
-      findings.push({
+      findings.push(withLazyFixes({
         ...placeOf(device.ref.origin, device.ref.name), severity: beyondMax ? 'error' : 'warning', code: 'junction-temp',
         message: `${device.ref.name}: junction ${fmt(worst.tjC.value)} °C at ${worst.tjC.corner} (loss ${fmt(worst.lossW?.value ?? 0)} W); ` +
           `${max}; policy allows ${fmt(limitC)} °C (${describePolicyOrigin(tj.origin)})`,
-        ...(fix ? { fixes: [fix] } : {}),
-      });
+      }, () => [r.kind === 'diode' ? diodeSwapFix(input, analysis, index) : undefined]));
     }
     return findings;
   },

@@ -10,7 +10,7 @@
  * itself (outside the part's rating), warning when it only exceeds the derated limit. Fix: the
  * lowest-rated part that passes every stress rule (fixes/swap-diode.ts).
  */
-import type { Finding } from '../analysis/findings';
+import { withLazyFixes, type Finding } from '../analysis/findings';
 import type { Rule } from './registry';
 import { diodeSwapFix } from './fixes/swap-diode';
 import { allowsText, devicesOf, fmt, pct, placeOf, policyOf, ratingTag, severityOf } from './rule-context';
@@ -26,13 +26,11 @@ export const pivMarginRule: Rule = {
       const piv = worst.pivV;
       const severity = severityOf(piv.value, rating.vrrmV.value, vr.value);
       if (!severity) continue;
-      const fix = diodeSwapFix(input, analysis, index);
-      findings.push({
+      findings.push(withLazyFixes({
         ...placeOf(device.ref.origin, device.ref.name), severity, code: 'piv-margin',
         message: `${device.ref.name}: PIV ${fmt(piv.value)} V at ${piv.corner} is ${pct(piv.value / rating.vrrmV.value)} of VRRM ` +
           `${fmt(rating.vrrmV.value)} V${ratingTag(rating.vrrmV)}; ${allowsText(vr)}`,
-        ...(fix ? { fixes: [fix] } : {}),
-      });
+      }, () => [diodeSwapFix(input, analysis, index)]));
     }
     return findings;
   },

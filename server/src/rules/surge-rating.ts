@@ -16,7 +16,7 @@
  * when only the derated limit is exceeded. Fixes: an E12 series inrush resistor, or a part with
  * more IFSM.
  */
-import type { Finding, Fix } from '../analysis/findings';
+import { withLazyFixes, type Finding } from '../analysis/findings';
 import type { Rule } from './registry';
 import { diodeSwapFix } from './fixes/swap-diode';
 import { inrushResistorFix } from './fixes/inrush-resistor';
@@ -37,16 +37,14 @@ export const surgeRatingRule: Rule = {
       const byI2t = stress.i2tA2s > capability.i2tA2s;
       const severity = byI2t ? 'error' : severityOf(figureA, capability.equivalentA, limit.value) && 'warning';
       if (!severity) continue;
-      const fixes = [inrushResistorFix(input, analysis), diodeSwapFix(input, analysis, index)].filter((f): f is Fix => f !== undefined);
       const ms = (s: number) => `${fmt(s * 1000)} ms`;
-      findings.push({
+      findings.push(withLazyFixes({
         ...placeOf(device.ref.origin, device.ref.name), severity, code: 'surge-rating',
         message: `${device.ref.name}: switch-on surge at ${stress.corner}: peak ${fmt(stress.peakA)} A, I²t ${fmt(stress.i2tA2s)} A²s ` +
           `over the ${ms(stress.durationS)} half-cycle; IFSM ${fmt(capability.ifsmA)} A for ${ms(capability.ratedS)} is ` +
           `${fmt(capability.equivalentA)} A over ${ms(stress.durationS)} at equal I²t (${fmt(capability.i2tA2s)} A²s): the surge is ` +
           `${pct(figureA / capability.equivalentA)} of it (I²t ${pct(stress.i2tA2s / capability.i2tA2s)}); ${allowsText(limit)}`,
-        ...(fixes.length ? { fixes } : {}),
-      });
+      }, () => [inrushResistorFix(input, analysis), diodeSwapFix(input, analysis, index)]));
     }
     return findings;
   },

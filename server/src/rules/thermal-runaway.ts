@@ -7,7 +7,7 @@
  * Threshold: none to choose — the solver reports the loop as diverged (Tj iterated to 0.1 K).
  * Always an error.
  */
-import type { Finding } from '../analysis/findings';
+import { withLazyFixes, type Finding } from '../analysis/findings';
 import type { Rule } from './registry';
 import { diodeSwapFix } from './fixes/swap-diode';
 import { devicesOf, fmt, placeOf } from './rule-context';
@@ -20,13 +20,11 @@ export const thermalRunawayRule: Rule = {
       if (!worst?.thermalRunaway) continue;
       const corners = analysis.solution.corners.filter((c) => c.devices[index]?.thermalRunaway).map((c) => c.name);
       const rthja = analysis.circuit.devices[index]?.rthjaKPerW;
-      const fix = device.ref.type === 'diode' ? diodeSwapFix(input, analysis, index) : undefined;
-      findings.push({
+      findings.push(withLazyFixes({
         ...placeOf(device.ref.origin, device.ref.name), severity: 'error', code: 'thermal-runaway',
         message: `${device.ref.name}: loss and junction temperature do not settle at ${corners.join(', ')}` +
           `${rthja === undefined ? '' : ` with RθJA ${fmt(rthja)} K/W`}: thermal runaway; the part cannot shed its heat there`,
-        ...(fix ? { fixes: [fix] } : {}),
-      });
+      }, () => [device.ref.type === 'diode' ? diodeSwapFix(input, analysis, index) : undefined]));
     }
     return findings;
   },
