@@ -16,7 +16,8 @@ export type HoverSections = (card: Card) => string | undefined;
 export function hoverAt(netlist: Netlist, offset: number, sections: HoverSections = () => undefined): HoverResult | undefined {
   const card = cardAt(netlist, offset);
   if (card && 'name' in card && card.kind !== 'model' && card.kind !== 'subckt' && card.name && within(card.name.span, offset)) {
-    return { markdown: describeElement(card) + (sections(card) ? `\n\n${sections(card)}` : ''), span: card.name.span };
+    const extra = sections(card);
+    return { markdown: extra ? `${describeElement(card)}\n\n${extra}` : describeElement(card), span: card.name.span };
   }
   const occurrence = occurrenceAt(indexNames(netlist), offset);
   if (!occurrence) return undefined;

@@ -12,6 +12,14 @@ import type { DeviceHit } from './rectifier-lookup';
 
 const NOMINAL_CORNER = 'nominal-line nominal';
 
+/** Where a device sits, in words (DeviceRole in solve/equivalent-circuit.ts). */
+const ROLE_WORDS: Readonly<Record<string, string>> = {
+  'upper-a': 'from the first AC line to DC+', 'upper-b': 'from the second AC line to DC+', 'upper-c': 'from the third AC line to DC+',
+  'lower-a': 'from DC− to the first AC line', 'lower-b': 'from DC− to the second AC line', 'lower-c': 'from DC− to the third AC line',
+  series: 'in series with the load', 'winding-a': 'on the first half-winding', 'winding-b': 'on the second half-winding',
+  d1: 'charging the first capacitor', d2: 'charging the second capacitor',
+};
+
 interface Row {
   label: string;
   key: 'pivV' | 'ipkA' | 'iavgA' | 'irmsA' | 'lossW' | 'tjC';
@@ -58,7 +66,7 @@ function deviceSection(hit: DeviceHit): string {
   const nominal = analysis.solution.corners.find((c) => c.name === NOMINAL_CORNER) ?? analysis.solution.corners[0];
   const worst = analysis.solution.devices.find((d) => d.name === name);
   const lines = [
-    `**${name}** — ${device.ref.type}${device.model ? ` \`${device.model.name}\`` : ''}, ${device.ref.role}`,
+    `**${name}** (${device.ref.type}${device.model ? ` \`${device.model.name}\`` : ''}) — ${ROLE_WORDS[device.ref.role] ?? device.ref.role}`,
     '',
     '| | nominal | worst | at corner | rating | used |',
     '|---|---|---|---|---|---|',
