@@ -16,46 +16,45 @@ export interface WaveformChartOptions {
 
 /** The steady-state period of a corner as SVG, or undefined when the corner has no waveform. */
 export function renderPeriodSvg(corner: CornerSolution, options: WaveformChartOptions): string | undefined {
-  const w = corner.waveform;
-  if (!w || w.tS.length < 2) return undefined;
-  const t = relativeMs(w);
-  return renderTimeChart({
-    title: `${options.rectifierLabel}: one steady-state period at ${corner.name}`,
-    chartId: 'period',
-    timeUnit: 'ms',
-    widthPx: options.widthPx,
-    panels: [
-      {
-        quantity: 'Voltage', unit: 'V',
-        series: [
-          { id: 'source-voltage', name: 'source EMF', colour: TRACE_COLOURS.sourceVoltage, t, y: w.sourceV, dashed: true },
-          { id: 'output-voltage', name: 'output', colour: TRACE_COLOURS.outputVoltage, t, y: w.outputV },
-        ],
-      },
-      { quantity: 'Current', unit: 'A', series: currentSeries(w, t, '') },
-    ],
+  return renderWaveform(corner.waveform, options, {
+    title: `one steady-state period at ${corner.name}`, chartId: 'period', timeUnit: 'ms', idPrefix: '', outputName: 'output',
   });
 }
 
 /** The first half-cycle after switch-on at the crest, capacitors empty, or undefined without one. */
 export function renderInrushSvg(corner: CornerSolution, options: WaveformChartOptions): string | undefined {
-  const w = corner.inrushWaveform;
+  return renderWaveform(corner.inrushWaveform, options, {
+    title: `switch-on inrush half-cycle at ${corner.name}`, chartId: 'inrush', timeUnit: 'ms after switch-on', idPrefix: 'inrush-',
+    outputName: 'output (charging)',
+  });
+}
+
+interface WaveformChartKind {
+  title: string;
+  chartId: string;
+  timeUnit: string;
+  /** Prefix of the voltage and device-current series ids. */
+  idPrefix: string;
+  outputName: string;
+}
+
+function renderWaveform(w: Waveform | undefined, options: WaveformChartOptions, kind: WaveformChartKind): string | undefined {
   if (!w || w.tS.length < 2) return undefined;
   const t = relativeMs(w);
   return renderTimeChart({
-    title: `${options.rectifierLabel}: switch-on inrush half-cycle at ${corner.name}`,
-    chartId: 'inrush',
-    timeUnit: 'ms after switch-on',
+    title: `${options.rectifierLabel}: ${kind.title}`,
+    chartId: kind.chartId,
+    timeUnit: kind.timeUnit,
     widthPx: options.widthPx,
     panels: [
       {
         quantity: 'Voltage', unit: 'V',
         series: [
-          { id: 'inrush-source-voltage', name: 'source EMF', colour: TRACE_COLOURS.sourceVoltage, t, y: w.sourceV, dashed: true },
-          { id: 'inrush-output-voltage', name: 'output (charging)', colour: TRACE_COLOURS.outputVoltage, t, y: w.outputV },
+          { id: `${kind.idPrefix}source-voltage`, name: 'source EMF', colour: TRACE_COLOURS.sourceVoltage, t, y: w.sourceV, dashed: true },
+          { id: `${kind.idPrefix}output-voltage`, name: kind.outputName, colour: TRACE_COLOURS.outputVoltage, t, y: w.outputV },
         ],
       },
-      { quantity: 'Current', unit: 'A', series: currentSeries(w, t, 'inrush-') },
+      { quantity: 'Current', unit: 'A', series: currentSeries(w, t, kind.idPrefix) },
     ],
   });
 }
