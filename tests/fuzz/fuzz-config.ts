@@ -24,4 +24,11 @@ export function timeoutFor(count: number, msPerCase: number): number {
  * Wall-clock bound on one document through analysis and every feature. Generous on purpose:
  * it is a hang detector on a loaded 2-core machine, not a speed target (DESIGN.md §10 has those).
  */
-export const MAX_MS_PER_DOCUMENT = 10_000;
+export const MAX_MS_PER_DOCUMENT = 30_000;
+
+/**
+ * Options for every property run: stop at the first counterexample and report it as found.
+ * Shrinking re-runs the whole pipeline hundreds of times, which on a loaded CI machine can
+ * outlast the run itself; the seed and the reported case are enough to replay a failure.
+ */
+export const PROPERTY_OPTIONS = { endOnFailure: true } as const;

@@ -5,7 +5,7 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { analyseOnce, checkDocument } from './document-properties';
-import { FUZZ_SEED, runs, timeoutFor } from './fuzz-config';
+import { FUZZ_SEED, runs, timeoutFor, PROPERTY_OPTIONS } from './fuzz-config';
 import { netlistText } from './netlist-arbitrary';
 import { probeFractions } from './text-arbitraries';
 
@@ -22,6 +22,6 @@ describe('random netlists with rectifiers through every feature', () => {
     let index = 0;
     fc.assert(fc.property(netlistText, probeFractions, (text, probes) => {
       checkDocument(text, { probes, noNanText: true, determinism: index++ % 4 === 0 });
-    }), { seed: FUZZ_SEED + 10, numRuns: NETLISTS });
+    }), { ...PROPERTY_OPTIONS, seed: FUZZ_SEED + 10, numRuns: NETLISTS });
   }, timeoutFor(NETLISTS, 2_000));
 });

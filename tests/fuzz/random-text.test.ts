@@ -6,7 +6,7 @@ import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { parseNetlist } from '../../grammar/src/index';
 import { checkDocument } from './document-properties';
-import { FUZZ_SEED, runs, timeoutFor } from './fuzz-config';
+import { FUZZ_SEED, runs, timeoutFor, PROPERTY_OPTIONS } from './fuzz-config';
 import { probeFractions, randomBytesText, randomUnicodeText, tokenStreamText } from './text-arbitraries';
 
 const BYTES = runs(600);
@@ -15,18 +15,18 @@ const TOKENS = runs(1000);
 
 describe('random text through every feature', () => {
   it(`random bytes (${BYTES} cases)`, () => {
-    fc.assert(fc.property(randomBytesText, probeFractions, (text, probes) => checkDocument(text, { probes })), { seed: FUZZ_SEED, numRuns: BYTES });
+    fc.assert(fc.property(randomBytesText, probeFractions, (text, probes) => checkDocument(text, { probes })), { ...PROPERTY_OPTIONS, seed: FUZZ_SEED, numRuns: BYTES });
   }, timeoutFor(BYTES, 50));
 
   it(`random Unicode strings (${UNICODE} cases)`, () => {
-    fc.assert(fc.property(randomUnicodeText, probeFractions, (text, probes) => checkDocument(text, { probes })), { seed: FUZZ_SEED + 1, numRuns: UNICODE });
+    fc.assert(fc.property(randomUnicodeText, probeFractions, (text, probes) => checkDocument(text, { probes })), { ...PROPERTY_OPTIONS, seed: FUZZ_SEED + 1, numRuns: UNICODE });
   }, timeoutFor(UNICODE, 50));
 
   it(`random token streams (${TOKENS} cases), every fifth analysed twice`, () => {
     let index = 0;
     fc.assert(fc.property(tokenStreamText, probeFractions, (text, probes) => {
       checkDocument(text, { probes, determinism: index++ % 5 === 0 });
-    }), { seed: FUZZ_SEED + 2, numRuns: TOKENS });
+    }), { ...PROPERTY_OPTIONS, seed: FUZZ_SEED + 2, numRuns: TOKENS });
   }, timeoutFor(TOKENS, 100));
 
   it('the parser keeps every token stream within its text (spans of cards and diagnostics)', () => {
@@ -35,6 +35,6 @@ describe('random text through every feature', () => {
       for (const s of [...netlist.cards.map((c) => c.span), ...netlist.diagnostics.map((d) => d.span), ...netlist.comments]) {
         expect(s.start >= 0 && s.start <= s.end && s.end <= text.length).toBe(true);
       }
-    }), { seed: FUZZ_SEED + 3, numRuns: runs(500) });
+    }), { ...PROPERTY_OPTIONS, seed: FUZZ_SEED + 3, numRuns: runs(500) });
   });
 });

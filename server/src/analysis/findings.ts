@@ -51,8 +51,17 @@ export function compareFindings(a: Finding, b: Finding): number {
 export function withLazyFixes(finding: Finding, compute: () => (Fix | undefined)[]): Finding {
   let fixes: Fix[] | undefined;
   return Object.defineProperty(finding, 'fixes', {
-    get: () => (fixes ??= compute().filter((f): f is Fix => f !== undefined)),
+    get: () => (fixes ??= computeSafely(compute)),
     enumerable: true,
     configurable: true,
   });
+}
+
+/** A fix that fails to compute is not offered; the finding itself still stands. */
+function computeSafely(compute: () => (Fix | undefined)[]): Fix[] {
+  try {
+    return compute().filter((f): f is Fix => f !== undefined);
+  } catch {
+    return [];
+  }
 }

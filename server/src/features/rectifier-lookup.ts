@@ -2,7 +2,6 @@
 import type { Span } from '../../../grammar/src/index';
 import type { FileAnalysis } from '../analysis/analyze';
 import type { DeviceAnalysis, RectifierAnalysis } from '../analysis/rectifier-analysis';
-import { anchorOf } from '../circuit/index';
 
 export interface DeviceHit {
   analysis: RectifierAnalysis;
@@ -24,7 +23,3 @@ export function devicesAtCard(file: FileAnalysis, card: Span): DeviceHit[] {
   return hits;
 }
 
-/** The rectifier whose anchor (first device's card, or its X card) lies in this file at `start`. */
-export function anchorSpan(analysis: RectifierAnalysis): { uri: string; span: Span } {
-  return analysis.rectifier.anchor ?? anchorOf(analysis.devices[0]!.ref.origin);
-}
