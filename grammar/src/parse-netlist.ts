@@ -8,6 +8,7 @@ import { parseCardTokens } from './card-parser';
 import { buildElement, elementSyntax } from './card-builder';
 import { parseDirective } from './directives';
 import { buildDotCard } from './dot-card-builder';
+import { planReparse } from './reparse';
 import { nestBlocks } from './structure';
 import type { Card, Netlist, Span, SyntaxDiagnostic, TitleCard } from './syntax-tree';
 import { DotKeyword, netlistLexer, Newline, tokenEnd, Word } from './tokens';
@@ -16,14 +17,36 @@ import { tokenMatcher } from 'chevrotain';
 export interface ParseOptions {
   /** The first line is a title (SPICE convention for a top-level file) unless it parses as a card. Default true. */
   titleLine?: boolean;
+  /**
+   * The parse of an earlier version of the same text (with the same `titleLine`): its cards
+   * outside the changed lines are reused. The result equals a parse without it.
+   */
+  previous?: Netlist;
 }
 
 export function parseNetlist(text: string, options: ParseOptions = {}): Netlist {
-  const diagnostics: SyntaxDiagnostic[] = [];
+  const plan = options.previous ? planReparse(options.previous, text) : undefined;
+  if (plan) return assemble(text, options.previous!.title, [plan.prefix, scanRegion(text, plan.start, plan.end), plan.suffix]);
   const title = options.titleLine === false ? undefined : readTitle(text);
-  const lexed = netlistLexer.tokenize(title ? ' '.repeat(title.span.end) + text.slice(title.span.end) : text);
+  return assemble(text, title, [scanRegion(text, title ? title.span.end : 0, text.length)]);
+}
+
+interface RegionParse {
+  cards: Card[];
+  comments: Span[];
+  diagnostics: SyntaxDiagnostic[];
+}
+
+/** Lexes and parses the lines in [from, to) of the text (both at line starts, or the text's end). */
+function scanRegion(text: string, from: number, to: number): RegionParse {
+  const diagnostics: SyntaxDiagnostic[] = [];
+  const lexed = netlistLexer.tokenize(text.slice(from, to));
+  if (from > 0) {
+    for (const token of lexed.tokens) token.startOffset += from;
+    for (const group of Object.values(lexed.groups)) for (const token of group) token.startOffset += from;
+  }
   for (const error of lexed.errors) {
-    const span = { start: error.offset, end: error.offset + Math.max(1, error.length) };
+    const span = { start: error.offset + from, end: error.offset + from + Math.max(1, error.length) };
     diagnostics.push({ span, severity: 'error', code: 'syntax-error', message: `unexpected '${text.slice(span.start, span.end)}'` });
   }
   const elementCards = splitCards(lexed.tokens).map((tokens) => buildCard(tokens, diagnostics));
@@ -32,11 +55,17 @@ export function parseNetlist(text: string, options: ParseOptions = {}): Netlist 
     diagnostics.push(...parsed.diagnostics);
     return { kind: 'directive', directive: parsed.directive, span: spanOfTokens(token, token) };
   });
-  const cards = truncateAtEnd(mergeByOffset(elementCards, directiveCards), diagnostics);
-  const items = nestBlocks(cards, diagnostics);
   const comments = (lexed.groups.comments ?? []).map((t) => spanOfTokens(t, t));
+  return { cards: mergeByOffset(elementCards, directiveCards), comments, diagnostics };
+}
+
+/** Joins region parses (in text order) and runs the passes over the whole card list. */
+function assemble(text: string, title: TitleCard | undefined, regions: RegionParse[]): Netlist {
+  const diagnostics = regions.flatMap((r) => r.diagnostics);
+  const cards = truncateAtEnd(regions.flatMap((r) => r.cards), diagnostics);
+  const items = nestBlocks(cards, diagnostics);
   diagnostics.sort((a, b) => a.span.start - b.span.start);
-  return { text, title, cards: title ? [title, ...cards] : cards, items, comments, diagnostics };
+  return { text, title, cards: title ? [title, ...cards] : cards, items, comments: regions.flatMap((r) => r.comments), diagnostics };
 }
 
 function spanOfTokens(first: IToken, last: IToken): Span {

@@ -44,6 +44,16 @@ describe('rectilens check', () => {
     expect(report.files.map((f: { path: string }) => f.path.slice(dir.length + 1))).toEqual(['a.cir', 'b.net', 'c.sp', 'd.spi', 'e.ckt']);
   });
 
+  it('reads a file that is both a root and an include of another root with its own title line', () => {
+    const dir = folderWith({
+      'main.cir': 'Main (our own)\n.include "parts.cir"\nD1 a b DX\n',
+      'parts.cir': 'Parts library (our own)\n.model DX D(IS=1n)\n',
+    });
+    const report = JSON.parse(run('check', dir, '--format', 'json').stdout);
+    const parts = report.files.find((f: { path: string }) => f.path.endsWith('parts.cir'));
+    expect(parts.diagnostics).toEqual([]);
+  });
+
   it('writes the JSON shape of DESIGN.md §8 with 1-based lines', () => {
     const dir = folderWith({ 'w.cir': WARNS });
     const report = JSON.parse(run('check', dir, '--format', 'json').stdout);

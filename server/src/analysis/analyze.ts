@@ -23,6 +23,11 @@ export interface AnalysisInput {
   settings?: AnalysisSettings;
   /** Validated workspace parts files. */
   partsFiles?: readonly PartsFile[];
+  /**
+   * The parse of a file from this root's previous analysis (same role: root or include), so
+   * only its changed lines are parsed again. The result is the same without it.
+   */
+  previousParse?: (uri: string) => Netlist | undefined;
   /** Solutions kept between analyses by the adapter (see `SolutionCache`). */
   solutionCache?: SolutionCache;
   /**
@@ -72,12 +77,16 @@ function analyzeRoot(uri: string, input: AnalysisInput, cache: Map<string, Netli
   const limits: AnalysisLimits = { ...DEFAULT_LIMITS, ...input.limits };
   const parsed = new Map<string, Netlist>();
   const load = (target: string): Netlist | undefined => {
-    if (!cache.has(target)) {
+    // Included files have no title line; only the root does. A file parses differently in the
+    // two roles, so the cache shared between roots keys on both.
+    const titleLine = target === uri;
+    const key = `${titleLine ? 'root' : 'include'}:${target}`;
+    if (!cache.has(key)) {
       const text = input.readText(target);
-      // Included files have no title line; only the root does.
-      cache.set(target, text === undefined ? undefined : parseWithinLimits(text, (t) => parseNetlist(t, { titleLine: target === uri }), limits));
+      const previous = input.previousParse?.(target);
+      cache.set(key, text === undefined ? undefined : parseWithinLimits(text, (t) => parseNetlist(t, { titleLine, previous }), limits));
     }
-    const netlist = cache.get(target);
+    const netlist = cache.get(key);
     if (netlist) parsed.set(target, netlist);
     return netlist;
   };

@@ -83,6 +83,7 @@ export class AnalysisScheduler {
         const input: AnalysisInput = {
           roots: [uri], readText: this.hooks.readText, settings: this.hooks.settings(), partsFiles: this.hooks.partsFiles(), solutionCache: this.solutionCache,
           now: () => performance.now(),
+          previousParse: (target) => this.results.get(uri)?.parsed.get(target),
         };
         const file = analyze(input).files.get(uri);
         if (file) {
