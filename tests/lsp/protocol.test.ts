@@ -72,6 +72,8 @@ describe('language server over stdio', () => {
     expect(edit!.changes![URI]!.map((e) => e.range.start.line)).toEqual([9, 10, 11]);
     const ground = await client.connection.sendRequest(PrepareRenameRequest.type, { textDocument: { uri: URI }, position: at(10, 7) });
     expect(ground).toBeNull();
+    await expect(client.connection.sendRequest(RenameRequest.type, { textDocument: { uri: URI }, position: at(9, 12), newName: 'two words' }))
+      .rejects.toThrow(/not a valid netlist name/);
   });
 
   it('completes directive keywords, rating keys and model names', async () => {

@@ -43,3 +43,15 @@ export class LineIndex {
     return this.starts[Math.max(0, Math.min(line, this.starts.length - 1))]!;
   }
 }
+
+const indexes = new WeakMap<object, LineIndex>();
+
+/** The line index of an analysed file's text, built once per analysis and then shared by every request. */
+export function lineIndexOf(file: { text: string }): LineIndex {
+  let index = indexes.get(file);
+  if (!index) {
+    index = new LineIndex(file.text);
+    indexes.set(file, index);
+  }
+  return index;
+}

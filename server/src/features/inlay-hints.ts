@@ -3,6 +3,7 @@ import type { FileAnalysis } from '../analysis/analyze';
 import type { DeviceAnalysis, RectifierAnalysis } from '../analysis/rectifier-analysis';
 import type { DeviceWorst } from '../solve/index';
 import { formatCelsius, formatSi, trim } from './format';
+import { cardPlaceOf } from './rectifier-lookup';
 
 export interface InlayHint {
   /** Offset the hint is drawn at (the end of the card's last line). */
@@ -18,13 +19,13 @@ export function inlayHintsOf(file: FileAnalysis, detail: HintDetail = 'brief'): 
   const byCard = new Map<number, { end: number; parts: string[] }>();
   for (const analysis of file.rectifiers) {
     for (const device of analysis.devices) {
-      const place = cardPlace(device);
+      const place = cardPlaceOf(device);
       if (place.uri !== file.uri) continue;
       const worst = analysis.solution.devices.find((d) => d.name === device.ref.name);
       if (!worst) continue;
-      const entry = byCard.get(place.start) ?? { end: place.end, parts: [] };
+      const entry = byCard.get(place.span.start) ?? { end: place.span.end, parts: [] };
       entry.parts.push(describe(device, worst, analysis, detail, place.inPackage));
-      byCard.set(place.start, entry);
+      byCard.set(place.span.start, entry);
     }
   }
   return [...byCard.values()].map(({ end, parts }) => ({
@@ -32,12 +33,6 @@ export function inlayHintsOf(file: FileAnalysis, detail: HintDetail = 'brief'): 
     label: parts.length > 1 ? worstOfPackage(parts) : parts[0]!,
     tooltip: parts.join('\n'),
   }));
-}
-
-function cardPlace(device: DeviceAnalysis): { uri: string; start: number; end: number; inPackage: boolean } {
-  const outer = device.ref.origin.chain[0];
-  if (outer) return { uri: outer.uri, start: outer.span.start, end: outer.span.end, inPackage: true };
-  return { uri: device.ref.origin.uri, start: device.ref.origin.span.start, end: device.ref.origin.span.end, inPackage: false };
 }
 
 function describe(device: DeviceAnalysis, worst: DeviceWorst, analysis: RectifierAnalysis, detail: HintDetail, inPackage: boolean): string {

@@ -14,12 +14,20 @@ export function devicesAtCard(file: FileAnalysis, card: Span): DeviceHit[] {
   const hits: DeviceHit[] = [];
   for (const analysis of file.rectifiers) {
     analysis.devices.forEach((device, index) => {
-      const origin = device.ref.origin;
-      const outer = origin.chain[0];
-      const place = outer ? { uri: outer.uri, span: outer.span } : { uri: origin.uri, span: origin.span };
+      const place = cardPlaceOf(device);
       if (place.uri === file.uri && place.span.start === card.start) hits.push({ analysis, device, index });
     });
   }
   return hits;
 }
 
+
+/**
+ * The card a device shows on in the root file: its own card at top level, or the X card that
+ * holds it when it sits inside a subcircuit (a packaged bridge).
+ */
+export function cardPlaceOf(device: DeviceAnalysis): { uri: string; span: Span; inPackage: boolean } {
+  const outer = device.ref.origin.chain[0];
+  if (outer) return { uri: outer.uri, span: outer.span, inPackage: true };
+  return { uri: device.ref.origin.uri, span: device.ref.origin.span, inPackage: false };
+}

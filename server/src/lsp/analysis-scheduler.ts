@@ -58,13 +58,6 @@ export class AnalysisScheduler {
     this.timer = setTimeout(() => void this.run(), this.debounceMs);
   }
 
-  /** Resolves when nothing is pending or running (for tests and benchmarks). */
-  async idle(): Promise<void> {
-    while (this.pending.size || this.running || this.timer) {
-      await (this.running ?? new Promise((r) => setTimeout(r, this.debounceMs + 1)));
-    }
-  }
-
   private async run(): Promise<void> {
     this.timer = undefined;
     if (this.running) await this.running;

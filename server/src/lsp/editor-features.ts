@@ -1,6 +1,6 @@
 /** Hover, inlay hints, code lens, code actions and the views: the features that show analysis results. */
 import { CodeActionKind, InlayHintKind, MarkupKind, type CodeAction, type CodeLens, type InlayHint } from 'vscode-languageserver/node';
-import { LineIndex } from '../analysis/line-index';
+import { lineIndexOf } from '../analysis/line-index';
 import { codeLensesOf } from '../features/code-lens';
 import { hoverAt } from '../features/hover';
 import { inlayHintsOf } from '../features/inlay-hints';
@@ -18,7 +18,7 @@ export function registerEditorFeatures(context: ServerContext, guard: Guard): vo
   connection.onCodeAction(guard([], (params) => {
     const file = scheduler.get(params.textDocument.uri);
     if (!file) return [];
-    const lines = new LineIndex(file.text);
+    const lines = lineIndexOf(file);
     const start = lines.offsetAt(params.range.start);
     const end = lines.offsetAt(params.range.end);
     const actions: CodeAction[] = [];
@@ -40,7 +40,7 @@ export function registerEditorFeatures(context: ServerContext, guard: Guard): vo
   connection.onHover(guard(null, (params) => {
     const file = scheduler.get(params.textDocument.uri);
     if (!file) return null;
-    const lines = new LineIndex(file.text);
+    const lines = lineIndexOf(file);
     const found = hoverAt(file.netlist, lines.offsetAt(params.position), (card) => {
       const hits = devicesAtCard(file, card.span);
       return hits.length ? stressHover(file, hits) : undefined;
@@ -51,7 +51,7 @@ export function registerEditorFeatures(context: ServerContext, guard: Guard): vo
   connection.languages.inlayHint.on(guard([], (params) => {
     const file = scheduler.get(params.textDocument.uri);
     if (!file) return [];
-    const lines = new LineIndex(file.text);
+    const lines = lineIndexOf(file);
     const from = lines.offsetAt(params.range.start);
     const to = lines.offsetAt(params.range.end);
     return inlayHintsOf(file, context.settings().hintDetail ?? 'brief')
@@ -62,7 +62,7 @@ export function registerEditorFeatures(context: ServerContext, guard: Guard): vo
   connection.onCodeLens(guard([], (params) => {
     const file = scheduler.get(params.textDocument.uri);
     if (!file) return [];
-    const lines = new LineIndex(file.text);
+    const lines = lineIndexOf(file);
     return codeLensesOf(file).map((lens): CodeLens => {
       const position = lines.positionAt(lens.offset);
       const range = { start: position, end: position };

@@ -5,12 +5,12 @@
 import { readFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import {
-  CodeActionKind, CompletionItemKind, TextDocuments, TextDocumentSyncKind, type Connection, type InitializeParams,
+  CodeActionKind, CompletionItemKind, ErrorCodes, ResponseError, TextDocuments, TextDocumentSyncKind, type Connection, type InitializeParams,
   type InitializeResult,
 } from 'vscode-languageserver/node';
 import { TextDocument } from 'vscode-languageserver-textdocument';
 import type { FileAnalysis } from '../analysis/analyze';
-import { LineIndex } from '../analysis/line-index';
+import { LineIndex, lineIndexOf } from '../analysis/line-index';
 import { DEFAULT_SETTINGS, type AnalysisSettings } from '../analysis/settings';
 import { completeAt, modelsOf } from '../features/completion';
 import { findDefinition, findReferences, prepareRename, rename, type FileSet } from '../features/navigation';
@@ -64,12 +64,12 @@ export function startServer(connection: Connection): void {
   });
   const linesOf = (uri: string): LineIndex | undefined => {
     const analysed = scheduler.get(uri);
-    if (analysed) return new LineIndex(analysed.text);
+    if (analysed) return lineIndexOf(analysed);
     const text = readText(uri);
     return text === undefined ? undefined : new LineIndex(text);
   };
   const publish = (file: FileAnalysis) => {
-    const lines = new LineIndex(file.text);
+    const lines = lineIndexOf(file);
     const diagnostics = file.findings.filter((f) => f.uri === file.uri).map((f) => toDiagnostic(lines, f, linesOf));
     void connection.sendDiagnostics({ uri: file.uri, diagnostics });
   };
@@ -134,19 +134,19 @@ export function startServer(connection: Connection): void {
 
   const offsetIn = (uri: string, position: { line: number; character: number }) => {
     const file = scheduler.get(uri);
-    return file ? { file, offset: new LineIndex(file.text).offsetAt(position) } : undefined;
+    return file ? { file, offset: lineIndexOf(file).offsetAt(position) } : undefined;
   };
 
   connection.onDocumentSymbol(guard([], (params) => {
     const file = scheduler.get(params.textDocument.uri);
     if (!file) return [];
-    const lines = new LineIndex(file.text);
+    const lines = lineIndexOf(file);
     return outlineOf(file.netlist).map((s) => toDocumentSymbol(lines, s));
   }));
   connection.onFoldingRanges(guard([], (params) => {
     const file = scheduler.get(params.textDocument.uri);
     if (!file) return [];
-    const lines = new LineIndex(file.text);
+    const lines = lineIndexOf(file);
     return foldingRangesOf(file.netlist).map((f) => toFoldingRange(lines, f)).filter((f) => f.endLine > f.startLine);
   }));
   connection.onDefinition(guard([], (params) => {
@@ -162,27 +162,24 @@ export function startServer(connection: Connection): void {
   connection.onPrepareRename(guard(null, (params) => {
     const at = offsetIn(params.textDocument.uri, params.position);
     const span = at && prepareRename(fileSet(at.file.uri), at.offset);
-    return span ? toRange(new LineIndex(at.file.text), span) : null;
+    return span ? toRange(lineIndexOf(at.file), span) : null;
   }));
   connection.onRenameRequest(guard(null, (params) => {
     const at = offsetIn(params.textDocument.uri, params.position);
     if (!at) return null;
     const edits = rename(fileSet(at.file.uri), at.offset, params.newName);
-    if ('error' in edits) throw new Error(edits.error);
-    return toWorkspaceEdit(edits, linesOf);
+    return 'error' in edits ? new ResponseError(ErrorCodes.InvalidRequest, edits.error) : toWorkspaceEdit(edits, linesOf);
   }));
   connection.onCompletion(guard([], (params) => {
     const document = documents.get(params.textDocument.uri);
     if (!document) return [];
     const file = scheduler.get(params.textDocument.uri);
-    // Complete against the text as typed now; the last analysis may be a keystroke behind.
-    const netlist = file && file.text === document.getText() ? file.netlist : undefined;
-    const models = fileSet(params.textDocument.uri).flatMap((f) => modelsOf(f.netlist));
-    const parsed = netlist ?? file?.netlist;
-    if (!parsed) return [];
-    const offset = document.offsetAt(params.position);
-    const current = parsed.text === document.getText() ? parsed : { ...parsed, text: document.getText() };
-    return completeAt(current, offset, models).map((item) => ({
+    if (!file) return [];
+    // Names come from the last analysis; the line being typed comes from the text as it is now,
+    // since the analysis may be a keystroke behind.
+    const models = fileSet(file.uri).flatMap((f) => modelsOf(f.netlist));
+    const current = { ...file.netlist, text: document.getText() };
+    return completeAt(current, document.offsetAt(params.position), models).map((item) => ({
       label: item.label, kind: COMPLETION_KIND[item.kind], detail: item.detail, insertText: item.insertText,
     }));
   }));
@@ -198,7 +195,6 @@ export function startServer(connection: Connection): void {
       try {
         return handler(params);
       } catch (error) {
-        if (error instanceof Error && /not a valid|nothing to rename/.test(error.message)) throw error;
         connection.console.error(`rectilens: ${error instanceof Error ? error.stack : String(error)}`);
         return empty;
       }
