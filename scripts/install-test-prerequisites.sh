@@ -1,22 +1,28 @@
 #!/usr/bin/env bash
-# Installs the system packages the tests use, once: Neovim (a real editor client for the protocol
-# test) and Chromium (headless screenshots), both from Debian, plus the shared VS Code end-to-end
-# kit (code-server, playwright-core, vsce; apt-get and npm only). Idempotent and quick when done.
+# Installs what the test suites need beyond npm's dev dependencies, once, and says what it does:
+# from Debian (apt-get, as root or through sudo) Neovim (a real editor client for the protocol
+# test), Chromium (screenshots, the HTML report, the VS Code run), ripgrep and the compilers for
+# the browser-served VS Code's native modules; then that VS Code itself (tests/e2e/setup-vscode.sh,
+# npm only). Idempotent: about a second when everything is there.
 set -euo pipefail
 cd "$(dirname "$0")/.."
 
 export DEBIAN_FRONTEND=noninteractive
-APT_PACKAGES=(neovim chromium fonts-dejavu-core unzip)
+APT_PACKAGES=(neovim chromium fonts-dejavu-core unzip curl ripgrep build-essential python3 libkrb5-dev strace)
 missing=()
 for p in "${APT_PACKAGES[@]}"; do
   dpkg-query -W -f='${Status}' "$p" 2>/dev/null | grep -q "install ok installed" || missing+=("$p")
 done
 if [ "${#missing[@]}" -gt 0 ]; then
-  echo "installing ${missing[*]} with apt-get"
-  apt-get update -qq
-  apt-get install -y -q "${missing[@]}" >/tmp/rectilens-apt.log 2>&1 || { tail -30 /tmp/rectilens-apt.log; exit 1; }
+  SUDO=()
+  [ "$(id -u)" = 0 ] || SUDO=(sudo)
+  echo "[prerequisites] apt-get install ${missing[*]} (first run only; about a minute)"
+  log="$(mktemp /tmp/rectilens-apt.XXXXXX.log)"
+  { "${SUDO[@]}" apt-get update -qq && "${SUDO[@]}" apt-get install -y -q "${missing[@]}"; } >"$log" 2>&1 \
+    || { tail -30 "$log" >&2; echo "[prerequisites] apt-get failed (log: $log)" >&2; exit 1; }
+  rm -f "$log"
+else
+  echo "[prerequisites] Debian packages present"
 fi
 
-KIT=../shared/vscode-e2e
-[ -f "$KIT/setup.sh" ] || { echo "the shared VS Code end-to-end kit is missing: expected $KIT/setup.sh beside this checkout" >&2; exit 1; }
-bash "$KIT/setup.sh" >/tmp/rectilens-e2e-setup.log 2>&1 || { tail -30 /tmp/rectilens-e2e-setup.log; exit 1; }
+bash tests/e2e/setup-vscode.sh

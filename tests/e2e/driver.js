@@ -1,11 +1,11 @@
 #!/usr/bin/env node
 // End-to-end checks of the packaged extension in a real VS Code (code-server), driven by
-// playwright-core in headless Chromium. Run by run-e2e.sh as: node driver.js <baseUrl> <workspace> <outDir>.
+// playwright-core in headless Chromium. Run by run-vscode.sh as: node driver.js <baseUrl> <workspace> <outDir>.
 // Every wait is on a DOM condition; a screenshot follows each step.
 'use strict';
 const path = require('path');
 const fs = require('fs');
-const { chromium } = require(path.join(process.env.VSCODE_E2E_ROOT || '/tmp/vscode-e2e', 'tools/node_modules/playwright-core'));
+const { chromium } = require('playwright-core');
 const steps = require('./steps');
 
 const [base, folder, outDir = path.join(__dirname, 'out')] = process.argv.slice(2);

@@ -3,11 +3,10 @@ import { cpSync, existsSync, mkdirSync, mkdtempSync, readdirSync, rmSync } from 
 import { join, resolve } from 'node:path';
 import { describe, expect, it } from 'vitest';
 
-// The packaged extension in a real VS Code (code-server 4.100.3 = VS Code 1.100.3) from the shared
-// end-to-end kit, driven by playwright-core in Debian's Chromium. The kit's setup is idempotent
-// (about 2 minutes on a fresh machine, a second after that); .ci/run also calls it first.
+// The packaged extension in a real VS Code (code-server 4.100.3 = VS Code 1.100.3), driven by
+// playwright-core in Debian's Chromium. setup-vscode.sh is idempotent (about 2 minutes on a fresh
+// machine, a second after that); `npm test` runs it first through the prerequisites script.
 const ROOT = resolve(__dirname, '../..');
-const KIT = resolve(ROOT, '../shared/vscode-e2e');
 const OUT = join(ROOT, 'tests/e2e/out');
 
 function run(command: string, args: string[], timeoutMs: number) {
@@ -16,7 +15,7 @@ function run(command: string, args: string[], timeoutMs: number) {
 
 describe('the extension in a real VS Code', () => {
   it('activates, shows hints, squiggles, hover, lenses, quick fix, views and follows a settings change', () => {
-    const setup = run('bash', [join(KIT, 'setup.sh')], 600_000);
+    const setup = run('bash', [join(__dirname, 'setup-vscode.sh')], 600_000);
     expect(setup.status, setup.stdout + setup.stderr).toBe(0);
     const pack = run('npm', ['run', '--silent', 'package'], 300_000);
     expect(pack.status, pack.stdout + pack.stderr).toBe(0);
@@ -25,7 +24,7 @@ describe('the extension in a real VS Code', () => {
     for (const name of readdirSync(join(ROOT, 'examples'))) cpSync(join(ROOT, 'examples', name), join(workspace, name));
     rmSync(OUT, { recursive: true, force: true });
     mkdirSync(OUT, { recursive: true });
-    const e2e = run('bash', [join(KIT, 'run-e2e.sh'), join(ROOT, 'rectilens.vsix'), workspace, join(__dirname, 'driver.js'), OUT], 900_000);
+    const e2e = run('bash', [join(__dirname, 'run-vscode.sh'), join(ROOT, 'rectilens.vsix'), workspace, join(__dirname, 'driver.js'), OUT], 900_000);
     const lines = (e2e.stdout + e2e.stderr).split('\n').filter((l) => /^\[e2e|\d+ passed, \d+ failed/.test(l));
     console.log(lines.join('\n'));
     rmSync(workspace, { recursive: true, force: true });
