@@ -20,6 +20,8 @@ const common = {
 await Promise.all([
   build({ ...common, entryPoints: ['server/src/cli/main.ts'], outfile: 'dist/cli.js', banner: { js: '#!/usr/bin/env node' } }),
   build({ ...common, entryPoints: ['server/src/lsp/main.ts'], outfile: 'dist/server.js' }),
+  // The language server's analysis thread, started by dist/server.js and by `rectilens lsp` in dist/cli.js.
+  build({ ...common, entryPoints: ['server/src/lsp/analysis-worker.ts'], outfile: 'dist/analysis-worker.js' }),
   build({ ...common, entryPoints: ['client/src/extension.ts'], outfile: 'dist/client.js', external: ['vscode'] }),
   ...(process.argv.includes('--bench') ? [build({ ...common, entryPoints: ['bench/run.ts'], outfile: 'dist/bench.js', external: ['odex'] })] : []),
 ]);

@@ -4,14 +4,13 @@
  */
 import * as vscode from 'vscode';
 import type { LanguageClient } from 'vscode-languageclient/node';
-import { viewPage, type ViewContent } from './view-page';
-
-export type ViewKind = 'waveforms' | 'comparison';
+import { VIEW_REQUEST, type ViewContent, type ViewKind, type ViewRequest } from '../../server/src/protocol/custom-protocol';
+import { viewPage } from './view-page';
 
 export async function showAnalysisView(
   context: vscode.ExtensionContext, client: LanguageClient, kind: ViewKind, uri: string, rectifierId?: string,
 ): Promise<void> {
-  const content = await client.sendRequest<ViewContent | null>('rectilens/view', { kind, uri, rectifierId });
+  const content = await client.sendRequest<ViewContent | null>(VIEW_REQUEST, { kind, uri, rectifierId } satisfies ViewRequest);
   if (!content) {
     void vscode.window.showInformationMessage('Rectilens: no rectifier found in this file.');
     return;

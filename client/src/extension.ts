@@ -5,7 +5,8 @@
 import * as vscode from 'vscode';
 import { LanguageClient, TransportKind, type LanguageClientOptions, type ServerOptions } from 'vscode-languageclient/node';
 import { BusyIndicator } from './busy-indicator';
-import { showAnalysisView, type ViewKind } from './analysis-view';
+import { BUSY_NOTIFICATION, COMMANDS, type BusyParams, type ViewKind } from '../../server/src/protocol/custom-protocol';
+import { showAnalysisView } from './analysis-view';
 
 let client: LanguageClient | undefined;
 
@@ -13,15 +14,15 @@ export async function activate(context: vscode.ExtensionContext): Promise<void> 
   client = createClient(context);
   const busy = new BusyIndicator();
   context.subscriptions.push(busy);
-  client.onNotification('rectilens/busy', (params: { busy: boolean; pending: number }) => busy.update(params.busy, params.pending));
+  client.onNotification(BUSY_NOTIFICATION, (params: BusyParams) => busy.update(params.busy, params.pending));
   const openView = (kind: ViewKind) => async (uri?: string, rectifierId?: string) => {
     const target = uri ?? vscode.window.activeTextEditor?.document.uri.toString();
     if (!target || !client) return;
     await showAnalysisView(context, client, kind, target, rectifierId);
   };
   context.subscriptions.push(
-    vscode.commands.registerCommand('rectilens.showWaveforms', openView('waveforms')),
-    vscode.commands.registerCommand('rectilens.compareTopologies', openView('comparison')),
+    vscode.commands.registerCommand(COMMANDS.showWaveforms, openView('waveforms')),
+    vscode.commands.registerCommand(COMMANDS.compareTopologies, openView('comparison')),
     // Trust changes what the server may read: restart it with the new policy.
     vscode.workspace.onDidGrantWorkspaceTrust(async () => {
       await client?.stop();

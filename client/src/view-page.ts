@@ -4,12 +4,9 @@
  * images from the webview itself.
  */
 
-/** A view as the server sends it. */
-export interface ViewContent {
-  title: string;
-  /** Self-contained HTML body (SVG and tables) rendered by the server. */
-  body: string;
-}
+import type { ViewContent } from '../../server/src/protocol/custom-protocol';
+
+export type { ViewContent };
 
 /** The policy of every view page: no script at all, no remote host, styles inline only. */
 export function contentSecurityPolicy(cspSource: string): string {

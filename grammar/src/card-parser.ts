@@ -111,12 +111,30 @@ export interface CardParse {
   error?: { message: string; token?: IToken };
 }
 
+/**
+ * Deeper parenthesis nesting than this is refused before parsing: the parser descends once per
+ * level, so nesting is the one thing in a card that could exhaust the stack. Real cards nest two.
+ */
+export const MAX_GROUP_DEPTH = 32;
+
 /** Parses the tokens of one card (no newlines among them). */
 export function parseCardTokens(tokens: IToken[]): CardParse {
+  const tooDeep = firstTooDeep(tokens);
+  if (tooDeep) return { error: { message: `parentheses nest deeper than ${MAX_GROUP_DEPTH} levels (limit: parenthesis nesting); the card is read only up to here`, token: tooDeep } };
   parser.input = tokens;
   const card = parser.card();
   const error = parser.errors[0];
   if (!error) return { card };
   const token = error.token.image === '' || error.token.tokenType.name === 'EOF' ? undefined : error.token;
   return { card, error: { message: error.message, token } };
+}
+
+/** The first '(' past the nesting limit, counting only parentheses (an unclosed one counts too). */
+function firstTooDeep(tokens: readonly IToken[]): IToken | undefined {
+  let depth = 0;
+  for (const token of tokens) {
+    if (token.tokenType === LParen && ++depth > MAX_GROUP_DEPTH) return token;
+    if (token.tokenType === RParen && depth > 0) depth--;
+  }
+  return undefined;
 }

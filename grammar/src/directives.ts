@@ -9,6 +9,7 @@ import {
   type ForwardPoint, type LoadDirective, type MainsDirective, type RateDirective, type RatingEntry, type RatingKey,
 } from './directive-records';
 import type { Span, SyntaxDiagnostic } from './syntax-tree';
+import { loadProblem, lowLineProblem, surgeDurationProblem } from './directive-checks';
 import { readNumber } from './values';
 
 interface Word {
@@ -101,20 +102,43 @@ function unitOf(word: Word): string | undefined {
 
 function readMains(words: Word[], span: Span, report: Report): MainsDirective {
   const record: MainsDirective = { keyword: 'mains', span };
+  let tolerance: Word | undefined;
+  let voltage: Word | undefined;
   for (const word of words) {
     const { key, value } = splitKeyValue(word);
-    if (value && key === 'tol') readTolerance(value, record, report);
-    else if (value && key === 'phases') {
+    if (value && key === 'tol') {
+      tolerance = value;
+      readTolerance(value, record, report);
+    } else if (value && key === 'phases') {
       const phases = readQuantity(value, '', report, word);
       if (phases === 1 || phases === 3) record.phases = phases;
       else if (phases !== undefined) report(value, `phases must be 1 or 3, got '${value.text}'`);
     } else if (value) report(word, `unknown mains key '${key}'; expected tol or phases`);
-    else if (unitOf(word) === 'Hz') record.freqHz = readQuantity(word, 'Hz', report, span);
-    else if (record.vrms === undefined) record.vrms = readQuantity(word, 'V', report, span);
-    else report(word, `unexpected '${word.text}'; mains takes a voltage, a frequency, tol= and phases=`);
+    else if (unitOf(word) === 'Hz') record.freqHz = readPositive(word, 'Hz', 'a mains frequency', report);
+    else if (!voltage) {
+      voltage = word;
+      record.vrms = readPositive(word, 'V', 'a mains voltage', report);
+    } else report(word, `unexpected '${word.text}'; mains takes a voltage, a frequency, tol= and phases=`);
   }
-  if (record.vrms === undefined) report(span, 'mains needs a voltage such as 230V');
+  if (!voltage) report(span, 'mains needs a voltage such as 230V');
+  if (tolerance) checkLowLine(tolerance, record, report);
   return record;
+}
+
+/** A quantity that must be above zero (a line of 0 Hz has no period, one of 0 V no figures). */
+function readPositive(word: Word, unit: string, what: string, report: Report): number | undefined {
+  const value = readQuantity(word, unit, report, word);
+  if (value === undefined || value > 0) return value;
+  report(word, `${what} must be above zero, got '${word.text}'; it is ignored`);
+  return undefined;
+}
+
+function checkLowLine(value: Word, record: MainsDirective, report: Report): void {
+  const problem = lowLineProblem(value.text, record);
+  if (!problem) return;
+  report(value, problem);
+  delete record.tolLow;
+  delete record.tolHigh;
 }
 
 function readTolerance(value: Word, record: MainsDirective, report: Report): void {
@@ -168,16 +192,21 @@ function readLoad(words: Word[], span: Span, report: Report): LoadDirective {
   const record: LoadDirective = { keyword: 'load', span };
   for (const word of words) {
     const { key, value } = splitKeyValue(word);
-    if (value && key === 'vmin') record.vminV = readQuantity(value, 'V', report, word);
-    else if (value) report(word, `unknown load key '${key}'; expected vmin`);
+    if (value && key === 'vmin') {
+      const vminV = readQuantity(value, 'V', report, word);
+      if (vminV !== undefined && vminV < 0) report(value, `vmin must not be negative, got '${value.text}'; it is ignored`);
+      else record.vminV = vminV;
+    } else if (value) report(word, `unknown load key '${key}'; expected vmin`);
     else if (record.load) report(word, `unexpected '${word.text}'; load takes one of W, A or ohm`);
     else {
       const unit = unitOf(word);
       const kind = unit === 'W' ? 'power' : unit === 'A' ? 'current' : unit === 'ohm' ? 'resistance' : undefined;
       if (!kind) report(word, `load needs a unit: 45W (constant power), 0.8A (constant current) or 33ohm, got '${word.text}'`);
       else {
-        const amount = readQuantity(word, unit!, report, span)!;
-        record.load = kind === 'power' ? { kind, w: amount } : kind === 'current' ? { kind, a: amount } : { kind, ohm: amount };
+        const amount = readQuantity(word, unit!, report, span);
+        const problem = amount === undefined ? undefined : loadProblem(kind, amount);
+        if (problem) report(word, problem);
+        else if (amount !== undefined) record.load = kind === 'power' ? { kind, w: amount } : kind === 'current' ? { kind, a: amount } : { kind, ohm: amount };
       }
     }
   }
@@ -226,7 +255,11 @@ function readRatingEntry(word: Word, report: Report): RatingEntry | undefined {
   const entry: RatingEntry = { key: ratingKey, span, value: readQuantity(amount, RATING_UNITS[ratingKey], report, word) };
   if (duration) {
     if (ratingKey !== 'ifsm') report(duration, `only ifsm takes a duration after '@'`);
-    else entry.durationS = readQuantity(duration, 's', report, word);
+    else {
+      const durationS = readSurgeDuration(duration, report);
+      if (durationS === undefined) return undefined;
+      entry.durationS = durationS;
+    }
   }
   // Stresses are reported as a fraction of these ratings: a zero or negative one has no meaning.
   if (entry.value !== undefined && POSITIVE_RATINGS.has(ratingKey) && !(entry.value > 0)) {
@@ -234,6 +267,13 @@ function readRatingEntry(word: Word, report: Report): RatingEntry | undefined {
     return undefined;
   }
   return entry.value === undefined ? undefined : entry;
+}
+
+function readSurgeDuration(duration: Word, report: Report): number | undefined {
+  const durationS = readQuantity(duration, 's', report, duration);
+  const problem = durationS === undefined ? undefined : surgeDurationProblem(duration.text, durationS);
+  if (problem) report(duration, problem);
+  return problem ? undefined : durationS;
 }
 
 const POSITIVE_RATINGS: ReadonlySet<RatingKey> = new Set(['vrrm', 'ifav', 'ifsm', 'vds', 'id', 'vrated', 'iripple']);

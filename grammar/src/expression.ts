@@ -18,7 +18,7 @@ export interface ExprError {
   end: number;
 }
 
-/** Deeper nesting than this is refused rather than risking the stack. */
+/** Deeper nesting than this, of the parse or of the tree, is refused rather than risking the stack. */
 export const MAX_EXPRESSION_DEPTH = 200;
 
 const FUNCTIONS: Readonly<Record<string, { arity: number; apply: (...a: number[]) => number }>> = {
@@ -46,15 +46,19 @@ interface Lexeme {
 
 const LEXEME = /\s*(?:((?:\d+\.?\d*|\.\d+)(?:[eE][+-]?\d+)?[a-zA-Zµμ]*)|([A-Za-z_][\w.]*)|(\*\*|[-+*/^(),]))/y;
 
+const TRAILING_BLANKS = /\s*$/y;
+
 function lex(text: string, base: number): Lexeme[] | ExprError {
   const out: Lexeme[] = [];
   LEXEME.lastIndex = 0;
   let at = 0;
   while (at < text.length) {
-    if (/^\s*$/.test(text.slice(at))) break;
     LEXEME.lastIndex = at;
     const m = LEXEME.exec(text);
     if (!m) {
+      // Only blanks left is the end; testing for that here, not before every lexeme, keeps lexing linear.
+      TRAILING_BLANKS.lastIndex = at;
+      if (TRAILING_BLANKS.test(text)) break;
       const bad = at + (text.slice(at).length - text.slice(at).trimStart().length);
       return { message: `unexpected '${text.charAt(bad)}' in expression`, start: base + bad, end: base + bad + 1 };
     }
@@ -79,6 +83,11 @@ export function parseExpression(text: string, base = 0): { expr?: Expr; error?: 
   try {
     const expr = parser.parseBinary(0, 0);
     parser.expectEnd();
+    // A left-associated chain (1+1+…) parses in a loop, yet its tree is as deep as it is long; a tree
+    // that deep cannot be copied to a worker or written as JSON, so it is refused like deep nesting.
+    if (treeDepth(expr) > MAX_EXPRESSION_DEPTH) {
+      return { error: { message: `expression nested deeper than ${MAX_EXPRESSION_DEPTH} levels (each operator of a chain such as 1+1+… is one level); split it over several .param lines`, start: expr.start, end: expr.end } };
+    }
     return { expr };
   } catch (thrown) {
     if (thrown instanceof ExprSyntaxError) return { error: thrown.detail };
@@ -202,22 +211,57 @@ export function evaluateExpression(expr: Expr, lookup: (name: string) => number 
   }
 }
 
-function evaluate(e: Expr, lookup: (name: string) => number | undefined): number {
-  switch (e.type) {
-    case 'number':
-      return e.value;
-    case 'ref': {
-      const value = lookup(e.name) ?? (e.name === 'pi' ? Math.PI : undefined);
-      if (value === undefined) throw new ExprSyntaxError({ message: `unknown parameter '${e.name}'`, start: e.start, end: e.end });
-      return value;
+function evaluate(expr: Expr, lookup: (name: string) => number | undefined): number {
+  return foldExpr<number>(expr, (e, operands) => {
+    switch (e.type) {
+      case 'number':
+        return e.value;
+      case 'ref': {
+        const value = lookup(e.name) ?? (e.name === 'pi' ? Math.PI : undefined);
+        if (value === undefined) throw new ExprSyntaxError({ message: `unknown parameter '${e.name}'`, start: e.start, end: e.end });
+        return value;
+      }
+      case 'unary':
+        return e.op === '-' ? -operands[0]! : operands[0]!;
+      case 'binary':
+        return applyBinary(e.op, operands[0]!, operands[1]!);
+      case 'call':
+        return FUNCTIONS[e.name]!.apply(...operands);
     }
-    case 'unary':
-      return e.op === '-' ? -evaluate(e.arg, lookup) : evaluate(e.arg, lookup);
-    case 'binary':
-      return applyBinary(e.op, evaluate(e.left, lookup), evaluate(e.right, lookup));
-    case 'call':
-      return FUNCTIONS[e.name]!.apply(...e.args.map((a) => evaluate(a, lookup)));
+  });
+}
+
+/**
+ * Folds an expression bottom-up with an explicit stack: the parser measures a fresh tree with it
+ * before refusing a deep one (a sum of 8,000 terms is a tree 8,000 deep), and evaluation needs no
+ * stack however the tree was built. `combine` gets each node with its operands' folded values,
+ * left to right, in the order a recursive left-to-right walk would finish them.
+ */
+export function foldExpr<T>(expr: Expr, combine: (e: Expr, operands: T[]) => T): T {
+  const pending: { e: Expr; ready: boolean }[] = [{ e: expr, ready: false }];
+  const values: T[] = [];
+  while (pending.length) {
+    const { e, ready } = pending.pop()!;
+    const operands = operandsOf(e);
+    if (!ready && operands.length > 0) {
+      pending.push({ e, ready: true });
+      for (let k = operands.length - 1; k >= 0; k--) pending.push({ e: operands[k]!, ready: false });
+      continue;
+    }
+    values.push(combine(e, operands.length > 0 ? values.splice(values.length - operands.length) : []));
   }
+  return values[0]!;
+}
+
+function treeDepth(expr: Expr): number {
+  return foldExpr<number>(expr, (_, operands) => 1 + operands.reduce((deepest, d) => Math.max(deepest, d), 0));
+}
+
+function operandsOf(e: Expr): readonly Expr[] {
+  if (e.type === 'unary') return [e.arg];
+  if (e.type === 'binary') return [e.left, e.right];
+  if (e.type === 'call') return e.args;
+  return [];
 }
 
 function applyBinary(op: '+' | '-' | '*' | '/' | '^', a: number, b: number): number {

@@ -11,6 +11,7 @@ import { buildDotCard } from './dot-card-builder';
 import { planReparse } from './reparse';
 import { nestBlocks } from './structure';
 import type { Card, Netlist, Span, SyntaxDiagnostic, TitleCard } from './syntax-tree';
+import { detectForeignEncoding, withoutByteOrderMark, type ForeignEncoding } from './encoding';
 import { DotKeyword, netlistLexer, Newline, tokenEnd, Word } from './tokens';
 import { tokenMatcher } from 'chevrotain';
 
@@ -24,11 +25,35 @@ export interface ParseOptions {
   previous?: Netlist;
 }
 
-export function parseNetlist(text: string, options: ParseOptions = {}): Netlist {
+export function parseNetlist(source: string, options: ParseOptions = {}): Netlist {
+  try {
+    return parseText(source, options);
+  } catch (error) {
+    // No input may make the parser throw (the hostile-structure fuzz suite checks that none does);
+    // should a bug let one through, the file gets one finding instead of taking its caller down.
+    const reason = error instanceof Error ? `${error.name}: ${error.message}` : String(error);
+    const diagnostic: SyntaxDiagnostic = { span: { start: 0, end: 0 }, severity: 'error', code: 'internal-error', message: `the parser failed (${reason}); the file is not analysed` };
+    return { text: source, cards: [], items: [], comments: [], diagnostics: [diagnostic] };
+  }
+}
+
+function parseText(source: string, options: ParseOptions): Netlist {
+  const encoding = detectForeignEncoding(source);
+  if (encoding) return encodingRefusal(source, encoding);
+  const text = withoutByteOrderMark(source);
   const plan = options.previous ? planReparse(options.previous, text) : undefined;
   if (plan) return assemble(text, options.previous!.title, [plan.prefix, scanRegion(text, plan.start, plan.end), plan.suffix]);
   const title = options.titleLine === false ? undefined : readTitle(text);
   return assemble(text, title, [scanRegion(text, title ? title.span.end : 0, text.length)]);
+}
+
+/** A file in another encoding: one finding naming it, and no cards (what it would give is garbage). */
+function encodingRefusal(text: string, encoding: ForeignEncoding): Netlist {
+  const diagnostic: SyntaxDiagnostic = {
+    span: { start: 0, end: 0 }, severity: 'error', code: 'file-encoding',
+    message: `the file is ${encoding.name}${encoding.bom ? ' with a byte-order mark' : ''}, not UTF-8 text: it was not analysed; save it as UTF-8`,
+  };
+  return { text, cards: [], items: [], comments: [], diagnostics: [diagnostic] };
 }
 
 interface RegionParse {
@@ -37,8 +62,29 @@ interface RegionParse {
   diagnostics: SyntaxDiagnostic[];
 }
 
+/**
+ * A region is lexed in pieces of about this many characters, cut at line starts that do not
+ * continue the line before, so the tokens of a large file are never all alive at once (they cost
+ * some fifty times the text they cover).
+ */
+const PIECE_CHARS = 1 << 20;
+const PIECE_CUT = /\n(?![ \t]*\+)/g;
+
 /** Lexes and parses the lines in [from, to) of the text (both at line starts, or the text's end). */
 function scanRegion(text: string, from: number, to: number): RegionParse {
+  const pieces: RegionParse[] = [];
+  for (let start = from; start < to; ) {
+    PIECE_CUT.lastIndex = start + PIECE_CHARS;
+    const cut = to - start > PIECE_CHARS ? PIECE_CUT.exec(text) : null;
+    const end = cut && cut.index + 1 < to ? cut.index + 1 : to;
+    pieces.push(scanPiece(text, start, end));
+    start = end;
+  }
+  if (pieces.length === 1) return pieces[0]!;
+  return { cards: pieces.flatMap((p) => p.cards), comments: pieces.flatMap((p) => p.comments), diagnostics: pieces.flatMap((p) => p.diagnostics) };
+}
+
+function scanPiece(text: string, from: number, to: number): RegionParse {
   const diagnostics: SyntaxDiagnostic[] = [];
   const lexed = netlistLexer.tokenize(text.slice(from, to));
   if (from > 0) {
@@ -52,7 +98,8 @@ function scanRegion(text: string, from: number, to: number): RegionParse {
   const elementCards = splitCards(lexed.tokens).map((tokens) => buildCard(tokens, diagnostics));
   const directiveCards: Card[] = (lexed.groups.directives ?? []).map((token) => {
     const parsed = parseDirective(token.image, token.startOffset);
-    diagnostics.push(...parsed.diagnostics);
+    // One line may hold any number of problems; spreading them into push() could pass the argument limit.
+    for (const d of parsed.diagnostics) diagnostics.push(d);
     return { kind: 'directive', directive: parsed.directive, span: spanOfTokens(token, token) };
   });
   const comments = (lexed.groups.comments ?? []).map((t) => spanOfTokens(t, t));

@@ -3,11 +3,26 @@ import type { Card, EndlCard, EndsCard, Item, LibCard, LibSectionBlock, SubcktBl
 
 type OpenBlock = { header: SubcktCard; body: Item[]; kind: 'subckt-block' } | { header: LibCard; body: Item[]; kind: 'lib-section' };
 
+/**
+ * Deeper nesting of definitions than this is not read. Real netlists nest one or two; the limit
+ * keeps the tree shallow enough to walk, copy to a worker and write as JSON.
+ */
+export const MAX_BLOCK_DEPTH = 64;
+
 export function nestBlocks(cards: Card[], diagnostics: SyntaxDiagnostic[]): Item[] {
   const top: Item[] = [];
   const stack: OpenBlock[] = [];
   const current = (): Item[] => (stack.length ? stack[stack.length - 1]!.body : top);
+  // Blocks opened past the limit and not yet closed: their cards are left out of the items.
+  let tooDeep = 0;
   for (const card of cards) {
+    const opens = card.kind === 'subckt' || (card.kind === 'lib' && !card.path && card.section !== undefined);
+    if (tooDeep > 0 || (opens && stack.length >= MAX_BLOCK_DEPTH)) {
+      if (opens && tooDeep++ === 0) {
+        diagnostics.push({ span: card.span, severity: 'error', code: 'subckt-depth', message: `definitions nest deeper than ${MAX_BLOCK_DEPTH} levels (limit: definition nesting); this block and everything in it are not read` });
+      } else if (card.kind === 'ends' || card.kind === 'endl') tooDeep--;
+      continue;
+    }
     if (card.kind === 'subckt') stack.push({ kind: 'subckt-block', header: card, body: [] });
     else if (card.kind === 'lib' && !card.path && card.section) stack.push({ kind: 'lib-section', header: card, body: [] });
     else if (card.kind === 'ends') closeSubckt(card, stack, current, diagnostics);

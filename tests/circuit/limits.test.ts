@@ -72,12 +72,21 @@ describe('very deep inputs', () => {
     expect(flat.diagnostics.map((d) => d.code)).toEqual(['subckt-depth']);
     expect(flat.elements).toHaveLength(64);
   });
-  it('a doubling hierarchy (2^40 elements) stops at the element cap', () => {
+  it('a doubling hierarchy (2^40 elements) is refused at its top instance, counted before anything is built', () => {
     const lines = ['wide'];
     for (let i = 0; i < 40; i++) lines.push(`.subckt w${i} a`, `X1 a w${i + 1}`, `X2 a w${i + 1}`, '.ends');
     lines.push('.subckt w40 a', 'R1 a 0 1', '.ends', 'X0 top w0');
     const flat = flatten(lines.join('\n'), {}, { maxDepth: 64, maxElements: 5_000 });
-    expect(flat.diagnostics.map((d) => d.code)).toEqual(['circuit-too-large']);
-    expect(flat.elements.length + flat.instances.length).toBe(5_001);
+    expect(flat.diagnostics.map((d) => [d.code, d.message])).toEqual([['circuit-too-large', expect.stringContaining('with X0 (more than 5000 cards once expanded) the flattened circuit passes 5000 elements')]]);
+    expect(flat.instances.map((i) => [i.name, i.resolved])).toEqual([['X0', false]]);
+    expect(flat.elements).toEqual([]);
+  });
+  it('a hierarchy that fits is expanded whole: the count before building is exact', () => {
+    const lines = ['fits'];
+    // w0 → 2 × w1 → 4 × w2: 2 + 4 instance cards and 4 resistors (each body counts whole).
+    for (let i = 0; i < 2; i++) lines.push(`.subckt w${i} a`, `X1 a w${i + 1}`, `X2 a w${i + 1}`, '.ends');
+    lines.push('.subckt w2 a', 'R1 a 0 1', '.ends', 'X0 top w0');
+    expect(flatten(lines.join('\n'), {}, { maxElements: 11 }).elements).toHaveLength(4);
+    expect(flatten(lines.join('\n'), {}, { maxElements: 10 }).diagnostics.map((d) => d.code)).toEqual(['circuit-too-large']);
   });
 });

@@ -1,6 +1,7 @@
 import { execFileSync, spawnSync } from 'node:child_process';
 import { readFileSync } from 'node:fs';
 import { resolve } from 'node:path';
+import { COMMANDS } from '../../server/src/protocol/custom-protocol';
 import { describe, expect, it } from 'vitest';
 
 const ROOT = resolve(__dirname, '../..');
@@ -17,7 +18,8 @@ describe('extension manifest', () => {
     expect(c.languages[0].extensions).toEqual(['.cir', '.net', '.sp', '.spi', '.ckt']);
     expect(c.grammars[0].scopeName).toBe('source.netlist');
     expect(c.snippets[0].language).toBe('netlist');
-    expect(c.commands.map((x: { command: string }) => x.command)).toEqual(['rectilens.showWaveforms', 'rectilens.compareTopologies']);
+    // The command ids are declared once, for the client and the server's code lenses.
+    expect(c.commands.map((x: { command: string }) => x.command)).toEqual(Object.values(COMMANDS));
     expect(c.jsonValidation[0].url).toBe('./server/src/ratings/parts-file.schema.json');
     for (const [name, setting] of Object.entries(c.configuration.properties) as [string, { description?: string }][]) {
       expect((setting.description ?? "").split(/\s+/).length, name).toBeGreaterThan(5);
@@ -42,6 +44,7 @@ describe('npm run package', () => {
     expect(files).toEqual([
       'LICENSE.txt',
       'client/snippets/netlist.json',
+      'dist/analysis-worker.js',
       'dist/client.js',
       'dist/server.js',
       'grammar/language-configuration.json',

@@ -91,5 +91,6 @@ if [ "$status" != 0 ]; then
   find "$RUN/profile/logs" -name '*exthost*.log' -exec tail -40 {} \; 2>/dev/null || true
 fi
 stop_editor
-say "driver exited $status; editor logs in $RUN"
+if [ "$status" = 0 ]; then rm -rf "$RUN"; else say "editor logs kept in $RUN"; fi
+say "driver exited $status"
 exit "$status"

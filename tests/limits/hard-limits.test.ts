@@ -7,6 +7,7 @@ import { describe, expect, it } from 'vitest';
 import { MAX_EXPRESSION_DEPTH } from '../../grammar/src/index';
 import { MAX_INCLUDE_DEPTH } from '../../server/src/circuit/index';
 import { DEFAULT_LIMITS } from '../../server/src/analysis/limits';
+import { solverPeriods } from '../../server/src/analysis/rectifier-analysis';
 import { analyseText, bridge, DIODE_MODEL, expectNoNonFinite, findingsOf, ROOT } from './check';
 
 const names = (file: ReturnType<typeof analyseText>) => file.flat.elements.map((e) => e.name);
@@ -77,16 +78,21 @@ describe('hard limits', () => {
     expect(findingsOf(file, 'limit-exceeded')).toMatchObject([{ text: 'D21', message: expect.stringContaining('more than 1 rectifiers (limit: rectifiers solved per analysis); 1 rectifier was recognised but not solved') }]);
   });
 
-  it('time budget: checked between rectifiers with the clock the adapter passes; a partial result and a finding', () => {
-    // A clock that advances one second per reading: the budget of 1.5 s is spent after the first rectifier.
-    let t = 0;
-    const now = () => (t += 1000);
+  it('solver work: counted in periods between rectifiers; a partial result and a finding, the same with a warm cache', () => {
     const text = `slow\n${bridge(1)}\n${bridge(2)}\n${bridge(3)}\n${DIODE_MODEL}\n`;
-    const file = analyseText(text, { now, limits: { timeBudgetMs: 1500 } });
+    const full = analyseText(text);
+    const periods = full.rectifiers.map((r) => solverPeriods(r.solution));
+    // A budget that the first rectifier spends: the other two are recognised, named, not solved.
+    const maxSolverPeriods = periods[0]!;
+    const file = analyseText(text, { limits: { maxSolverPeriods } });
     expect(file.rectifiers).toHaveLength(1);
-    expect(findingsOf(file, 'limit-exceeded')).toMatchObject([{ text: 'D21', message: expect.stringContaining('time budget of 1500 ms (limit: time per analysis); 2 rectifiers were recognised but not solved') }]);
-    // Without a clock the core enforces no budget (it reads no clock of its own).
-    expect(analyseText(text, { limits: { timeBudgetMs: 1500 } }).rectifiers).toHaveLength(3);
+    expect(findingsOf(file, 'limit-exceeded')).toMatchObject([{ text: 'D21', message: expect.stringContaining(`the solver used its budget of ${maxSolverPeriods} periods (limit: solver work per analysis); 2 rectifiers were recognised but not solved`) }]);
+    // Cached solutions count the same work, so the cut does not move when the adapter's cache is warm.
+    const solutionCache = new Map();
+    analyseText(text, { solutionCache });
+    expect(analyseText(text, { solutionCache, limits: { maxSolverPeriods } }).findings).toEqual(file.findings);
+    // One period more than the first rectifier spent lets the second one start.
+    expect(analyseText(text, { limits: { maxSolverPeriods: maxSolverPeriods + 1 } }).rectifiers).toHaveLength(2);
   });
 
   it('the limit findings lie inside the analysed text', () => {

@@ -22,9 +22,22 @@ export interface TestClient {
   close(): Promise<void>;
 }
 
-export async function startTestClient(options: { workspaceFolder?: string; initializationOptions?: unknown } = {}): Promise<TestClient> {
+export interface TestClientOptions {
+  workspaceFolder?: string;
+  initializationOptions?: unknown;
+  env?: Record<string, string>;
+  /** A command the server runs under, e.g. `['strace', '-f', '-o', log]`; the node command line follows it. */
+  wrap?: string[];
+  /** Client capabilities beyond the defaults (e.g. `workspace.inlayHint.refreshSupport`). */
+  capabilities?: Record<string, unknown>;
+  /** Options for node before the script, e.g. `['--require', spy]`. */
+  nodeArgs?: string[];
+}
+
+export async function startTestClient(options: TestClientOptions = {}): Promise<TestClient> {
   const cli = resolve(__dirname, '../../dist/cli.js');
-  const child = spawn(process.execPath, [cli, 'lsp', '--stdio'], { stdio: ['pipe', 'pipe', 'inherit'] });
+  const command = [...(options.wrap ?? []), process.execPath, ...(options.nodeArgs ?? []), cli, 'lsp', '--stdio'];
+  const child = spawn(command[0]!, command.slice(1), { stdio: ['pipe', 'pipe', 'inherit'], env: { ...process.env, ...options.env } });
   const connection = createProtocolConnection(new StreamMessageReader(child.stdout!), new StreamMessageWriter(child.stdin!));
   const waiting = new Map<string, ((d: Diagnostic[]) => void)[]>();
   const listeners: ((params: PublishDiagnosticsParams) => void)[] = [];
@@ -39,7 +52,7 @@ export async function startTestClient(options: { workspaceFolder?: string; initi
     processId: process.pid,
     rootUri: folder ?? null,
     workspaceFolders: folder ? [{ uri: folder, name: 'workspace' }] : null,
-    capabilities: { textDocument: { rename: { prepareSupport: true } } },
+    capabilities: { textDocument: { rename: { prepareSupport: true } }, ...options.capabilities },
     initializationOptions: options.initializationOptions,
   });
   await connection.sendNotification(InitializedNotification.type, {});

@@ -2,8 +2,9 @@
 import { basename } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { parseNetlist } from '../../grammar/src/index';
-import { analyze } from '../../server/src/analysis/analyze';
-import { compareTopologies, type ComparisonRow } from '../../server/src/features/comparison';
+import { analyze, type FileAnalysis } from '../../server/src/analysis/analyze';
+import { memoisedSolver } from '../../server/src/analysis/solver-memo';
+import { compareTopologies as compareWith, type ComparisonRow } from '../../server/src/compare/index';
 import { escapeMarkup, niceTicks } from '../../server/src/features/markup';
 import { renderHtmlReport } from '../../server/src/features/report-html';
 import { renderComparisonView, renderWaveformView } from '../../server/src/features/view-content';
@@ -49,12 +50,14 @@ describe('waveform view of every example', () => {
 });
 
 describe('topology comparison', () => {
+  // The first rectifier of an example compared under the example's own policy.
+  const compareTopologies = (file: FileAnalysis) => compareWith(file.rectifiers[0]!, file.policy, memoisedSolver(undefined));
   const lossOf = (rows: ComparisonRow[], id: string) => rows.find((r) => r.id === id)!.rectifierLossW!.value;
 
   // Common practice: a diode drop loses more than a channel, so silicon > hybrid > synchronous.
   for (const name of ['led-driver-230v.cir', 'irrigation-valve-24vac.cir']) {
     it(`${name}: silicon loses most, hybrid less, synchronous least (common practice)`, () => {
-      const { rows } = compareTopologies(analyseExample(name).rectifiers[0]!);
+      const { rows } = compareTopologies(analyseExample(name));
       expect(lossOf(rows, 'silicon')).toBeGreaterThan(lossOf(rows, 'hybrid'));
       expect(lossOf(rows, 'hybrid')).toBeGreaterThan(lossOf(rows, 'synchronous'));
       const efficiency = (id: string) => rows.find((r) => r.id === id)!.efficiency!.value;
@@ -63,16 +66,16 @@ describe('topology comparison', () => {
   }
 
   it('offers Schottky only within its reverse-voltage class', () => {
-    const mains = compareTopologies(analyseExample('led-driver-230v.cir').rectifiers[0]!).rows.find((r) => r.id === 'schottky')!;
+    const mains = compareTopologies(analyseExample('led-driver-230v.cir')).rows.find((r) => r.id === 'schottky')!;
     expect(mains.applicable).toBe(false);
     expect(mains.reason).toMatch(/beyond the silicon Schottky class \(up to 200 V/);
-    const low = compareTopologies(analyseExample('irrigation-valve-24vac.cir').rectifiers[0]!).rows.find((r) => r.id === 'schottky')!;
+    const low = compareTopologies(analyseExample('irrigation-valve-24vac.cir')).rows.find((r) => r.id === 'schottky')!;
     expect(low.applicable).toBe(true);
     expect(lossOf([low], 'schottky')).toBeGreaterThan(0);
   });
 
   it('below the controller vmin the synchronous variant runs on body diodes, and says so', () => {
-    const { rows } = compareTopologies(analyseExample('harvester-sync-bridge.cir').rectifiers[0]!);
+    const { rows } = compareTopologies(analyseExample('harvester-sync-bridge.cir'));
     const sync = rows.find((r) => r.id === 'synchronous')!;
     expect(sync.construction).toContain('vmin 3.3 V');
     expect(sync.assumptions.join(' ')).toMatch(/stays below the controller's 3\.3 V: the channels never turn on/);
@@ -81,7 +84,7 @@ describe('topology comparison', () => {
   });
 
   it('costs a variant only from the file\'s own cost ratings', () => {
-    const { rows } = compareTopologies(analyseExample('led-driver-230v.cir').rectifiers[0]!);
+    const { rows } = compareTopologies(analyseExample('led-driver-230v.cir'));
     expect(rows.find((r) => r.id === 'as-drawn')!.cost).toBeCloseTo(4 * 0.03, 10);
     expect(rows.find((r) => r.id === 'silicon')!.cost).toBeCloseTo(4 * 0.03, 10);
     expect(rows.find((r) => r.id === 'hybrid')!.cost).toBeUndefined();

@@ -4,8 +4,7 @@
  * the derating defaults with their origins.
  */
 import { describe, expect, it } from 'vitest';
-import { DEFAULT_DERATING } from '../../server/src/ratings/index';
-import { policyOf } from '../../server/src/rules/rule-context';
+import { DEFAULT_DERATING, resolvePolicy } from '../../server/src/ratings/index';
 import { RULES, applyRules, type RuleInput } from '../../server/src/rules/registry';
 import { FINDING_CODES } from '../../server/src/rules/codes';
 import { analyseText, checkAnnotated, findingsOf } from './check';
@@ -150,10 +149,9 @@ describe('derating defaults and their origins', () => {
   });
   it('map the settings names onto the policy keys', () => {
     const file = analyseText(bridge());
-    const input = { rootUri: file.uri, netlist: file.netlist, flat: file.flat, rectifiers: file.rectifiers, nearMisses: [], settings: {
+    const p = resolvePolicy(file.flat.directives, {
       derating: { reverseVoltage: 0.7, forwardCurrent: 0.6, surgeCurrent: 0.5, junctionTempC: 110, capacitorVoltage: 0.75 },
-    } } satisfies RuleInput;
-    const p = policyOf(input);
+    }).policy;
     expect([p.vr.value, p.if.value, p.ifsm.value, p.tj.value, p.cap.value]).toEqual([0.7, 0.6, 0.5, { kind: 'absolute', tjC: 110 }, 0.75]);
     expect(p.vr.origin).toEqual({ kind: 'setting', key: 'vr' });
   });
@@ -161,14 +159,17 @@ describe('derating defaults and their origins', () => {
 
 describe('registry', () => {
   it('has one rule per code of DESIGN.md §6 except those recognition and elaboration give', () => {
-    // limit-exceeded and figure-omitted come from the analysis's limits (analysis/limits.ts), not from a rule.
-    const fromElsewhere = ['reversed-device', 'default-model', 'assumed-condition', 'limit-exceeded', 'figure-omitted'];
+    // limit-exceeded and figure-omitted come from the analysis's limits (analysis/limits.ts), not from a rule;
+    // parts-file from reading a parts file (analysis/parts-file-findings.ts).
+    const fromElsewhere = ['reversed-device', 'default-model', 'assumed-condition', 'limit-exceeded', 'figure-omitted', 'parts-file'];
     expect(RULES.map((r) => r.code).sort()).toEqual(Object.keys(FINDING_CODES).filter((c) => !fromElsewhere.includes(c)).sort());
   });
   it('turns a throwing rule into one internal-error finding', () => {
     const file = analyseText(bridge());
-    const broken = { ...file, rectifiers: [{ ...file.rectifiers[0]!, solution: undefined as never }] };
-    const findings = applyRules({ rootUri: file.uri, netlist: file.netlist, flat: file.flat, rectifiers: broken.rectifiers, nearMisses: [], settings: {} });
+    const broken = { ...file, rectifiers: [{ ...file.rectifiers[0]!, devices: file.rectifiers[0]!.devices.map((d) => ({ ...d, figures: undefined as never })) }] };
+    const findings = applyRules({
+      rootUri: file.uri, netlist: file.netlist, flat: file.flat, rectifiers: broken.rectifiers, nearMisses: [], policy: file.policy,
+    } satisfies RuleInput);
     expect(findings.some((f) => f.code === 'internal-error' && f.message.startsWith('rule piv-margin failed'))).toBe(true);
     expect(findings.some((f) => f.code === 'hazardous-voltage')).toBe(true);
   });

@@ -4,12 +4,13 @@
  * line); nothing here touches the file system, the clock or the settings store.
  */
 import { parseNetlist, type Netlist } from '../../../grammar/src/index';
-import { elaborate, type FlatCircuit } from '../circuit/index';
-import type { PartsFile } from '../ratings/index';
+import { elaborate, isRefusal, type FileText, type FlatCircuit, type ReadRefusal } from '../circuit/index';
+import { resolvePolicy, type DeratingPolicy, type PartsFile } from '../ratings/index';
 import { recognizeRectifiers, type NearMiss } from '../recognize/index';
 import { applyRules } from '../rules/registry';
 import { filterAllowed } from '../rules/allow';
-import { compareFindings, type Finding } from './findings';
+import { boundMessages, compareFindings, type Finding } from './findings';
+import { includedErrorFindings } from './included-errors';
 import { analyseRectifiers, type RectifierAnalysis } from './rectifier-analysis';
 import { memoisedSolver, type SolutionCache, type SolveFn } from './solver-memo';
 import type { AnalysisSettings } from './settings';
@@ -18,8 +19,11 @@ import { DEFAULT_LIMITS, parseWithinLimits, solverFindings, unsolvedFinding, typ
 export interface AnalysisInput {
   /** The files to analyse as top-level netlists (URIs or paths, as the adapter names them). */
   roots: readonly string[];
-  /** Text of a file, or undefined when it cannot be read. */
-  readText: (uri: string) => string | undefined;
+  /**
+   * Text of a file; a refusal when the adapter would not read it (untrusted, not a regular file,
+   * too large…), which becomes a finding on the card that named it; undefined when it is absent.
+   */
+  readText: (uri: string) => FileText;
   settings?: AnalysisSettings;
   /** Validated workspace parts files. */
   partsFiles?: readonly PartsFile[];
@@ -30,11 +34,6 @@ export interface AnalysisInput {
   previousParse?: (uri: string) => Netlist | undefined;
   /** Solutions kept between analyses by the adapter (see `SolutionCache`). */
   solutionCache?: SolutionCache;
-  /**
-   * A clock in milliseconds for the time budget (`performance.now` in the adapters). The core reads
-   * no clock itself; without one the budget is not enforced.
-   */
-  now?: () => number;
   /** Overrides of the hard limits (tests lower them); see limits.ts. */
   limits?: Partial<AnalysisLimits>;
 }
@@ -50,6 +49,8 @@ export interface FileAnalysis {
   /** Every file this analysis parsed, the root first. */
   parsed: ReadonlyMap<string, Netlist>;
   flat: FlatCircuit;
+  /** The file's derating policy (its `*@ derate`, then settings, then the cited defaults), resolved once. */
+  policy: DeratingPolicy;
   rectifiers: RectifierAnalysis[];
   nearMisses: NearMiss[];
 }
@@ -63,7 +64,7 @@ export interface Snapshot {
 export function analyze(input: AnalysisInput): Snapshot {
   const files = new Map<string, FileAnalysis>();
   const unreadable: string[] = [];
-  const parsedAcrossRoots = new Map<string, Netlist | undefined>();
+  const parsedAcrossRoots = new Map<string, Netlist | ReadRefusal | undefined>();
   for (const uri of input.roots) {
     const file = analyzeRoot(uri, input, parsedAcrossRoots);
     if (file) files.set(uri, file);
@@ -72,11 +73,10 @@ export function analyze(input: AnalysisInput): Snapshot {
   return { files, unreadable };
 }
 
-function analyzeRoot(uri: string, input: AnalysisInput, cache: Map<string, Netlist | undefined>): FileAnalysis | undefined {
-  const started = input.now?.();
+function analyzeRoot(uri: string, input: AnalysisInput, cache: Map<string, Netlist | ReadRefusal | undefined>): FileAnalysis | undefined {
   const limits: AnalysisLimits = { ...DEFAULT_LIMITS, ...input.limits };
   const parsed = new Map<string, Netlist>();
-  const load = (target: string): Netlist | undefined => {
+  const load = (target: string): Netlist | ReadRefusal | undefined => {
     // Included files have no title line; only the root does. A file parses differently in the
     // two roles, so the cache shared between roots keys on both.
     const titleLine = target === uri;
@@ -84,35 +84,37 @@ function analyzeRoot(uri: string, input: AnalysisInput, cache: Map<string, Netli
     if (!cache.has(key)) {
       const text = input.readText(target);
       const previous = input.previousParse?.(target);
-      cache.set(key, text === undefined ? undefined : parseWithinLimits(text, (t) => parseNetlist(t, { titleLine, previous }), limits));
+      cache.set(key, typeof text === 'string' ? parseWithinLimits(text, (t) => parseNetlist(t, { titleLine, previous }), limits) : text);
     }
     const netlist = cache.get(key);
-    if (netlist) parsed.set(target, netlist);
+    if (netlist && !isRefusal(netlist)) parsed.set(target, netlist);
     return netlist;
   };
   const netlist = load(uri);
-  if (!netlist) return undefined;
-  const flat = elaborate(uri, load, { maxDepth: limits.maxHierarchyDepth, maxElements: limits.maxElements });
-  const recognition = recognizeRectifiers(flat);
+  if (!netlist || isRefusal(netlist)) return undefined;
+  const flat = elaborate(uri, load, { maxDepth: limits.maxHierarchyDepth, maxElements: limits.maxElements, maxIncludedCards: limits.maxIncludedCards });
+  const recognition = recognizeRectifiers(flat, flat.directives, limits.maxRecognitionSteps);
   const settings = input.settings ?? {};
+  const { policy } = resolvePolicy(flat.directives, settings);
   const solve = withIterationLimit(memoisedSolver(input.solutionCache), limits.solverIterations);
   const toSolve = recognition.rectifiers.slice(0, limits.maxRectifiers);
-  const outOfTime = input.now && started !== undefined ? () => input.now!() - started > limits.timeBudgetMs : undefined;
-  const { analyses, findings: assumptions } = analyseRectifiers(flat, toSolve, settings, input.partsFiles ?? [], solve, outOfTime);
+  const { analyses, findings: assumptions } = analyseRectifiers(flat, toSolve, settings, input.partsFiles ?? [], solve, limits.maxSolverPeriods);
   const limitFindings = [
-    ...unsolvedFinding(toSolve.slice(analyses.length), `the analysis passed its time budget of ${limits.timeBudgetMs} ms (limit: time per analysis)`),
+    ...unsolvedFinding(toSolve.slice(analyses.length), `the solver used its budget of ${limits.maxSolverPeriods} periods (limit: solver work per analysis)`),
     ...unsolvedFinding(recognition.rectifiers.slice(toSolve.length), `more than ${limits.maxRectifiers} rectifiers (limit: rectifiers solved per analysis)`),
     ...solverFindings(analyses),
   ];
   const syntax = [...parsed].flatMap(([fileUri, n]) => n.diagnostics.map((d) => ({ uri: fileUri, ...d })));
   const ruleFindings = applyRules({
-    rootUri: uri, netlist, flat, rectifiers: analyses, nearMisses: recognition.nearMisses, settings, partsFiles: input.partsFiles ?? [], parsed, solve,
+    rootUri: uri, netlist, flat, rectifiers: analyses, nearMisses: recognition.nearMisses, policy, partsFiles: input.partsFiles ?? [], parsed, solve,
   });
   // `*@ allow` covers the findings of recognition and elaboration of the rectifiers too.
   const accepted = filterAllowed([...recognition.diagnostics, ...assumptions, ...limitFindings], flat.directives, parsed);
-  const findings = dedupe([...syntax, ...flat.diagnostics, ...accepted, ...ruleFindings]).sort(compareFindings);
+  const own = dedupe([...syntax, ...flat.diagnostics, ...accepted, ...ruleFindings]);
+  const included = filterAllowed(includedErrorFindings(uri, parsed, own), flat.directives, parsed);
+  const findings = boundMessages([...own, ...included]).sort(compareFindings);
   return {
-    uri, text: netlist.text, netlist, findings, dependencies: flat.dependencies.filter((d) => d !== uri), parsed, flat,
+    uri, text: netlist.text, netlist, findings, dependencies: flat.dependencies.filter((d) => d !== uri), parsed, flat, policy,
     rectifiers: analyses, nearMisses: recognition.nearMisses,
   };
 }

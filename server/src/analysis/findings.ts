@@ -1,5 +1,5 @@
 /** Findings: what the core says about a file, in offsets; adapters convert to lines and columns. */
-import type { Severity, Span } from '../../../grammar/src/index';
+import { boundMessage, type Severity, type Span } from '../../../grammar/src/index';
 
 export interface TextEdit {
   uri: string;
@@ -44,6 +44,18 @@ export function compareFindings(a: Finding, b: Finding): number {
 }
 
 /**
+ * Findings with their messages bounded (grammar/src/display.ts): netlist text quoted whole is
+ * clipped, whoever produced the message. In place, so that lazily computed fixes stay lazy.
+ */
+export function boundMessages(findings: Finding[]): Finding[] {
+  for (const finding of findings) {
+    finding.message = boundMessage(finding.message);
+    for (const place of finding.related ?? []) place.message = boundMessage(place.message);
+  }
+  return findings;
+}
+
+/**
  * Gives a finding fixes that are computed on first read of `fixes` and then kept. Fix trials
  * re-solve the rectifier, and most findings are never opened for a fix, so they are not computed
  * with every keystroke's analysis.
@@ -64,4 +76,9 @@ function computeSafely(compute: () => (Fix | undefined)[]): Fix[] {
   } catch {
     return [];
   }
+}
+
+/** Indexes of a file's own findings that overlap `[start, end]` (an editor's selection). */
+export function findingsInRange(findings: readonly Finding[], uri: string, start: number, end: number): number[] {
+  return findings.flatMap((f, index) => (f.uri === uri && f.span.end >= start && f.span.start <= end ? [index] : []));
 }

@@ -1,23 +1,44 @@
 /**
  * Hard limits of one analysis. A language server runs on every keystroke over whatever text is in
  * the editor, so every stage has a bound; passing one gives a `limit-exceeded` finding that names
- * the limit, and the analysis goes on with what fits (a partial result, never a failure).
+ * the limit, and the analysis goes on with what fits (a partial result, never a failure). Every
+ * bound counts work (characters, cards, steps, periods), never time, so a file gives the same
+ * findings on any machine.
  *
  * Limits enforced elsewhere, listed here so that one file names them all:
- * - expression nesting: `MAX_EXPRESSION_DEPTH` (200) in grammar/src/expression.ts, an expression error;
+ * - expression nesting: `MAX_EXPRESSION_DEPTH` (200) in grammar/src/expression.ts, of the parse and of
+ *   the tree (a chain 1+1+… is one level per operator), a `syntax-error` on the expression;
+ * - parenthesis nesting in a card: `MAX_GROUP_DEPTH` (32) in grammar/src/card-parser.ts, a
+ *   `syntax-error` on the first '(' past it;
+ * - definition nesting: `MAX_BLOCK_DEPTH` (64) in grammar/src/structure.ts, code `subckt-depth` on the
+ *   block past it, which is not read;
  * - include nesting: `MAX_INCLUDE_DEPTH` (64) in circuit/includes.ts, code `include-depth`;
+ * - file size on disk: the adapters' safe reader (io/read-file-safely.ts) refuses a file of more
+ *   than `maxFileChars` bytes by its size, before reading it; `limit-exceeded` on the card;
  * - subcircuit nesting and flattened size: `maxHierarchyDepth` and `maxElements` below, passed to
- *   `elaborate`, codes `subckt-depth` and `circuit-too-large`;
+ *   `elaborate`, codes `subckt-depth` and `circuit-too-large`; an instance's size is counted on the
+ *   definitions before it is built (circuit/expansion-size.ts), so a "billion laughs" is refused at
+ *   its top instance; that count has a budget of its own (2 × `maxElements` cards looked at), past
+ *   which the running count during expansion is the bound;
+ * - cards read through includes: `maxIncludedCards` below, `limit-exceeded` on the include card;
+ * - recognition: `maxRecognitionSteps` below (devices and terminals looked at by the matchers),
+ *   `limit-exceeded` on the first device left unchecked;
  * - solver work: the shooting method's Newton iterations (30 by default, solve/shooting.ts) and its
  *   step budgets; a steady state not reached within them gives `limit-exceeded` (solverFindings).
  */
 import type { Netlist, SyntaxDiagnostic } from '../../../grammar/src/index';
+import { DEFAULT_MAX_INCLUDED_CARDS } from '../circuit/index';
+import { DEFAULT_RECOGNITION_STEPS } from '../recognize/index';
 import { NON_FINITE_NOTE } from '../solve/index';
 import type { Finding } from './findings';
 import type { RectifierAnalysis } from './rectifier-analysis';
 
 export interface AnalysisLimits {
-  /** Longest file read, in characters (UTF-16 units, i.e. bytes for ASCII netlists); the rest is cut. */
+  /**
+   * Longest file read, in characters (UTF-16 units, i.e. bytes for ASCII netlists); the rest is cut
+   * before parsing. A parse keeps some 30 bytes of memory per character and takes about 0.2 µs per
+   * character (measured on a 2-core test machine), so this also bounds what one file can cost.
+   */
   maxFileChars: number;
   /** Most cards read from one file; the rest is cut. */
   maxCards: number;
@@ -25,25 +46,37 @@ export interface AnalysisLimits {
   maxHierarchyDepth: number;
   /** Most elements and instances in the flattened circuit. */
   maxElements: number;
+  /** Most cards spliced in from included files, over the whole analysis of a root. */
+  maxIncludedCards: number;
+  /** Most steps of rectifier recognition (devices and terminals the matchers look at). */
+  maxRecognitionSteps: number;
   /** Most rectifiers solved in one analysis; the others are recognised but not solved. */
   maxRectifiers: number;
-  /** Time for one analysis, checked between rectifiers when the adapter passes a clock. */
-  timeBudgetMs: number;
+  /**
+   * Solver work for one analysis, in periods integrated (each corner's shooting iterations plus its
+   * recorded period), checked between rectifiers: once spent, the rest are recognised, not solved.
+   */
+  maxSolverPeriods: number;
   /** Newton iterations per steady state; undefined keeps the solver's own default. */
   solverIterations?: number;
 }
 
 /**
- * The defaults. Sized an order of magnitude above the largest netlists of DESIGN.md §10 (100,000
- * lines, 50 rectifiers), so they stop runaway input, not real designs.
+ * The defaults. Sized above the largest netlists of DESIGN.md §10 (100,000 lines, 50 rectifiers),
+ * so they stop runaway input, not real designs: 8 MiB is 100,000 lines of 80 characters (a 32 MiB
+ * file cost 2.3 GB and 13 s to parse and analyse on a 2-core test machine; 8 MiB costs about a
+ * quarter). A rectifier takes 12 to 40 solver periods (6 corners); 10,000 periods took about 20 s
+ * on that machine, the wall time the period budget replaces.
  */
 export const DEFAULT_LIMITS: Readonly<AnalysisLimits> = {
-  maxFileChars: 32 * 1024 * 1024,
+  maxFileChars: 8 * 1024 * 1024,
   maxCards: 1_000_000,
   maxHierarchyDepth: 64,
   maxElements: 200_000,
+  maxIncludedCards: DEFAULT_MAX_INCLUDED_CARDS,
+  maxRecognitionSteps: DEFAULT_RECOGNITION_STEPS,
   maxRectifiers: 500,
-  timeBudgetMs: 20_000,
+  maxSolverPeriods: 10_000,
 };
 
 export const LIMIT_CODE = 'limit-exceeded';

@@ -7,13 +7,15 @@ import type { Finding } from './findings';
 import type { AnalysisSettings } from './settings';
 import { createRatingResolver, type PartsFile, type RatingsOf, type ResolvedRatings } from '../ratings/index';
 import { toEquivalentCircuit, type DeviceRatingHints, type Rectifier, type RectifierDeviceRef } from '../recognize/index';
-import { defaultCorners, type Corner, type EquivalentCircuit, type RectifierSolution } from '../solve/index';
+import { defaultCorners, deviceFiguresOf, type Corner, type DeviceFigures, type EquivalentCircuit, type RectifierSolution } from '../solve/index';
 import type { SolveFn } from './solver-memo';
 
 export interface DeviceAnalysis {
   ref: RectifierDeviceRef;
   model?: FlatModel;
   ratings: ResolvedRatings<'diode'> | ResolvedRatings<'mosfet'>;
+  /** Its worst-case figures, per-corner figures and surge, taken from the solution once (solve/device-figures.ts). */
+  figures: DeviceFigures;
 }
 
 export interface CapacitorAnalysis {
@@ -35,24 +37,29 @@ export interface RectifierAnalysis {
 export type { SolutionCache } from './solver-memo';
 
 /**
- * Analyses the rectifiers in order. `outOfTime` is asked before each one; once it says yes the
- * rest are left out (the caller reports them), so a time budget yields a partial result.
+ * Analyses the rectifiers in order while the solver budget lasts: before each one the periods
+ * integrated so far (`solverPeriods`) are compared with `maxPeriods`; once it is spent the rest are
+ * left out (the caller reports them). The count comes from the solutions, so a cached solution
+ * counts the same as a fresh one and the cut falls in the same place on every run and machine.
  */
 export function analyseRectifiers(
   flat: FlatCircuit, rectifiers: readonly Rectifier[], settings: AnalysisSettings, partsFiles: readonly PartsFile[], solve: SolveFn,
-  outOfTime?: () => boolean,
+  maxPeriods = Infinity,
 ): { analyses: RectifierAnalysis[]; findings: Finding[] } {
   const resolve = createRatingResolver({ directives: flat.directives, partsFiles });
   const findings: Finding[] = [];
   const analyses: RectifierAnalysis[] = [];
+  let periods = 0;
   for (const rectifier of rectifiers) {
-    if (outOfTime?.()) break;
-    const devices = rectifier.devices.map((ref) => resolveDevice(ref, flat, resolve));
-    const hints = ratingHints(devices, resolve);
+    if (periods >= maxPeriods) break;
+    const rated = rectifier.devices.map((ref) => resolveDevice(ref, flat, resolve));
+    const hints = ratingHints(rated, resolve);
     const { circuit, diagnostics } = toEquivalentCircuit(rectifier, flat.models, hints);
     findings.push(...diagnostics);
     const corners = cornersFor(rectifier, flat, settings);
     const solution = solve(circuit, corners);
+    periods += solverPeriods(solution);
+    const devices = rated.map((d, k): DeviceAnalysis => ({ ...d, figures: deviceFiguresOf(circuit, solution, k) }));
     const capacitors = rectifier.surroundings.capacitors.flatMap((c) => c.names).map((name) => ({
       name, ratings: resolve({ kind: 'capacitor', instanceName: name }).ratings,
     }));
@@ -64,9 +71,14 @@ export function analyseRectifiers(
   return { analyses, findings };
 }
 
+/** The solver's work for one rectifier: periods integrated, each corner's shooting iterations and its recorded period. */
+export function solverPeriods(solution: RectifierSolution): number {
+  return solution.corners.reduce((sum, c) => sum + c.shootingIterations + 1, 0);
+}
+
 type Resolver = ReturnType<typeof createRatingResolver>;
 
-function resolveDevice(ref: RectifierDeviceRef, flat: FlatCircuit, resolve: Resolver): DeviceAnalysis {
+function resolveDevice(ref: RectifierDeviceRef, flat: FlatCircuit, resolve: Resolver): Omit<DeviceAnalysis, 'figures'> {
   const model = ref.model ? flat.models.get(ref.model) : undefined;
   const query = { instanceName: ref.name, modelName: model?.name, model: model ? { name: model.name, params: model.params, uri: model.uri, span: model.span } : undefined };
   const ratings = ref.type === 'diode' ? resolve({ kind: 'diode', ...query }) : resolve({ kind: 'mosfet', ...query });
@@ -74,7 +86,7 @@ function resolveDevice(ref: RectifierDeviceRef, flat: FlatCircuit, resolve: Reso
 }
 
 /** What the equivalent circuit needs from the ratings, looked up by instance name. */
-function ratingHints(devices: readonly DeviceAnalysis[], resolve: Resolver) {
+function ratingHints(devices: readonly Omit<DeviceAnalysis, 'figures'>[], resolve: Resolver) {
   const byName = new Map(devices.map((d) => [d.ref.name.toLowerCase(), d]));
   return ({ instance, model }: { instance: string; model?: string }): DeviceRatingHints | undefined => {
     const device = byName.get(instance.toLowerCase());

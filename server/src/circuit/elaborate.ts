@@ -1,13 +1,15 @@
 /**
  * Elaboration: a root netlist and the files it includes → one flat circuit. Subcircuits are
  * expanded with an explicit work stack (never recursion), an instance chain that meets its own
- * subcircuit again is reported and cut, nesting is limited, and the element count is capped, so
- * no input can exhaust the stack or the memory.
+ * subcircuit again is reported and cut, nesting is limited, and the flattened size is capped: an
+ * instance whose expansion would not fit is refused before it is built (expansion-size.ts), so no
+ * input can exhaust the stack, the memory or the time.
  */
-import { key, type InstanceCard, type Item, type Lookup, type ModelCard, type Netlist, type SubcktBlock } from '../../../grammar/src/index';
+import { key, type InstanceCard, type Item, type Lookup, type ModelCard, type Netlist } from '../../../grammar/src/index';
 import { DiagnosticSink } from './diagnostic-sink';
 import { buildElement, terminalsOf, type Frame } from './elements';
 import type { FileSource, FlatCircuit, FlatElement, FlatInstance, FlatModel, PlacedDirective } from './flat-circuit';
+import { ExpansionSizer, lookupDef, type Defs, type SubcktDef } from './expansion-size';
 import { IncludeExpander, type PlacedItem } from './includes';
 import { evaluateParams, instanceScope, resolvePlaced, type PlacedParam } from './scope';
 
@@ -16,19 +18,8 @@ export interface ElaborateOptions {
   maxDepth?: number;
   /** Most elements and instances produced before elaboration stops (default 200,000). */
   maxElements?: number;
-}
-
-/** A subcircuit definition and where it is written. */
-interface SubcktDef {
-  block: SubcktBlock;
-  uri: string;
-  body?: PlacedItem[];
-}
-
-/** Definitions visible in a scope: its own, then the enclosing ones. */
-interface Defs {
-  own: Map<string, SubcktDef>;
-  outer?: Defs;
+  /** Most cards spliced in from included files (default 1,000,000). */
+  maxIncludedCards?: number;
 }
 
 interface Work {
@@ -55,12 +46,16 @@ class Elaborator {
   private readonly seenDirectives = new Set<string>();
   private readonly maxDepth: number;
   private readonly maxElements: number;
+  private readonly sizer: ExpansionSizer;
+  /** Cards charged to the flattened size: top-level elements and instances, and every expanded body whole. */
+  private charged = 0;
   private stopped = false;
 
   constructor(private readonly rootUri: string, files: FileSource, options: ElaborateOptions) {
-    this.expander = new IncludeExpander(files, this.sink);
+    this.expander = new IncludeExpander(files, this.sink, options.maxIncludedCards);
     this.maxDepth = options.maxDepth ?? 64;
     this.maxElements = options.maxElements ?? 200_000;
+    this.sizer = new ExpansionSizer({ body: (def) => this.bodyOf(def), own: (def) => this.subcktsOf(def) }, this.maxDepth, this.maxElements);
   }
 
   run(): FlatCircuit {
@@ -98,7 +93,7 @@ class Elaborator {
         if (child) stack.push(child);
       } else if (isElement(item)) {
         this.elements.push(buildElement(item, frame, this.sink));
-        this.checkBudget(frame.uri, item.span);
+        if (work.path.length === 0) this.charge(1, frame.uri, item.span);
       }
     }
   }
@@ -114,13 +109,13 @@ class Elaborator {
       params: evaluateParams(card.params, frame.lookup, frame.uri, this.sink),
     };
     this.instances.push(instance);
-    this.checkBudget(frame.uri, card.span);
+    if (work.path.length === 0) this.charge(1, frame.uri, card.span);
     if (!card.subckt) return undefined;
     if (!def) {
       this.sink.add({ uri: frame.uri, span: card.subckt.span, severity: 'warning', code: 'unknown-subckt', message: `no .subckt '${card.subckt.text}' is defined; ${card.name.text} is kept as a black box` });
       return undefined;
     }
-    if (!this.canExpand(card, frame, work, subckt)) return undefined;
+    if (!this.canExpand(card, frame, work, subckt) || !this.fits(card, frame, work, def, subckt)) return undefined;
     instance.resolved = true;
     return this.enter(card, frame, work, def, global);
   }
@@ -141,10 +136,32 @@ class Elaborator {
     return true;
   }
 
+  /** Whether the instance's whole expansion fits in the flattened size; a finding on it when not. */
+  private fits(card: InstanceCard, frame: Frame, work: Work, def: SubcktDef, subckt: string): boolean {
+    const size = this.sizer.sizeOf(def, work.defs, [...work.path, subckt]);
+    // Unknown (the counting budget is spent): the running count in `charge` still stops the expansion.
+    if (size === undefined || this.charged + size <= this.maxElements) return true;
+    const cards = size > this.maxElements ? `more than ${this.maxElements}` : String(size);
+    this.sink.add({
+      uri: frame.uri, span: card.name.span, severity: 'error', code: 'circuit-too-large',
+      message: `with ${card.name.text} (${cards} cards once expanded) the flattened circuit passes ${this.maxElements} elements (limit: flattened size); ${card.name.text} is not expanded and nothing inside it is analysed`,
+    });
+    return false;
+  }
+
+  private bodyOf(def: SubcktDef): PlacedItem[] {
+    return (def.body ??= this.expander.expand(def.block.body, def.uri, [def.uri]));
+  }
+
+  private subcktsOf(def: SubcktDef): Map<string, SubcktDef> {
+    return (def.own ??= this.defineSubckts(this.bodyOf(def)));
+  }
+
   /** The scope of a new instance: ports, parameters, local models and definitions. */
   private enter(card: InstanceCard, frame: Frame, work: Work, def: SubcktDef, global: Lookup): Work {
     const header = def.block.header;
-    def.body ??= this.expander.expand(def.block.body, def.uri, [def.uri]);
+    const body = this.bodyOf(def);
+    this.charge(body.length, frame.uri, card.span);
     if (header.ports.length !== card.nodes.length) {
       this.sink.add({ uri: frame.uri, span: card.name.span, severity: 'error', code: 'port-count', message: `${card.name.text} connects ${card.nodes.length} nodes but '${header.name?.text}' has ${header.ports.length} ports` });
     }
@@ -156,16 +173,16 @@ class Elaborator {
     const lookup = instanceScope(
       { params: header.params, uri: def.uri },
       { params: card.params, uri: frame.uri, lookup: frame.lookup },
-      paramsOf(def.body), global, this.sink,
+      paramsOf(body), global, this.sink,
     );
     const step = { name: card.name.text, subckt: key(header.name ?? card.subckt!), uri: frame.uri, span: card.span, nameSpan: card.name.span };
     const keyPrefix = `${frame.keyPrefix}${key(card.name)}.`;
     const child: Frame = {
       uri: def.uri, namePrefix: `${frame.namePrefix}${card.name.text}.`, keyPrefix, ports, lookup, chain: [...frame.chain, step],
-      modelKey: this.defineModels(def.body, keyPrefix, lookup, frame.modelKey),
+      modelKey: this.defineModels(body, keyPrefix, lookup, frame.modelKey),
     };
-    this.collectDirectives(def.body);
-    return { items: def.body, next: 0, frame: child, defs: { own: this.defineSubckts(def.body), outer: work.defs }, path: [...work.path, step.subckt] };
+    this.collectDirectives(body);
+    return { items: body, next: 0, frame: child, defs: { own: this.subcktsOf(def), outer: work.defs }, path: [...work.path, step.subckt] };
   }
 
   private defineSubckts(items: readonly PlacedItem[]): Map<string, SubcktDef> {
@@ -201,19 +218,13 @@ class Elaborator {
     }
   }
 
-  private checkBudget(uri: string, span: { start: number; end: number }): void {
-    if (this.elements.length + this.instances.length <= this.maxElements) return;
+  /** Adds to the flattened size; past the limit, elaboration stops with a finding (after `fits`, only when sizes were unknown). */
+  private charge(cards: number, uri: string, span: { start: number; end: number }): void {
+    this.charged += cards;
+    if (this.charged <= this.maxElements || this.stopped) return;
     this.stopped = true;
     this.sink.add({ uri, span, severity: 'error', code: 'circuit-too-large', message: `the flattened circuit passes ${this.maxElements} elements; elaboration stops here` });
   }
-}
-
-function lookupDef(defs: Defs | undefined, name: string): SubcktDef | undefined {
-  for (let d = defs; d; d = d.outer) {
-    const found = d.own.get(name);
-    if (found) return found;
-  }
-  return undefined;
 }
 
 function paramsOf(items: readonly PlacedItem[]): PlacedParam[] {

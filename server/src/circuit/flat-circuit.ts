@@ -4,6 +4,7 @@
  * finding can point at the right text in the right file. Plain data.
  */
 import type { Directive, Netlist, Severity, Span } from '../../../grammar/src/index';
+import type { ReadRefusal } from './file-text';
 
 /** A place in a file: the URI (or path) as the adapter names it, and character offsets. */
 export interface Place {
@@ -179,8 +180,11 @@ export interface FlatCircuit {
   diagnostics: CoreDiagnostic[];
 }
 
-/** Already-parsed files by URI, or a pure lookup; undefined means the file cannot be read. */
-export type FileSource = ReadonlyMap<string, Netlist> | ((uri: string) => Netlist | undefined);
+/**
+ * Already-parsed files by URI, or a pure lookup; undefined means the file cannot be read, and a
+ * refusal says why (see file-text.ts).
+ */
+export type FileSource = ReadonlyMap<string, Netlist> | ((uri: string) => Netlist | ReadRefusal | undefined);
 
 /**
  * Where a finding about an element belongs: the element's name in its card at top level, or the

@@ -5,6 +5,7 @@
  */
 import { key, type IncludeCard, type Item, type LibCard, type Netlist } from '../../../grammar/src/index';
 import type { DiagnosticSink } from './diagnostic-sink';
+import { isRefusal, refusalCode, REFUSAL_SEVERITY, type ReadRefusal } from './file-text';
 import type { FileSource } from './flat-circuit';
 
 /** Deeper include nesting than this is reported rather than followed. */
@@ -58,9 +59,10 @@ export function listIncludeTargets(uri: string, netlist: Netlist): IncludeTarget
   return targets;
 }
 
-/** Reads a file from the source the adapter gave. */
+/** Reads a file from the source the adapter gave; a refusal reads as no file. */
 export function readSource(files: FileSource, uri: string): Netlist | undefined {
-  return typeof files === 'function' ? files(uri) : files.get(uri);
+  const found = typeof files === 'function' ? files(uri) : files.get(uri);
+  return isRefusal(found) ? undefined : found;
 }
 
 /**
@@ -89,56 +91,125 @@ export function collectDependencies(rootUri: string, files: FileSource): { files
   return { files: found, missing };
 }
 
+/**
+ * Most cards spliced in from included files in one elaboration (the default; the analysis passes
+ * its own limit). As many as one file may hold, so a file read through `.include` gets as far as
+ * the same text inline; a fan-out (a file including another a thousand times, each including a
+ * third a thousand times…) stops here instead of growing without end.
+ */
+export const DEFAULT_MAX_INCLUDED_CARDS = 1_000_000;
+
+/** A file or library section being spliced in: its items, the next one to take, and where it came from. */
+interface Splice {
+  items: readonly Item[];
+  next: number;
+  uri: string;
+  /** The `uri#section` keys being expanded, outermost first. */
+  stack: readonly string[];
+  /** The card that asked for it (absent for the block being expanded itself). */
+  card?: IncludeCard | LibCard;
+}
+
 /** Splices included files and library sections into a list of items, reporting cycles and missing files on the card. */
 export class IncludeExpander {
   /** Files that were read, in first-read order. */
   readonly used: string[] = [];
+  private readonly usedSet = new Set<string>();
+  /** Cards taken from included files so far, counted before each is placed. */
+  private spliced = 0;
 
-  constructor(private readonly files: FileSource, private readonly sink: DiagnosticSink) {}
+  constructor(private readonly files: FileSource, private readonly sink: DiagnosticSink, private readonly maxIncludedCards = DEFAULT_MAX_INCLUDED_CARDS) {}
 
   /** Reads a file and remembers that the analysis depends on it. */
   read(uri: string): Netlist | undefined {
-    const netlist = readSource(this.files, uri);
-    if (netlist && !this.used.includes(uri)) this.used.push(uri);
-    return netlist;
+    const found = this.fetch(uri);
+    return isRefusal(found) ? undefined : found;
   }
 
-  /** Items of a block with every include expanded; `stack` holds the `uri#section` keys being expanded. */
+  /** The file, or the adapter's refusal of it. */
+  private fetch(uri: string): Netlist | ReadRefusal | undefined {
+    const found = typeof this.files === 'function' ? this.files(uri) : this.files.get(uri);
+    if (found && !isRefusal(found) && !this.usedSet.has(uri)) {
+      this.usedSet.add(uri);
+      this.used.push(uri);
+    }
+    return found;
+  }
+
+  /**
+   * Items of a block with every include expanded; `stack` holds the `uri#section` keys being
+   * expanded. An explicit work stack, not recursion, and no spreading of a file's items into one
+   * call: an included file of any length, nested to the depth limit, costs no stack.
+   */
   expand(items: readonly Item[], uri: string, stack: readonly string[]): PlacedItem[] {
     const out: PlacedItem[] = [];
-    for (const item of items) {
-      if (item.kind === 'include' || (item.kind === 'lib' && item.path)) out.push(...this.expandCard(item, uri, stack));
-      else if (item.kind !== 'lib-section') out.push({ item, uri });
+    const work: Splice[] = [{ items, next: 0, uri, stack }];
+    while (work.length) {
+      const top = work[work.length - 1]!;
+      const item = top.items[top.next++];
+      if (!item) work.pop();
+      else if (item.kind === 'include' || (item.kind === 'lib' && item.path)) {
+        const child = this.open(item, top.uri, top.stack);
+        if (child) work.push(child);
+      } else if (item.kind !== 'lib-section') {
+        if (work.length > 1 && !this.withinBudget(work[1]!.card!, uri)) work.length = 1;
+        else out.push({ item, uri: top.uri });
+      }
     }
     return out;
   }
 
-  private expandCard(card: IncludeCard | LibCard, uri: string, stack: readonly string[]): PlacedItem[] {
-    if (!card.path) return [];
+  /** Counts one more included card; past the limit, reports it once on the outermost include card. */
+  private withinBudget(card: IncludeCard | LibCard, uri: string): boolean {
+    if (++this.spliced <= this.maxIncludedCards) return true;
+    this.sink.add({
+      uri, span: card.path!.span, severity: 'error', code: 'limit-exceeded',
+      message: `'${card.path!.text}' and what it includes pass ${this.maxIncludedCards} cards read through includes (limit: included cards per analysis); the rest of it and every later include are not read`,
+    });
+    return false;
+  }
+
+  /** The splice an include card asks for, or undefined (with a finding) when it cannot be read. */
+  private open(card: IncludeCard | LibCard, uri: string, stack: readonly string[]): Splice | undefined {
+    if (!card.path) return undefined;
     const target = resolveIncludePath(uri, card.path.text);
     const section = card.kind === 'lib' && card.section ? key(card.section) : undefined;
     const frame = section ? `${target}#${section}` : target;
     const where = { uri, span: card.path.span };
+    if (this.spliced > this.maxIncludedCards) {
+      this.sink.add({ ...where, severity: 'error', code: 'limit-exceeded', message: `'${card.path.text}' is not read: earlier includes already brought in ${this.maxIncludedCards} cards (limit: included cards per analysis)` });
+      return undefined;
+    }
     if (stack.includes(frame)) {
       this.sink.add({ ...where, severity: 'error', code: 'include-cycle', message: `'${card.path.text}' is already being read (${[...stack, frame].join(' → ')}); this include is skipped` });
-      return [];
+      return undefined;
     }
     if (stack.length >= MAX_INCLUDE_DEPTH) {
       this.sink.add({ ...where, severity: 'error', code: 'include-depth', message: `includes nest deeper than ${MAX_INCLUDE_DEPTH} files; '${card.path.text}' is not read` });
-      return [];
+      return undefined;
     }
-    const netlist = this.read(target);
-    if (!netlist) {
-      this.sink.add({ ...where, severity: 'error', code: 'missing-include', message: `cannot read '${card.path.text}' (looked for ${target})` });
-      return [];
+    const netlist = this.fetch(target);
+    if (!netlist || isRefusal(netlist)) {
+      this.sink.add({ ...where, ...unreadFinding(card.path.text, target, netlist) });
+      return undefined;
     }
-    if (!section) return this.expand(netlist.items, target, [...stack, frame]);
+    if (!section) return { items: netlist.items, next: 0, uri: target, stack: [...stack, frame], card };
     const block = netlist.items.find((i) => i.kind === 'lib-section' && i.header.section && key(i.header.section) === section);
     if (!block || block.kind !== 'lib-section') {
       const at = card.kind === 'lib' && card.section ? card.section.span : card.path.span;
       this.sink.add({ uri, span: at, severity: 'error', code: 'missing-lib-section', message: `'${card.path.text}' has no section '${section}'` });
-      return [];
+      return undefined;
     }
-    return this.expand(block.body, target, [...stack, frame]);
+    return { items: block.body, next: 0, uri: target, stack: [...stack, frame], card };
   }
+}
+
+/** The finding on a card whose file was not given: why, when the adapter said, and what was not read. */
+function unreadFinding(written: string, target: string, refusal: ReadRefusal | undefined) {
+  const code = refusalCode(refusal, 'missing-include');
+  // A missing file names where it was looked for; the other reasons name their path themselves.
+  const message = refusal
+    ? `'${written}' is not read: ${refusal.reason}${refusal.refused === 'missing' ? ` (looked for ${target})` : ''}; what it defines is missing from the analysis`
+    : `cannot read '${written}' (looked for ${target})`;
+  return { severity: REFUSAL_SEVERITY, code, message };
 }

@@ -5,7 +5,7 @@
  * references, cycles, long chains) is the grammar's `resolveParams`, which is iterative.
  */
 import {
-  evaluateValue, key, resolveParams,
+  evaluateValue, foldExpr, key, resolveParams,
   type Expr, type Lookup, type Param, type ParamDefinition, type Span, type Value,
 } from '../../../grammar/src/index';
 import type { DiagnosticSink } from './diagnostic-sink';
@@ -107,13 +107,15 @@ function shiftValue(value: Value, by: number): Value {
   return { ...value, span: shiftSpan(value.span, by), expr: value.expr && shiftExpr(value.expr, by) };
 }
 
-/** Expressions are at most MAX_EXPRESSION_DEPTH deep (the parser refuses deeper), so recursion is safe. */
+/** Rebuilds the tree bottom-up with the grammar's stack-free fold. */
 function shiftExpr(expr: Expr, by: number): Expr {
-  const at = { start: expr.start + by, end: expr.end + by };
-  switch (expr.type) {
-    case 'unary': return { ...expr, ...at, arg: shiftExpr(expr.arg, by) };
-    case 'binary': return { ...expr, ...at, left: shiftExpr(expr.left, by), right: shiftExpr(expr.right, by) };
-    case 'call': return { ...expr, ...at, args: expr.args.map((a) => shiftExpr(a, by)) };
-    default: return { ...expr, ...at };
-  }
+  return foldExpr<Expr>(expr, (e, operands) => {
+    const at = { start: e.start + by, end: e.end + by };
+    switch (e.type) {
+      case 'unary': return { ...e, ...at, arg: operands[0]! };
+      case 'binary': return { ...e, ...at, left: operands[0]!, right: operands[1]! };
+      case 'call': return { ...e, ...at, args: operands };
+      default: return { ...e, ...at };
+    }
+  });
 }

@@ -13,18 +13,29 @@ export interface ParsedArgs {
 
 export class UsageError extends Error {}
 
+/**
+ * Reads `--name value`, `--name=value` and boolean `--name`. `--` ends the options: every argument
+ * after it is a file, whatever it starts with. Before it, an argument starting with `-` (other
+ * than `-` itself) is an option, and an unknown one is a usage error rather than a file name.
+ */
 export function parseArgs(argv: readonly string[], specs: Readonly<Record<string, FlagSpec>>): ParsedArgs {
   const positional: string[] = [];
   const flags = new Map<string, string | true>();
+  const known = () => Object.keys(specs).map((k) => `--${k}`).join(', ') || 'none';
   for (let i = 0; i < argv.length; i++) {
     const arg = argv[i]!;
-    if (!arg.startsWith('--') || arg === '--') {
-      if (arg !== '--') positional.push(arg);
+    if (arg === '--') {
+      positional.push(...argv.slice(i + 1));
+      break;
+    }
+    if (!arg.startsWith('-') || arg === '-') {
+      positional.push(arg);
       continue;
     }
+    if (!arg.startsWith('--')) throw new UsageError(`unknown option ${arg}; known: ${known()} (a file whose name starts with '-' goes after --)`);
     const [name, inline] = splitFlag(arg.slice(2));
     const spec = specs[name];
-    if (!spec) throw new UsageError(`unknown option --${name}; known: ${Object.keys(specs).map((k) => `--${k}`).join(', ') || 'none'}`);
+    if (!spec) throw new UsageError(`unknown option --${name}; known: ${known()}`);
     if (spec.boolean) {
       flags.set(name, true);
       continue;

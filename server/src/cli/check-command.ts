@@ -3,11 +3,12 @@ import { isAbsolute, relative as relativePath, sep } from 'node:path';
 import { analyze, type FileAnalysis, type Snapshot } from '../analysis/analyze';
 import { reaches } from '../analysis/findings';
 import { parseArgs, UsageError } from './args';
-import { cachedReader, collectNetlistFiles } from './netlist-files';
+import { cachedReader, collectNetlistFiles, unreadReason } from './netlist-files';
 import { toJsonReport } from './report-json';
 import { toSarif } from './report-sarif';
 import { toTextReport } from './report-text';
 import type { CommandIo } from './command-io';
+import type { FileText } from '../circuit/index';
 import { TOOL_VERSION } from './tool-version';
 
 export const CHECK_USAGE = 'rectilens check <files or folders…> [--format text|json|sarif] [--fail-on error|warning|never]';
@@ -20,9 +21,9 @@ export function runCheck(argv: readonly string[], io: CommandIo): number {
   const read = cachedReader();
   const snapshot = files.length >= PROGRESS_MIN_FILES && io.stderrIsTty
     ? analyzeWithProgress(files, read, io)
-    : analyze({ roots: files, readText: read, now: () => performance.now() });
+    : analyze({ roots: files, readText: read });
   for (const problem of problems) io.stderr(`rectilens: cannot read ${problem.path}: ${problem.reason}\n`);
-  for (const path of snapshot.unreadable) io.stderr(`rectilens: cannot read ${path}\n`);
+  for (const path of snapshot.unreadable) io.stderr(`rectilens: cannot read ${path}: ${unreadReason(read, path)}\n`);
   const report = toJsonReport(snapshot);
   const format = args.flags.get('format') ?? 'text';
   if (format === 'json') io.stdout(JSON.stringify(report, null, 2) + '\n');
@@ -42,12 +43,12 @@ export const PROGRESS_MIN_FILES = 5;
  * Analyses file by file so a progress line can be drawn on stderr between them; it is
  * overwritten in place with a carriage return and cleared at the end, so logs stay clean.
  */
-function analyzeWithProgress(files: readonly string[], read: (path: string) => string | undefined, io: CommandIo): Snapshot {
+function analyzeWithProgress(files: readonly string[], read: (path: string) => FileText, io: CommandIo): Snapshot {
   const all = new Map<string, FileAnalysis>();
   const unreadable: string[] = [];
   files.forEach((path, k) => {
     io.stderr(`\r\x1b[Krectilens: checking ${k + 1}/${files.length} ${path}`);
-    const one = analyze({ roots: [path], readText: read, now: () => performance.now() });
+    const one = analyze({ roots: [path], readText: read });
     for (const [uri, file] of one.files) all.set(uri, file);
     unreadable.push(...one.unreadable);
   });

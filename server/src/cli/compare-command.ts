@@ -1,6 +1,8 @@
 /** `rectilens compare <file> [--format text|json]`: the topology comparison of every bridge in a file. */
-import { compareTopologies, type ComparisonRow, type TopologyComparison } from '../features/comparison';
-import { formatCelsius, formatPercent, formatSi } from '../features/format';
+import { escapeControlChars } from '../../../grammar/src/index';
+import { memoisedSolver } from '../analysis/solver-memo';
+import { compareTopologies, type ComparisonRow, type TopologyComparison } from '../compare/index';
+import { formatCelsius, formatFixed, formatPercent, formatSi } from '../features/format';
 import { rectifierLabel } from '../features/html-blocks';
 import { shortCornerName } from '../features/report-text-annotated';
 import { parseArgs } from './args';
@@ -15,7 +17,8 @@ export function runCompare(argv: readonly string[], io: CommandIo): number {
   const file = analyseSingleNetlist(args.positional, 'compare', COMPARE_USAGE, io);
   if (!file) return 2;
   const path = args.positional[0]!;
-  const comparisons = file.rectifiers.map((analysis) => ({ label: rectifierLabel(analysis), comparison: compareTopologies(analysis) }));
+  const solve = memoisedSolver(undefined);
+  const comparisons = file.rectifiers.map((analysis) => ({ label: rectifierLabel(analysis), comparison: compareTopologies(analysis, file.policy, solve) }));
   if (args.flags.get('format') === 'json') {
     io.stdout(JSON.stringify({ version: 1, path, rectifiers: comparisons.map((c) => c.comparison) }, null, 2) + '\n');
     return 0;
@@ -23,7 +26,8 @@ export function runCompare(argv: readonly string[], io: CommandIo): number {
   const out = [`== ${path}`];
   if (comparisons.length === 0) out.push('No rectifier recognised.');
   for (const { label, comparison } of comparisons) out.push('', `-- ${label} [${comparison.rectifierId}]`, ...comparisonText(comparison));
-  io.stdout(out.join('\n') + '\n');
+  // Labels and assumptions name netlist parts: no control character of theirs reaches the terminal.
+  io.stdout(escapeControlChars(out.join('\n') + '\n'));
   return 0;
 }
 
@@ -51,7 +55,7 @@ function rowCells(r: ComparisonRow, hasCost: boolean): string[] {
     at(formatSi(r.rectifierLossW?.value, 'W'), r.rectifierLossW?.corner),
     r.thermalRunaway ? 'runaway' : at(formatCelsius(r.hottestTjC?.value), r.hottestTjC?.corner),
     at(formatSi(r.inrushPeakA?.value, 'A'), r.inrushPeakA?.corner),
-    ...(hasCost ? [r.cost === undefined ? '—' : r.cost.toFixed(2)] : []),
+    ...(hasCost ? [formatFixed(r.cost, 2)] : []),
     r.construction,
   ];
 }

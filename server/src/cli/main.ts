@@ -1,7 +1,7 @@
 /** The `rectilens` command: a thin adapter from argv to the core's commands. */
 import { UsageError } from './args';
 import { CHECK_USAGE, runCheck } from './check-command';
-import { processIo, type CommandIo } from './command-io';
+import { exitOnOutputFailure, processIo, type CommandIo } from './command-io';
 import { COMPARE_USAGE, runCompare } from './compare-command';
 import { REPORT_USAGE, runReport } from './report-command';
 import { startStdioOrIpcServer } from '../lsp/start';
@@ -47,6 +47,8 @@ export function runCommandLine(argv: readonly string[], io: CommandIo): number {
 }
 
 if (require.main === module) {
+  // The language server owns its standard output (the protocol); every other command reports a failed write.
+  if (process.argv[2] !== 'lsp') exitOnOutputFailure();
   const code = runCommandLine(process.argv.slice(2), processIo);
   if (code >= 0) process.exitCode = code;
 }

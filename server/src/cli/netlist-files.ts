@@ -1,6 +1,8 @@
 /** Finds netlist files under the paths given on the command line, and reads them. */
-import { readdirSync, readFileSync, statSync } from 'node:fs';
+import { readdirSync, statSync } from 'node:fs';
 import { extname, join } from 'node:path';
+import type { FileText } from '../circuit/index';
+import { readFileSafely } from '../io/read-file-safely';
 
 export const NETLIST_EXTENSIONS: readonly string[] = ['.cir', '.net', '.sp', '.spi', '.ckt'];
 const SKIPPED_FOLDERS = new Set(['node_modules', '.git', 'dist', 'out']);
@@ -36,19 +38,22 @@ function walk(folder: string, into: string[]): void {
   }
 }
 
-/** Reads files on demand and remembers them, so includes shared by several roots are read once. */
-export function cachedReader(): (path: string) => string | undefined {
-  const cache = new Map<string, string | undefined>();
+/**
+ * Reads files on demand through the safe reader (regular files only, size-capped, never blocking)
+ * and remembers them, so includes shared by several roots are read once.
+ */
+export function cachedReader(): (path: string) => FileText {
+  const cache = new Map<string, FileText>();
   return (path) => {
-    if (!cache.has(path)) {
-      try {
-        cache.set(path, readFileSync(path, 'utf8'));
-      } catch {
-        cache.set(path, undefined);
-      }
-    }
+    if (!cache.has(path)) cache.set(path, readFileSafely(path));
     return cache.get(path);
   };
+}
+
+/** Why a root was not read, for the one-line message on stderr. */
+export function unreadReason(read: (path: string) => FileText, path: string): string {
+  const text = read(path);
+  return typeof text === 'object' ? text.reason : 'it could not be read';
 }
 
 export function describeError(error: unknown): string {

@@ -1,4 +1,9 @@
-/** Compiler-style text: `file:line:col: severity code: message`, then a one-line summary. */
+/**
+ * Compiler-style text: `file:line:col: severity code: message`, then a one-line summary. Messages
+ * quote netlist text, which may hold control characters: they are written as escapes (`\x1B`),
+ * so the netlist cannot drive the terminal.
+ */
+import { escapeControlChars } from '../../../grammar/src/index';
 import type { JsonReport } from './report-json';
 
 export function toTextReport(report: JsonReport): string {
@@ -14,5 +19,5 @@ export function toTextReport(report: JsonReport): string {
   lines.push(
     `${files} file${files === 1 ? '' : 's'} checked: ${counts.error} error(s), ${counts.warning} warning(s), ${counts.info} info, ${counts.hint} hint(s)`,
   );
-  return lines.join('\n') + '\n';
+  return escapeControlChars(lines.join('\n') + '\n');
 }

@@ -3,7 +3,7 @@ import { statSync } from 'node:fs';
 import { analyze, type FileAnalysis } from '../analysis/analyze';
 import { UsageError } from './args';
 import type { CommandIo } from './command-io';
-import { cachedReader, describeError } from './netlist-files';
+import { cachedReader, describeError, unreadReason } from './netlist-files';
 
 /**
  * The analysed file, or undefined after a one-line message on stderr when it cannot be read
@@ -19,8 +19,9 @@ export function analyseSingleNetlist(positional: readonly string[], command: str
     io.stderr(`rectilens: cannot read ${path}: ${describeError(error)}\n`);
     return undefined;
   }
-  const snapshot = analyze({ roots: [path], readText: cachedReader(), now: () => performance.now() });
+  const read = cachedReader();
+  const snapshot = analyze({ roots: [path], readText: read });
   const file = snapshot.files.get(path);
-  if (!file) io.stderr(`rectilens: cannot read ${path}\n`);
+  if (!file) io.stderr(`rectilens: cannot read ${path}: ${unreadReason(read, path)}\n`);
   return file;
 }

@@ -1,4 +1,5 @@
 /** Code lenses above each rectifier: its kind and headline figures, and the two view commands. */
+import { COMMANDS } from '../protocol/custom-protocol';
 import type { FileAnalysis } from '../analysis/analyze';
 import { formatPercent, formatSi, KIND_NAMES, trim } from './format';
 
@@ -23,8 +24,8 @@ export function codeLensesOf(file: FileAnalysis): CodeLens[] {
     const args = [file.uri, analysis.rectifier.id];
     return [
       { offset: anchor.span.start, title: summary },
-      { offset: anchor.span.start, title: 'Waveforms', command: { id: 'rectilens.showWaveforms', args } },
-      { offset: anchor.span.start, title: 'Compare topologies', command: { id: 'rectilens.compareTopologies', args } },
+      { offset: anchor.span.start, title: 'Waveforms', command: { id: COMMANDS.showWaveforms, args } },
+      { offset: anchor.span.start, title: 'Compare topologies', command: { id: COMMANDS.compareTopologies, args } },
     ];
   });
 }

@@ -3,9 +3,9 @@
  * (efficiency written beside each bar), and the full table as HTML. Every row carries
  * `data-variant="<id>"` (`as-drawn`, `silicon`, `schottky`, `hybrid`, `synchronous`).
  */
-import type { ComparisonRow, TopologyComparison } from './comparison';
+import type { ComparisonRow, TopologyComparison } from '../compare/index';
 import { coord, escapeMarkup, niceTicks, tickLabel } from './markup';
-import { formatCelsius, formatPercent, formatSi } from './format';
+import { formatCelsius, formatFixed, formatPercent, formatSi } from './format';
 
 const BAR_COLOURS: Readonly<Record<ComparisonRow['id'], string>> = {
   'as-drawn': '#5b574f',
@@ -73,7 +73,7 @@ export function renderComparisonTable(comparison: TopologyComparison): string {
         cornerCell(formatSi(row.rectifierLossW?.value, 'W'), row.rectifierLossW?.corner),
         cornerCell(`${formatCelsius(row.hottestTjC?.value)}${row.thermalRunaway ? ' (runaway)' : ''}`, row.hottestTjC ? `${row.hottestTjC.device}, ${row.hottestTjC.corner}` : undefined),
         cornerCell(formatSi(row.inrushPeakA?.value, 'A'), row.inrushPeakA?.corner),
-        ...(hasCost ? [`<td>${row.cost === undefined ? '—' : escapeMarkup(row.cost.toFixed(2))}</td>`] : []),
+        ...(hasCost ? [`<td>${row.cost === undefined ? '—' : escapeMarkup(formatFixed(row.cost, 2))}</td>`] : []),
       ]
       : [`<td colspan="${hasCost ? 5 : 4}" class="rl-na">not applicable: ${escapeMarkup(row.reason ?? '')}</td>`];
     return `<tr data-variant="${escapeMarkup(row.id)}"><th scope="row">${escapeMarkup(row.label)}</th><td>${escapeMarkup(row.construction)}</td>${cells.join('')}</tr>`;

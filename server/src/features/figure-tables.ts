@@ -4,7 +4,7 @@
  */
 import type { DeviceAnalysis, RectifierAnalysis } from '../analysis/rectifier-analysis';
 import type { CornerSolution, DeviceSolution, WorstFigures, WorstValue } from '../solve/index';
-import { formatCelsius, formatPercent, formatSi } from './format';
+import { formatCelsius, formatFixed, formatPercent, formatSi } from './format';
 
 export interface FigureRow {
   label: string;
@@ -35,7 +35,7 @@ const RECTIFIER_FIGURES: readonly CornerFigure[] = [
   { label: 'Rectifier loss', key: 'rectifierLossW', get: (c) => c.rectifierLossW, show: (v) => formatSi(v, 'W') },
   { label: 'Efficiency', key: 'efficiency', get: (c) => c.efficiency, show: formatPercent },
   { label: 'Source current, RMS (mains side)', key: 'sourceIrmsA', get: (c) => c.sourceIrmsA, show: (v) => formatSi(v, 'A') },
-  { label: 'Power factor', key: 'powerFactor', get: (c) => c.powerFactor, show: (v) => (v === undefined ? '—' : v.toFixed(3)) },
+  { label: 'Power factor', key: 'powerFactor', get: (c) => c.powerFactor, show: (v) => formatFixed(v, 3) },
   { label: 'Current THD (orders 2–40)', key: 'thd', get: (c) => c.thd, show: formatPercent },
   { label: 'Inrush peak', key: 'inrushPeakA', get: (c) => c.inrushPeakA, show: (v) => formatSi(v, 'A') },
   { label: 'Inrush I²t, first half-cycle', key: 'inrushI2tA2s', get: (c) => c.inrushI2tA2s, show: (v) => formatSi(v, 'A²s') },
@@ -71,24 +71,24 @@ const DEVICE_FIGURES: readonly DeviceFigure[] = [
 export function deviceFigureTables(analysis: RectifierAnalysis): FigureTable[] {
   const names = analysis.solution.corners.map((c) => c.name);
   const groups = new Map<string, { devices: string[]; model?: string; rows: FigureRow[] }>();
-  analysis.solution.devices.forEach((worst, k) => {
-    const device = analysis.devices[k];
-    const rows = deviceRows(analysis, k, names);
-    const model = device?.model?.name;
+  for (const device of analysis.devices) {
+    const worst = device.figures.worst;
+    if (!worst) continue;
+    const rows = deviceRows(device, names);
+    const model = device.model?.name;
     const signature = JSON.stringify([model, rows]);
     const group = groups.get(signature);
     if (group) group.devices.push(worst.name);
     else groups.set(signature, { devices: [worst.name], model, rows });
-  });
+  }
   return [...groups.values()].map((g) => ({ title: `${g.devices.join(', ')}${g.model ? ` (${g.model})` : ''}`, corners: names, rows: g.rows }));
 }
 
-function deviceRows(analysis: RectifierAnalysis, k: number, names: readonly string[]): FigureRow[] {
-  const worst = analysis.solution.devices[k]!;
-  const device = analysis.devices[k];
+function deviceRows(device: DeviceAnalysis, names: readonly string[]): FigureRow[] {
+  const worst = device.figures.worst!;
   return DEVICE_FIGURES.map((f): FigureRow => {
-    const rated = device && f.rating ? f.rating(device) : undefined;
-    const cells = analysis.solution.corners.map((c) => f.show(c.devices[k]?.[f.key] as number | undefined));
+    const rated = f.rating ? f.rating(device) : undefined;
+    const cells = device.figures.corners.map((c) => f.show(c.figures?.[f.key] as number | undefined));
     const row: FigureRow = { label: f.label, cells, ...worstIndexOf(worst[f.key], names) };
     if (rated !== undefined) row.rating = f.ratingUnit === '°C' ? formatCelsius(rated) : formatSi(rated, f.ratingUnit ?? '');
     return row;

@@ -21,7 +21,7 @@ export function inlayHintsOf(file: FileAnalysis, detail: HintDetail = 'brief'): 
     for (const device of analysis.devices) {
       const place = cardPlaceOf(device);
       if (place.uri !== file.uri) continue;
-      const worst = analysis.solution.devices.find((d) => d.name === device.ref.name);
+      const worst = device.figures.worst;
       if (!worst) continue;
       const entry = byCard.get(place.span.start) ?? { end: place.span.end, parts: [] };
       entry.parts.push(describe(device, worst, analysis, detail, place.inPackage));
@@ -50,4 +50,9 @@ function describe(device: DeviceAnalysis, worst: DeviceWorst, analysis: Rectifie
 /** A packaged bridge gets one hint: its most stressed device, named. */
 function worstOfPackage(parts: string[]): string {
   return `${parts[0]} (+${parts.length - 1} more)`;
+}
+
+/** The hints whose place lies in `[from, to]` (the range an editor asks for). */
+export function inlayHintsIn(file: FileAnalysis, detail: HintDetail, from: number, to: number): InlayHint[] {
+  return inlayHintsOf(file, detail).filter((h) => h.offset >= from && h.offset <= to);
 }

@@ -1,7 +1,38 @@
 /**
- * Small helpers for the HTML and SVG we write by hand: escaping, number formatting for
- * coordinates, and the "nice" axis steps of our charts. No I/O.
+ * Small helpers for the HTML, SVG and Markdown we write by hand: escaping, number formatting
+ * for coordinates, and the "nice" axis steps of our charts. No I/O.
  */
+import { clipText, escapeControlChars, QUOTE_MAX_CHARS } from '../../../grammar/src/index';
+
+/**
+ * The punctuation Markdown reads as markup inside a line: emphasis, code spans, links and images
+ * (which need `[`), HTML and autolinks, entities, table cells, strikethrough, escapes. A
+ * backslash escapes each (CommonMark §2.4). Netlist text never starts a line in our hovers, so
+ * line-start markers (`#`, `-`, `1.`) need nothing.
+ */
+const MARKDOWN_PUNCTUATION = /[\\`*_[\]<>|~&]/g;
+
+/**
+ * Netlist text for Markdown prose (hovers), escaped so that a name such as `*[x](y)*` shows as
+ * written and makes no link, emphasis or HTML, with control characters written as escapes;
+ * clipped to `max` characters (names by default; pass Infinity for whole messages).
+ */
+export function escapeMarkdown(text: string, max = QUOTE_MAX_CHARS): string {
+  return escapeControlChars(clipText(text, max).replace(/[\r\n]+/g, ' ')).replace(MARKDOWN_PUNCTUATION, (ch) => `\\${ch}`);
+}
+
+/**
+ * Netlist text as a Markdown code span. Backslashes do not escape inside code spans, so the
+ * fence is one backtick longer than any run of backticks in the text, padded with a space when
+ * the text starts or ends with a backtick (CommonMark §6.1).
+ */
+export function markdownCode(text: string, max = QUOTE_MAX_CHARS): string {
+  const clipped = escapeControlChars(clipText(text, max).replace(/[\r\n]+/g, ' '));
+  const longest = Math.max(0, ...[...clipped.matchAll(/`+/g)].map((m) => m[0].length));
+  const fence = '`'.repeat(longest + 1);
+  const pad = clipped.startsWith('`') || clipped.endsWith('`') ? ' ' : '';
+  return `${fence}${pad}${clipped}${pad}${fence}`;
+}
 
 const ESCAPES: Readonly<Record<string, string>> = { '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' };
 

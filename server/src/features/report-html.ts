@@ -6,7 +6,7 @@
  */
 import type { FileAnalysis } from '../analysis/analyze';
 import type { RectifierAnalysis } from '../analysis/rectifier-analysis';
-import { MAINS_CAUTION } from '../ratings/index';
+import { MAINS_CAUTION, type DeratingPolicy } from '../ratings/index';
 import { deviceFigureTables, rectifierFigureTable } from './figure-tables';
 import {
   fileNeedsCaution, rectifierLabel, renderCautionHtml, renderFigureTableHtml, renderFindingsHtml, renderNotesHtml,
@@ -64,7 +64,7 @@ function renderFileSection({ file, displayPath }: ReportFile): string {
     '<h3>Netlist, with the worst figures beside each rectifier device</h3>',
     renderAnnotatedNetlistHtml(file),
     file.rectifiers.length === 0 ? '<p class="rl-na">No rectifier was recognised in this file.</p>' : '',
-    ...file.rectifiers.map(renderRectifierSection),
+    ...file.rectifiers.map((analysis) => renderRectifierSection(analysis, file.policy)),
     '<h3>Findings</h3>',
     renderFindingsHtml(file, problems),
     '<h3>Assumptions</h3>',
@@ -73,7 +73,7 @@ function renderFileSection({ file, displayPath }: ReportFile): string {
   ].join('\n');
 }
 
-function renderRectifierSection(analysis: RectifierAnalysis): string {
+function renderRectifierSection(analysis: RectifierAnalysis, policy: DeratingPolicy): string {
   const label = rectifierLabel(analysis);
   const period = defaultPeriodCorner(analysis.solution.corners);
   const inrush = defaultInrushCorner(analysis.solution.corners);
@@ -87,7 +87,7 @@ function renderRectifierSection(analysis: RectifierAnalysis): string {
     `<h3>Switch-on inrush at ${escapeMarkup(inrush?.name ?? '—')}</h3>`,
     (inrush && renderInrushSvg(inrush, { rectifierLabel: label })) ?? '<p class="rl-na">No inrush waveform.</p>',
     '<h3>Topology comparison</h3>',
-    renderComparisonSection(analysis),
+    renderComparisonSection(analysis, policy),
     analysis.solution.notes.length ? '<h3>Solver notes</h3>' : '',
     renderNotesHtml(analysis),
     '</section>',

@@ -3,6 +3,7 @@
  * figures of each rectifier device beside its card (after `;`, so the text stays a valid
  * netlist), then the tables per rectifier, the findings and the caution.
  */
+import { escapeControlChars } from '../../../grammar/src/index';
 import type { FileAnalysis } from '../analysis/analyze';
 import { LineIndex } from '../analysis/line-index';
 import type { RectifierAnalysis } from '../analysis/rectifier-analysis';
@@ -37,8 +38,8 @@ export function annotateDeviceLines(file: FileAnalysis): Map<number, string> {
 }
 
 function deviceAnnotation(analysis: RectifierAnalysis, k: number, named: boolean): string {
-  const worst = analysis.solution.devices[k];
   const device = analysis.devices[k];
+  const worst = device?.figures.worst;
   if (!worst || !device) return 'not solved';
   const rating = reverseRatingV(device);
   const piv = `PIV ${formatSi(worst.pivV?.value, 'V')}${rating !== undefined ? `/${formatSi(rating, 'V')}` : ''}`;
@@ -47,7 +48,11 @@ function deviceAnnotation(analysis: RectifierAnalysis, k: number, named: boolean
   return named ? `${worst.name}: ${text}` : text;
 }
 
-/** The whole terminal report of one file. */
+/**
+ * The whole terminal report of one file. Netlist text can hold control characters (an escape
+ * sequence in a name or a comment); they are written as escapes (`\x1B`) so they cannot drive
+ * the terminal.
+ */
 export function renderAnnotatedText(file: FileAnalysis, displayPath: string = file.uri): string {
   const out: string[] = [`== ${displayPath}`, ''];
   out.push(...annotatedNetlist(file), '');
@@ -55,10 +60,13 @@ export function renderAnnotatedText(file: FileAnalysis, displayPath: string = fi
   for (const analysis of file.rectifiers) out.push(...rectifierSection(analysis));
   out.push(...findingLines(file, displayPath));
   if (fileNeedsCaution(file)) out.push('', `CAUTION: ${MAINS_CAUTION}`);
-  return out.join('\n') + '\n';
+  return escapeControlChars(out.join('\n') + '\n');
 }
 
 function annotatedNetlist(file: FileAnalysis): string[] {
+  // A file in another encoding was not parsed; its text read as UTF-8 is noise, so it is not printed.
+  const encoding = file.findings.find((f) => f.code === 'file-encoding' && f.uri === file.uri);
+  if (encoding) return [`(the netlist is not shown: ${encoding.message})`];
   const notes = annotateDeviceLines(file);
   const text = file.text.replace(/\r\n?/g, '\n').replace(/\n$/, '');
   const rows = text.split('\n');

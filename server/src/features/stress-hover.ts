@@ -6,9 +6,11 @@
 import type { FileAnalysis } from '../analysis/analyze';
 import type { RectifierAnalysis } from '../analysis/rectifier-analysis';
 import { describeOrigin, isAboveExtraLowVoltage, MAINS_CAUTION, type Rated } from '../ratings/index';
-import type { CornerSolution, WorstValue } from '../solve/index';
+import type { DeviceAtCorner, WorstValue } from '../solve/index';
 import { formatCelsius, formatPercent, formatSi, KIND_NAMES } from './format';
-import type { DeviceHit } from './rectifier-lookup';
+import { escapeMarkdown as md, markdownCode as code } from './markup';
+import { hoverAt, type HoverResult } from './hover';
+import { devicesAtCard, type DeviceHit } from './rectifier-lookup';
 
 const NOMINAL_CORNER = 'nominal-line nominal';
 
@@ -43,7 +45,7 @@ export function stressHover(file: FileAnalysis, hits: readonly DeviceHit[]): str
   if (!analysis) return '';
   sections.unshift(rectifierSummary(analysis));
   const assumptions = file.findings.filter((f) => (f.code === 'assumed-condition' || f.code === 'default-model') && f.span.start === analysis.rectifier.anchor.span.start);
-  if (assumptions.length) sections.push(`**Assumed:** ${assumptions.map((f) => f.message).join('; ')}`);
+  if (assumptions.length) sections.push(`**Assumed:** ${assumptions.map((f) => md(f.message, Infinity)).join('; ')}`);
   if (isAboveExtraLowVoltage({ acRmsV: analysis.circuit.source.mainsVrms })) sections.push(`⚠ ${MAINS_CAUTION}`);
   return sections.join('\n\n');
 }
@@ -57,23 +59,23 @@ function rectifierSummary(analysis: RectifierAnalysis): string {
     `efficiency ${formatPercent(worst.efficiency?.value)}`,
     `inrush ${formatSi(worst.inrushPeakA?.value, 'A')}`,
   ];
-  return `**${kind}** (${analysis.rectifier.devices.map((d) => d.name).join(', ')}): ${parts.join(' · ')}`;
+  return `**${kind}** (${analysis.rectifier.devices.map((d) => md(d.name)).join(', ')}): ${parts.join(' · ')}`;
 }
 
 function deviceSection(hit: DeviceHit): string {
-  const { analysis, device } = hit;
+  const { device } = hit;
   const name = device.ref.name;
-  const nominal = analysis.solution.corners.find((c) => c.name === NOMINAL_CORNER) ?? analysis.solution.corners[0];
-  const worst = analysis.solution.devices.find((d) => d.name === name);
+  const nominal = device.figures.corners.find((c) => c.corner === NOMINAL_CORNER) ?? device.figures.corners[0];
+  const worst = device.figures.worst;
   const lines = [
-    `**${name}** (${device.ref.type}${device.model ? ` \`${device.model.name}\`` : ''}) — ${ROLE_WORDS[device.ref.role] ?? device.ref.role}`,
+    `**${md(name)}** (${device.ref.type}${device.model ? ` ${code(device.model.name)}` : ''}) — ${ROLE_WORDS[device.ref.role] ?? device.ref.role}`,
     '',
     '| | nominal | worst | at corner | rating | used |',
     '|---|---|---|---|---|---|',
   ];
   const origins: string[] = [];
   for (const row of ROWS) {
-    const nominalValue = deviceValue(nominal, name, row.key);
+    const nominalValue = deviceValue(nominal, row.key);
     const worstValue = worst?.[row.key] as WorstValue | undefined;
     const rating = row.rating?.(hit);
     const ratedText = rating?.rated ? `${rating.symbol} ${row.unit === '°C' ? formatCelsius(rating.rated.value) : formatSi(rating.rated.value, row.unit)}` : rating ? `${rating.symbol} not rated` : '';
@@ -83,11 +85,19 @@ function deviceSection(hit: DeviceHit): string {
     lines.push(`| ${row.label} | ${show(nominalValue)} | ${show(worstValue?.value)} | ${worstValue?.corner ?? ''} | ${ratedText} | ${used} |`);
   }
   if (worst?.thermalRunaway) lines.push('', '**Thermal runaway:** the junction temperature does not settle at the hottest corner.');
-  if (origins.length) lines.push('', `Ratings from ${origins.join('; ')}.`);
+  if (origins.length) lines.push('', `Ratings from ${origins.map((o) => md(o, Infinity)).join('; ')}.`);
   return lines.join('\n');
 }
 
-function deviceValue(corner: CornerSolution | undefined, name: string, key: Row['key']): number | undefined {
-  const value = corner?.devices.find((d) => d.name === name)?.[key];
+function deviceValue(corner: DeviceAtCorner | undefined, key: Row['key']): number | undefined {
+  const value = corner?.figures?.[key];
   return typeof value === 'number' ? value : undefined;
+}
+
+/** The hover at an offset of an analysed file: the card's description, with the stress table of any rectifier device on it. */
+export function hoverInFile(file: FileAnalysis, offset: number): HoverResult | undefined {
+  return hoverAt(file.netlist, offset, (card) => {
+    const hits = devicesAtCard(file, card.span);
+    return hits.length ? stressHover(file, hits) : undefined;
+  });
 }

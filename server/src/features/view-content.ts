@@ -3,21 +3,20 @@
  * scripts, no external resources): the waveforms of a rectifier and its topology comparison.
  * The VS Code webview and the language server's `rectilens/view` request show these as they are.
  */
+import type { ViewContent } from '../protocol/custom-protocol';
 import type { FileAnalysis } from '../analysis/analyze';
 import type { RectifierAnalysis } from '../analysis/rectifier-analysis';
-import { compareTopologies } from './comparison';
+import { memoisedSolver, type SolveFn } from '../analysis/solver-memo';
+import { compareTopologies } from '../compare/index';
+import type { DeratingPolicy } from '../ratings/index';
 import { renderComparisonSvg, renderComparisonTable } from './comparison-svg';
 import { needsCaution, rectifierLabel, renderCautionHtml, renderNotesHtml } from './html-blocks';
 import { escapeMarkup } from './markup';
 import { PAGE_CSS } from './page-style';
 import { defaultInrushCorner, defaultPeriodCorner, renderInrushSvg, renderPeriodSvg } from './waveform-svg';
-import { formatPercent, formatSi } from './format';
+import { formatFixed, formatPercent, formatSi } from './format';
 
-/** A view's title (for the panel tab) and its body (an HTML fragment). */
-export interface ViewContent {
-  title: string;
-  body: string;
-}
+export type { ViewContent };
 
 /** Without a rectifier id, at most this many rectifiers are drawn, so a huge file stays quick. */
 export const MAX_RECTIFIERS_PER_VIEW = 8;
@@ -46,14 +45,17 @@ export function renderWaveformView(file: FileAnalysis, rectifierId?: string): Vi
   });
 }
 
-/** The topology comparison of one bridge (or of every rectifier in the file without an id). */
-export function renderComparisonView(file: FileAnalysis, rectifierId?: string): ViewContent {
-  return renderView(file, rectifierId, 'Topology comparison', (analysis) => renderComparisonSection(analysis));
+/**
+ * The topology comparison of one bridge (or of every rectifier in the file without an id), under
+ * the file's policy. `solve` is the adapter's memoised solver; without it the variants are solved afresh.
+ */
+export function renderComparisonView(file: FileAnalysis, rectifierId?: string, solve: SolveFn = memoisedSolver(undefined)): ViewContent {
+  return renderView(file, rectifierId, 'Topology comparison', (analysis) => renderComparisonSection(analysis, file.policy, solve));
 }
 
-/** The comparison chart and table of one rectifier, or a line saying why there is none. */
-export function renderComparisonSection(analysis: RectifierAnalysis): string {
-  const comparison = compareTopologies(analysis);
+/** The comparison chart and table of one rectifier under its file's policy, or a line saying why there is none. */
+export function renderComparisonSection(analysis: RectifierAnalysis, policy: DeratingPolicy, solve: SolveFn = memoisedSolver(undefined)): string {
+  const comparison = compareTopologies(analysis, policy, solve);
   if (!comparison.applicable) return `<p class="rl-na" data-comparison="not-applicable">No comparison: ${escapeMarkup(comparison.reason ?? '')}.</p>`;
   return [
     '<p class="rl-sub">The same source, filter, load and corners with four bridge constructions; worst corner of each figure shown under it.</p>',
@@ -87,7 +89,7 @@ function renderView(file: FileAnalysis, rectifierId: string | undefined, what: s
 }
 
 function periodSummary(c: NonNullable<ReturnType<typeof defaultPeriodCorner>>): string {
-  return `Output ${formatSi(c.vOutAvgV, 'V')} average, ripple ${formatSi(c.rippleVpp, 'V')} p-p, efficiency ${formatPercent(c.efficiency)}, power factor ${c.powerFactor?.toFixed(3) ?? '—'}.`;
+  return `Output ${formatSi(c.vOutAvgV, 'V')} average, ripple ${formatSi(c.rippleVpp, 'V')} p-p, efficiency ${formatPercent(c.efficiency)}, power factor ${formatFixed(c.powerFactor, 3)}.`;
 }
 
 function fileName(uri: string): string {

@@ -1,53 +1,124 @@
 /**
- * Keeps one analysis per open netlist, recomputed after edits: debounced, newest edit first, and
- * abandoned when a newer edit arrives (checked between files). Requests are answered from the last
- * finished analysis of each file, never blocked on a running one.
+ * Keeps one analysis per open netlist, recomputed after edits: debounced, newest edit first, a batch
+ * abandoned between files when a newer edit arrives. The analyses themselves run in the worker
+ * (analysis-worker-host.ts), so requests are answered from the last finished analysis of each
+ * file while the next one runs.
  */
-import { analyze, type AnalysisInput, type FileAnalysis } from '../analysis/analyze';
-import type { SolutionCache } from '../analysis/rectifier-analysis';
-import type { PartsFile } from '../ratings/index';
+import type { FileAnalysis } from '../analysis/analyze';
+import type { Fix } from '../analysis/findings';
 import type { AnalysisSettings } from '../analysis/settings';
+import type { PartsFile } from '../ratings/index';
+import type { AnalysisStop, AnalysisWorkerHost } from './analysis-worker-host';
+import type { ViewContent, ViewRequest } from '../protocol/custom-protocol';
+
+/** How long the editor waits for one file's analysis before it stops it and says so. */
+export const EDITOR_PATIENCE_MS = 60_000;
+
+/** What the scheduler needs of the worker host (a test passes a stand-in). */
+export type AnalysisRunner = Pick<AnalysisWorkerHost, 'analyse' | 'fixes' | 'view' | 'forget'>;
+
+export interface OpenDocument {
+  uri: string;
+  version: number;
+  text: string;
+}
 
 export interface SchedulerHooks {
-  /** Reads a file's text: an open document, or the disk where allowed. */
-  readText: (uri: string) => string | undefined;
+  /** The open documents as the editor has them now. */
+  openDocuments: () => readonly OpenDocument[];
   settings: () => AnalysisSettings;
   /** Validated parts files, read by the server. */
   partsFiles: () => readonly PartsFile[];
-  /** Called with each finished analysis, e.g. to publish diagnostics. */
-  onAnalysed: (file: FileAnalysis) => void;
+  /** Called with each finished analysis and the document version it was made from. */
+  onAnalysed: (file: FileAnalysis, version: number | undefined) => void;
+  /** Called when a file could not be analysed at all (the worker died or was stopped). */
+  onStopped: (uri: string, version: number | undefined, stop: AnalysisStop) => void;
   /** Called when a batch starts or ends, e.g. to show a busy indicator. */
   onBusy?: (busy: boolean, pending: number) => void;
 }
 
 export class AnalysisScheduler {
-  private readonly results = new Map<string, FileAnalysis>();
+  private readonly results = new Map<string, { file: FileAnalysis; sequence: number; version: number | undefined }>();
   private readonly pending = new Set<string>();
+  /** Requests waiting for a file's analysis to catch up with the editor's version. */
+  private readonly waiters = new Map<string, { version: number; wake: () => void }[]>();
   private timer: NodeJS.Timeout | undefined;
   private generation = 0;
   private running: Promise<void> | undefined;
-  /** Solutions survive between analyses: an edit re-solves only the rectifiers whose inputs changed. */
-  private readonly solutionCache: SolutionCache = new Map();
+  private analysing: string | undefined;
 
-  constructor(private readonly hooks: SchedulerHooks, private readonly debounceMs = 10) {}
+  constructor(
+    private readonly worker: AnalysisRunner,
+    private readonly hooks: SchedulerHooks,
+    private readonly debounceMs = 10,
+    private readonly patienceMs = EDITOR_PATIENCE_MS,
+  ) {}
 
   /** The last finished analysis of a root. */
   get(uri: string): FileAnalysis | undefined {
-    return this.results.get(uri);
+    return this.results.get(uri)?.file;
+  }
+
+  /** The document version the last finished analysis of a root was made from. */
+  versionOf(uri: string): number | undefined {
+    return this.results.get(uri)?.version;
+  }
+
+  /**
+   * Resolves once the analysis of `uri` is made from `version` or later, the file could not be
+   * analysed, or `maxWaitMs` has passed, so that a request just after an edit is answered from
+   * the new analysis rather than the old one (and never waits without bound).
+   */
+  whenAnalysed(uri: string, version: number, maxWaitMs: number): Promise<void> {
+    const have = this.results.get(uri)?.version;
+    if ((have !== undefined && have >= version) || !this.isQueuedOrRunning(uri)) return Promise.resolve();
+    return new Promise((resolve) => {
+      const timer = setTimeout(resolve, maxWaitMs);
+      const list = this.waiters.get(uri) ?? [];
+      list.push({ version, wake: () => { clearTimeout(timer); resolve(); } });
+      this.waiters.set(uri, list);
+    });
   }
 
   all(): FileAnalysis[] {
-    return [...this.results.values()];
+    return [...this.results.values()].map((r) => r.file);
   }
 
   forget(uri: string): void {
     this.results.delete(uri);
     this.pending.delete(uri);
+    this.worker.forget(uri);
   }
 
   /** Roots whose analysis read `uri` (itself included), so an edit to an include re-analyses its includers. */
   dependentsOf(uri: string): string[] {
-    return [...this.results.values()].filter((f) => f.uri === uri || f.dependencies.includes(uri)).map((f) => f.uri);
+    return this.all().filter((f) => f.uri === uri || f.dependencies.includes(uri)).map((f) => f.uri);
+  }
+
+  /** The quick fixes of some findings of a file's current analysis, computed by the worker. */
+  fixesOf(file: FileAnalysis, findings: number[]): Promise<Fix[][]> {
+    const current = this.results.get(file.uri);
+    if (current?.file !== file) return Promise.resolve(findings.map(() => []));
+    return this.worker.fixes(file.uri, current.sequence, findings);
+  }
+
+  viewOf(request: ViewRequest): Promise<ViewContent | null> {
+    const current = this.results.get(request.uri);
+    return current ? this.worker.view(request.uri, current.sequence, request) : Promise.resolve(null);
+  }
+
+  private isQueuedOrRunning(uri: string): boolean {
+    return this.pending.has(uri) || this.analysing === uri;
+  }
+
+  /** Wakes the requests waiting for `uri` up to `version` (all of them when the file stopped). */
+  private wake(uri: string, version: number | undefined): void {
+    const list = this.waiters.get(uri);
+    if (!list) return;
+    const still = list.filter((w) => version !== undefined && w.version > version && this.isQueuedOrRunning(uri));
+    for (const w of list) if (!still.includes(w)) w.wake();
+    if (still.length) this.waiters.set(uri, still);
+    else this.waiters.delete(uri);
   }
 
   /** Queues roots for analysis; the newest request cancels any batch still running. */
@@ -73,20 +144,33 @@ export class AnalysisScheduler {
       for (const uri of batch) {
         if (generation !== this.generation) return; // a newer edit arrived: its run takes over
         this.pending.delete(uri);
-        const input: AnalysisInput = {
-          roots: [uri], readText: this.hooks.readText, settings: this.hooks.settings(), partsFiles: this.hooks.partsFiles(), solutionCache: this.solutionCache,
-          now: () => performance.now(),
-          previousParse: (target) => this.results.get(uri)?.parsed.get(target),
-        };
-        const file = analyze(input).files.get(uri);
-        if (file) {
-          this.results.set(uri, file);
-          this.hooks.onAnalysed(file);
+        this.analysing = uri;
+        try {
+          await this.analyseOne(uri);
+        } catch (error) {
+          // A fault on this side (publishing, reading the documents) costs this file, never the server.
+          this.hooks.onStopped(uri, undefined, { cause: 'fault', reason: `Rectilens failed while handling its analysis: ${error instanceof Error ? error.message : String(error)}` });
+        } finally {
+          this.analysing = undefined;
+          this.wake(uri, this.results.get(uri)?.version);
         }
-        await new Promise((r) => setImmediate(r));
       }
     } finally {
       this.hooks.onBusy?.(false, this.pending.size);
+    }
+  }
+
+  private async analyseOne(uri: string): Promise<void> {
+    const documents = this.hooks.openDocuments();
+    const version = documents.find((d) => d.uri === uri)?.version;
+    const open = new Map(documents.map((d) => [d.uri, d.text]));
+    const outcome = await this.worker.analyse(uri, open, this.hooks.settings(), this.hooks.partsFiles(), this.patienceMs);
+    if (outcome.kind === 'stopped') {
+      this.results.delete(uri);
+      this.hooks.onStopped(uri, version, outcome);
+    } else if (outcome.file) {
+      this.results.set(uri, { file: outcome.file, sequence: outcome.sequence, version });
+      this.hooks.onAnalysed(outcome.file, version);
     }
   }
 }

@@ -6,8 +6,9 @@
  */
 import type { Connection, TextDocuments } from 'vscode-languageserver/node';
 import type { TextDocument } from 'vscode-languageserver-textdocument';
+import { DOCUMENT_TEXT_REQUEST } from '../protocol/custom-protocol';
 
-export const DOCUMENT_TEXT_REQUEST = 'rectilens/documentText';
+export { DOCUMENT_TEXT_REQUEST };
 
 export function registerDocumentTextRequest(connection: Connection, documents: TextDocuments<TextDocument>): void {
   connection.onRequest(DOCUMENT_TEXT_REQUEST, (params: { uri?: unknown }) => {

@@ -1,74 +1,54 @@
-/** Hover, inlay hints, code lens, code actions and the views: the features that show analysis results. */
+/** Hover, inlay hints, code lenses, quick fixes and the views: the features that show analysis results. */
 import { CodeActionKind, InlayHintKind, MarkupKind, type CodeAction, type CodeLens, type InlayHint } from 'vscode-languageserver/node';
-import { lineIndexOf } from '../analysis/line-index';
+import { findingsInRange } from '../analysis/findings';
 import { codeLensesOf } from '../features/code-lens';
-import { hoverAt } from '../features/hover';
-import { inlayHintsOf } from '../features/inlay-hints';
-import { devicesAtCard } from '../features/rectifier-lookup';
-import { stressHover } from '../features/stress-hover';
-import { renderView, type ViewRequest } from './views';
+import { inlayHintsIn } from '../features/inlay-hints';
+import { hoverInFile } from '../features/stress-hover';
+import { VIEW_REQUEST, type ViewRequest } from '../protocol/custom-protocol';
 import { toRange, toWorkspaceEdit } from './convert';
-import type { ServerContext } from './server';
+import type { Guard } from './request-guard';
+import type { ServerState } from './server-state';
 
-type Guard = <P, R>(empty: R, handler: (params: P) => R) => (params: P) => R;
+export function registerEditorFeatures(state: ServerState, guard: Guard): void {
+  const { connection, scheduler } = state;
 
-export function registerEditorFeatures(context: ServerContext, guard: Guard): void {
-  const { connection, scheduler, linesOf } = context;
-
-  connection.onCodeAction(guard([], (params) => {
-    const file = scheduler.get(params.textDocument.uri);
-    if (!file) return [];
-    const lines = lineIndexOf(file);
-    const start = lines.offsetAt(params.range.start);
-    const end = lines.offsetAt(params.range.end);
-    const actions: CodeAction[] = [];
-    for (const finding of file.findings) {
-      if (finding.uri !== file.uri || !finding.fixes?.length || finding.span.end < start || finding.span.start > end) continue;
-      for (const fix of finding.fixes) {
-        actions.push({
-          title: fix.title,
-          kind: CodeActionKind.QuickFix,
-          isPreferred: fix.preferred,
-          diagnostics: params.context.diagnostics.filter((d) => d.code === finding.code),
-          edit: toWorkspaceEdit(fix.edits, linesOf),
-        });
-      }
-    }
-    return actions;
+  connection.onCodeAction(guard([], async (params) => {
+    const place = await state.freshPlaceIn(params.textDocument.uri, params.range.start);
+    if (!place) return [];
+    const { file, lines } = place;
+    const inRange = findingsInRange(file.findings, file.uri, place.offset, lines.offsetAt(params.range.end));
+    // The fixes run trial solves, so the worker computes them on its copy of this analysis.
+    const fixes = await scheduler.fixesOf(file, inRange);
+    return inRange.flatMap((index, i) => (fixes[i] ?? []).map((fix): CodeAction => ({
+      title: fix.title,
+      kind: CodeActionKind.QuickFix,
+      isPreferred: fix.preferred,
+      diagnostics: params.context.diagnostics.filter((d) => d.code === file.findings[index]!.code),
+      edit: toWorkspaceEdit(fix.edits, state.linesOf),
+    })));
   }));
 
-  connection.onHover(guard(null, (params) => {
-    const file = scheduler.get(params.textDocument.uri);
-    if (!file) return null;
-    const lines = lineIndexOf(file);
-    const found = hoverAt(file.netlist, lines.offsetAt(params.position), (card) => {
-      const hits = devicesAtCard(file, card.span);
-      return hits.length ? stressHover(file, hits) : undefined;
-    });
-    return found ? { contents: { kind: MarkupKind.Markdown, value: found.markdown }, range: toRange(lines, found.span) } : null;
+  connection.onHover(guard(null, async (params) => {
+    const place = await state.freshPlaceIn(params.textDocument.uri, params.position);
+    const found = place && hoverInFile(place.file, place.offset);
+    return found ? { contents: { kind: MarkupKind.Markdown, value: found.markdown }, range: toRange(place.lines, found.span) } : null;
   }));
 
-  connection.languages.inlayHint.on(guard([], (params) => {
-    const file = scheduler.get(params.textDocument.uri);
-    if (!file) return [];
-    const lines = lineIndexOf(file);
-    const from = lines.offsetAt(params.range.start);
-    const to = lines.offsetAt(params.range.end);
-    return inlayHintsOf(file, context.settings().hintDetail ?? 'brief')
-      .filter((h) => h.offset >= from && h.offset <= to)
-      .map((h): InlayHint => ({ position: lines.positionAt(h.offset), label: h.label, tooltip: h.tooltip, kind: InlayHintKind.Type, paddingLeft: true }));
+  connection.languages.inlayHint.on(guard([], async (params) => {
+    const place = await state.freshPlaceIn(params.textDocument.uri, params.range.start);
+    if (!place) return [];
+    const hints = inlayHintsIn(place.file, state.settings.hintDetail ?? 'brief', place.offset, place.lines.offsetAt(params.range.end));
+    return hints.map((h): InlayHint => ({ position: place.lines.positionAt(h.offset), label: h.label, tooltip: h.tooltip, kind: InlayHintKind.Type, paddingLeft: true }));
   }));
 
-  connection.onCodeLens(guard([], (params) => {
-    const file = scheduler.get(params.textDocument.uri);
-    if (!file) return [];
-    const lines = lineIndexOf(file);
-    return codeLensesOf(file).map((lens): CodeLens => {
-      const position = lines.positionAt(lens.offset);
-      const range = { start: position, end: position };
-      return { range, command: { title: lens.title, command: lens.command?.id ?? '', arguments: lens.command?.args } };
+  connection.onCodeLens(guard([], async (params) => {
+    const place = await state.freshPlaceIn(params.textDocument.uri);
+    if (!place) return [];
+    return codeLensesOf(place.file).map((lens): CodeLens => {
+      const position = place.lines.positionAt(lens.offset);
+      return { range: { start: position, end: position }, command: { title: lens.title, command: lens.command?.id ?? '', arguments: lens.command?.args } };
     });
   }));
 
-  connection.onRequest('rectilens/view', guard(null, (params: ViewRequest) => renderView(scheduler.get(params.uri), params)));
+  connection.onRequest(VIEW_REQUEST, guard(null, (params: ViewRequest) => scheduler.viewOf(params)));
 }

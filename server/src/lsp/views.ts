@@ -1,12 +1,9 @@
 /** The `rectilens/view` request: the waveform or comparison view of a rectifier, rendered by the core. */
 import type { FileAnalysis } from '../analysis/analyze';
-import { renderComparisonView, renderWaveformView, type ViewContent } from '../features/view-content';
+import { renderComparisonView, renderWaveformView } from '../features/view-content';
+import type { ViewContent, ViewRequest } from '../protocol/custom-protocol';
 
-export interface ViewRequest {
-  kind: 'waveforms' | 'comparison';
-  uri: string;
-  rectifierId?: string;
-}
+export type { ViewRequest };
 
 export function renderView(file: FileAnalysis | undefined, request: ViewRequest): ViewContent | null {
   if (!file || file.rectifiers.length === 0) return null;

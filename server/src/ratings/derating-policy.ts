@@ -1,9 +1,11 @@
 /**
  * The derating policy: how much of each rating a design may use. A `*@ derate` directive wins,
  * then the user's settings, then the defaults below, each with the guideline it comes from and
- * how sure that attribution is (REFERENCES.md §4). The rules read thresholds only from here.
+ * how sure that attribution is (REFERENCES.md §4). `resolvePolicy` runs once per analysis and the
+ * rules read the result from their input; the thresholds themselves are applied in stress-checks.ts.
  */
 import type { DerateKey, Directive, Span } from '../../../grammar/src/index';
+import { DERATING_SETTINGS, type AnalysisSettings, type DeratingSetting, type DeratingSettingValues } from './settings';
 
 /** How a default is known: confirmed in a published source, recalled, or a trade habit. */
 export type DefaultBasis = 'confirmed' | 'from-memory' | 'common-practice';
@@ -70,14 +72,50 @@ export const DEFAULT_DERATING: DeratingPolicy = {
 };
 
 /**
- * Resolves the policy key by key: the last `derate` directive entry for a key wins (files in
- * reading order), then the setting, then `defaults`. Values outside their range (a fraction not
- * in (0, 1], a temperature outside −55…400 °C) are skipped and listed in `ignored`.
+ * The file's policy, resolved once per analysis: for each key the last `*@ derate` entry (files
+ * in reading order), then the setting that stands for it (ratings/settings.ts), then the cited
+ * default. `reverseVoltage` sets `vr` and `vds` alike; a setting's origin names its first key.
+ * Values outside their range are skipped and listed in `ignored`.
+ */
+export function resolvePolicy(
+  directives: readonly { uri: string; directive: Directive }[] | undefined,
+  settings: AnalysisSettings | undefined,
+): { policy: DeratingPolicy; ignored: IgnoredDerating[] } {
+  const given = settings?.derating ?? {};
+  const entries: SettingEntry[] = [];
+  for (const [name, setting] of Object.entries(DERATING_SETTINGS) as [keyof DeratingSettingValues, DeratingSetting][]) {
+    const value = given[name];
+    if (value === undefined || value === null) continue;
+    for (const key of setting.derateKeys) entries.push({ key, value, origin: { kind: 'setting', key: setting.derateKeys[0] } });
+  }
+  return resolveEntries(directives, entries, DEFAULT_DERATING);
+}
+
+/**
+ * Resolves the policy key by key from settings given by `derate` key: the last `derate` directive
+ * entry for a key wins (files in reading order), then the setting, then `defaults`. Values
+ * outside their range (a fraction not in (0, 1], a temperature outside −55…400 °C) are skipped
+ * and listed in `ignored`.
  */
 export function resolveDeratingPolicy(
   directives: readonly { uri: string; directive: Directive }[] | undefined,
   settings: DeratingSettings | undefined,
   defaults: DeratingPolicy = DEFAULT_DERATING,
+): { policy: DeratingPolicy; ignored: IgnoredDerating[] } {
+  const entries = (Object.entries(settings ?? {}) as [DerateKey, number | undefined][])
+    .filter((e): e is [DerateKey, number] => e[1] !== undefined)
+    .map(([key, value]): SettingEntry => ({ key, value, origin: { kind: 'setting', key } }));
+  return resolveEntries(directives, entries, defaults);
+}
+
+interface SettingEntry {
+  key: DerateKey;
+  value: number;
+  origin: PolicyOrigin;
+}
+
+function resolveEntries(
+  directives: readonly { uri: string; directive: Directive }[] | undefined, settings: readonly SettingEntry[], defaults: DeratingPolicy,
 ): { policy: DeratingPolicy; ignored: IgnoredDerating[] } {
   const policy: DeratingPolicy = { ...defaults };
   const ignored: IgnoredDerating[] = [];
@@ -87,9 +125,7 @@ export function resolveDeratingPolicy(
     else if (key === 'tj') policy.tj = { value: { kind: 'absolute', tjC: value }, origin };
     else policy[key] = { value, origin };
   };
-  for (const [key, value] of Object.entries(settings ?? {}) as [DerateKey, number | undefined][]) {
-    if (value !== undefined && key in defaults) apply(key, value, { kind: 'setting', key });
-  }
+  for (const entry of settings) if (entry.key in defaults) apply(entry.key, entry.value, entry.origin);
   for (const placed of directives ?? []) {
     if (placed.directive.keyword !== 'derate') continue;
     for (const entry of placed.directive.entries) apply(entry.key, entry.value, { kind: 'directive', uri: placed.uri, span: entry.span });

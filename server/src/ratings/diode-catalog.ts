@@ -19,14 +19,17 @@ export interface CatalogDiode extends DiodePart {
 
 export type CatalogSeriesId = '1n4001' | '1n5400' | '1n5817' | '1n5820';
 
-/** Source of the 1N400x and 1N540x ladders (REFERENCES.md §7, C). */
+/**
+ * Source of the 1N400x and 1N540x ladders (REFERENCES.md §7, C). These strings reach users in
+ * hovers and messages, so they name the published source itself, never our reference notes.
+ */
 export const SOURCE_1N400X_LADDER =
-  'Wikipedia, "1N400x rectifier diodes" (JEDEC registration, 1963), per REFERENCES.md §7';
+  'Wikipedia, "1N400x rectifier diodes" (JEDEC registration, 1963)';
 /** Source of the 1N5817–19 ladder (REFERENCES.md §7: only a non-authoritative page besides makers). */
 export const SOURCE_1N5817_LADDER =
-  'REFERENCES.md §7: 20/30/40 V at 1 A, supported only by a non-authoritative page besides makers\' sheets';
+  '20/30/40 V at 1 A: common practice, found only on makers\' sheets and one non-authoritative web page';
 /** The 3 A Schottky series has no source in REFERENCES.md. */
-export const SOURCE_1N5820_LADDER = 'from memory (no source in REFERENCES.md)';
+export const SOURCE_1N5820_LADDER = 'from memory (no published source found)';
 /** IFSM, its duration and Tjmax of every entry. */
 export const SOURCE_TYPICAL = 'typical class value, from memory, not a check value';
 /** The forward points of every entry. */
@@ -125,7 +128,7 @@ function buildEntry(spec: SeriesSpec, name: string, vrrmV: number): CatalogDiode
     ifsmA: cite(spec.ifsmA, SOURCE_TYPICAL, 'from-memory'),
     // The 8.3 ms half-sine is the JEDEC-method convention (REFERENCES.md §5, C); that these
     // parts are rated on it is recalled, not sourced.
-    ifsmDurationS: cite(0.0083, `${SOURCE_TYPICAL}; 8.3 ms JEDEC method per REFERENCES.md §5`, 'from-memory'),
+    ifsmDurationS: cite(0.0083, `${SOURCE_TYPICAL}; 8.3 ms is the half-sine of the "JEDEC method" that makers' sheets name`, 'from-memory'),
     tjmaxC: cite(spec.tjmaxC, SOURCE_TYPICAL, 'from-memory'),
     vfPoints: { value: spec.vfPoints, origin: { kind: 'catalog', partName: name, source: SOURCE_CLASS_POINTS, confidence: 'chosen' } },
     technology: {

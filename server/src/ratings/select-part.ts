@@ -2,10 +2,11 @@
  * Choosing a replacement diode for the part-swap fix: the lowest-rated catalog or parts-file part
  * that meets a requirement, never a silicon Schottky for a mains-class reverse voltage.
  */
-import type { DeratingPolicy } from './derating-policy';
+import { displayNumber } from '../../../grammar/src/index';
+import { DEFAULT_DERATING, type DeratingPolicy, type PolicyEntry } from './derating-policy';
 import { DEFAULT_IFSM_DURATION_S } from './rating-origin';
 import type { DiodePart, DiodeTechnology } from './rating-records';
-import { equivalentSurgeA } from './surge-rating';
+import { halfSineSurge, leastPassingRatings, stressVerdicts, surgeCapability, type StressInputs, type StressKind } from './stress-checks';
 
 /**
  * Silicon Schottky rectifiers are not made for mains-class reverse voltages; 200 V is taken as
@@ -40,18 +41,33 @@ export interface DiodeStress {
 
 /**
  * Turns stresses into minimum ratings under a policy: VRRM ≥ PIV / vr, IF(AV) ≥ Iavg / if,
- * IFSM ≥ surge peak / ifsm (DESIGN.md §6).
+ * IFSM ≥ surge peak / ifsm (DESIGN.md §6) — the stress checks inverted (stress-checks.ts).
  */
 export function diodeRequirementFromStress(stress: DiodeStress, policy: DeratingPolicy): DiodeRequirement {
-  const requirement: DiodeRequirement = { minVrrmV: stress.pivV / policy.vr.value };
-  if (stress.iavgA !== undefined) requirement.minIfavA = stress.iavgA / policy.if.value;
-  if (stress.surge) requirement.surge = { peakA: stress.surge.peakA / policy.ifsm.value, durationS: stress.surge.durationS };
+  const least = leastPassingRatings(stressInputs(stress.pivV, stress.iavgA, stress.surge), policy);
+  const requirement: DiodeRequirement = { minVrrmV: least.vrrmV! };
+  if (least.ifavA !== undefined) requirement.minIfavA = least.ifavA;
+  if (least.surge) requirement.surge = least.surge;
   return requirement;
 }
 
+/** Every fraction at 100 %: a requirement's minimums are already derated, so it is held to the rating itself. */
+const AT_RATING: DeratingPolicy = (() => {
+  const full: PolicyEntry<number> = { value: 1, origin: { kind: 'default', source: 'the minimum ratings of a requirement', basis: 'confirmed' } };
+  return { ...DEFAULT_DERATING, vr: full, if: full, ifsm: full, cap: full, ripple: full, vds: full, id: full };
+})();
+
+/** The requirement's rating checks, by stress, with the words of a failure. */
+const CHECKED: readonly { stress: StressKind; label: string; unit: string }[] = [
+  { stress: 'reverse-voltage', label: 'VRRM', unit: 'V' },
+  { stress: 'average-current', label: 'IF(AV)', unit: 'A' },
+  { stress: 'surge', label: 'IFSM (equal I²t)', unit: 'A' },
+];
+
 /**
  * Why a part fails a requirement, one phrase per reason; empty when it passes. A rating the
- * requirement needs but the part does not state is a failure: a fix must not guess.
+ * requirement needs but the part does not state is a failure: a fix must not guess. The ratings
+ * are judged by the stress checks with the minimums as figures, at 100 % of the rating.
  */
 export function checkDiodeRequirement(part: DiodePart, requirement: DiodeRequirement): string[] {
   const r = part.ratings;
@@ -63,15 +79,18 @@ export function checkDiodeRequirement(part: DiodePart, requirement: DiodeRequire
   if (technology === 'schottky' && (requirement.minVrrmV ?? 0) > SCHOTTKY_MAX_VRRM_V) {
     reasons.push(`a silicon Schottky is not offered above ${SCHOTTKY_MAX_VRRM_V} V reverse (common practice)`);
   }
-  const atLeast = (label: string, have: number | undefined, need: number | undefined, unit: string): void => {
-    if (need === undefined) return;
-    if (have === undefined) reasons.push(`no ${label} rating`);
-    else if (have < need) reasons.push(`${label} ${have} ${unit} < ${round(need)} ${unit}`);
+  const verdicts = stressVerdicts(stressInputs(requirement.minVrrmV, requirement.minIfavA, requirement.surge), r, AT_RATING);
+  const failure = (check: (typeof CHECKED)[number]): string | undefined => {
+    const v = verdicts.find((x) => x.stress === check.stress);
+    if (!v || v.status === 'pass') return undefined;
+    if (v.rating === undefined) return `no ${check.label} rating`;
+    return `${check.label} ${displayNumber(v.rating)} ${check.unit} < ${displayNumber(v.figure)} ${check.unit}`;
   };
-  atLeast('VRRM', r.vrrmV?.value, requirement.minVrrmV, 'V');
-  atLeast('IF(AV)', r.ifavA?.value, requirement.minIfavA, 'A');
-  atLeast('Tjmax', r.tjmaxC?.value, requirement.minTjmaxC, '°C');
-  if (requirement.surge) atLeast('IFSM (equal I²t)', surgeCapabilityA(part, requirement.surge.durationS), requirement.surge.peakA, 'A');
+  const [vrrm, ifav, surge] = CHECKED.map(failure);
+  const tjmax = requirement.minTjmaxC === undefined ? undefined
+    : r.tjmaxC === undefined ? 'no Tjmax rating'
+    : r.tjmaxC.value < requirement.minTjmaxC ? `Tjmax ${displayNumber(r.tjmaxC.value)} °C < ${displayNumber(requirement.minTjmaxC)} °C` : undefined;
+  for (const reason of [vrrm, ifav, tjmax, surge]) if (reason) reasons.push(reason);
   return reasons;
 }
 
@@ -96,16 +115,18 @@ export function selectPassingPart(requirement: DiodeRequirement, candidates: rea
 
 /** The part's IFSM converted to a pulse length at equal I²t, or undefined without an IFSM. */
 export function surgeCapabilityA(part: DiodePart, pulseS: number): number | undefined {
-  const ifsm = part.ratings.ifsmA?.value;
-  if (ifsm === undefined) return undefined;
-  return equivalentSurgeA(ifsm, part.ratings.ifsmDurationS?.value ?? DEFAULT_IFSM_DURATION_S, pulseS);
+  return surgeCapability(part.ratings, pulseS)?.equivalentA;
+}
+
+/** Stresses given as plain numbers, in the shape the stress checks read. */
+function stressInputs(pivV: number | undefined, iavgA: number | undefined, surge: SurgePulse | undefined): StressInputs {
+  const worst: NonNullable<StressInputs['worst']> = {};
+  if (pivV !== undefined) worst.pivV = { value: pivV };
+  if (iavgA !== undefined) worst.iavgA = { value: iavgA };
+  return surge ? { worst, surge: halfSineSurge(surge.peakA, surge.durationS) } : { worst };
 }
 
 function compareKeys(a: readonly number[], b: readonly number[]): number {
   for (let k = 0; k < a.length; k++) if (a[k] !== b[k]) return a[k] < b[k] ? -1 : 1;
   return 0;
-}
-
-function round(value: number): string {
-  return String(Number(value.toPrecision(3)));
 }

@@ -8,12 +8,14 @@ import type { DeviceRole, RectifierKind } from '../solve/equivalent-circuit';
 import type { RecognizeContext } from './context';
 import type { RectDevice } from './devices';
 import type { Match } from './match';
+import { deviceFrom, firstLowerGroup, upperRow } from './rail-index';
 
 /** Finds and claims every single-phase bridge among the free devices. */
 export function matchBridges(ctx: RecognizeContext): Match[] {
   const out: Match[] = [];
   for (const dcPositive of ctx.cathodeNodes()) {
-    for (let found = findBridgeAt(ctx, dcPositive); found; found = findBridgeAt(ctx, dcPositive)) {
+    if (ctx.exhausted) break;
+    for (let found = findBridgeAt(ctx, dcPositive); found; found = ctx.exhausted ? undefined : findBridgeAt(ctx, dcPositive)) {
       ctx.claim(found.devices.map((d) => d.device));
       out.push(found);
     }
@@ -21,23 +23,19 @@ export function matchBridges(ctx: RecognizeContext): Match[] {
   return out;
 }
 
+/**
+ * The first bridge on DC+ node `p`: two AC nodes with a device into `p`, fed from one DC− node,
+ * chosen in device order (rail-index.ts), in time linear in the devices around `p`.
+ */
 function findBridgeAt(ctx: RecognizeContext, p: string): Match | undefined {
-  const ups = ctx.into(p);
-  for (let i = 0; i < ups.length; i++) {
-    for (let j = i + 1; j < ups.length; j++) {
-      const [ua, ub] = [ups[i]!, ups[j]!];
-      const [a, b] = [ua.anode, ub.anode];
-      if (a === b) continue;
-      for (const la of ctx.into(a)) {
-        const n = la.anode;
-        if (n === p || n === b) continue;
-        const lb = ctx.into(b).find((d) => d.anode === n);
-        if (!lb || ctx.isStiff(p) || ctx.isStiff(n)) continue;
-        return bridgeMatch(ctx, { 'upper-a': ua, 'upper-b': ub, 'lower-a': la, 'lower-b': lb }, [a, b], p, n);
-      }
-    }
-  }
-  return undefined;
+  if (ctx.isStiff(p)) return undefined;
+  const uppers = upperRow(ctx, p);
+  if (uppers.size < 2) return undefined;
+  const group = firstLowerGroup(ctx, p, [...uppers.keys()], 2);
+  if (!group) return undefined;
+  const [a, b] = group.ac as [string, string];
+  const roles = { 'upper-a': uppers.get(a)!, 'upper-b': uppers.get(b)!, 'lower-a': deviceFrom(ctx, group.n, a)!, 'lower-b': deviceFrom(ctx, group.n, b)! };
+  return bridgeMatch(ctx, roles, [a, b], p, group.n);
 }
 
 type BridgeRoles = Record<'upper-a' | 'upper-b' | 'lower-a' | 'lower-b', RectDevice>;

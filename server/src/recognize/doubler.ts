@@ -13,8 +13,10 @@ import type { Match } from './match';
 /** Finds and claims every doubler among the free devices. */
 export function matchDoublers(ctx: RecognizeContext): Match[] {
   const out: Match[] = [];
+  const caps = new CapacitorIndex(ctx);
   for (const a of new Set(ctx.devices.map((d) => d.anode))) {
-    for (let found = findAt(ctx, a); found; found = findAt(ctx, a)) {
+    if (ctx.exhausted) break;
+    for (let found = findAt(ctx, a, caps); found; found = ctx.exhausted ? undefined : findAt(ctx, a, caps)) {
       ctx.claim(found.devices.map((d) => d.device));
       out.push(found);
     }
@@ -22,16 +24,72 @@ export function matchDoublers(ctx: RecognizeContext): Match[] {
   return out;
 }
 
-function findAt(ctx: RecognizeContext, a: string): Match | undefined {
+/**
+ * The first doubler through node `a`, in the order of a search over every (d2, d1) pair. Only
+ * pairs whose DC− node the capacitors around DC+ can reach are tried, so a thousand devices on
+ * each side of `a` are not a million trials.
+ */
+function findAt(ctx: RecognizeContext, a: string, caps: CapacitorIndex): Match | undefined {
+  const ins = ctx.into(a);
+  if (ins.length === 0) return undefined;
+  const byAnode = new Map<string, number[]>();
+  ins.forEach((d, i) => {
+    const list = byAnode.get(d.anode);
+    if (list) list.push(i);
+    else byAnode.set(d.anode, [i]);
+  });
+  const seriesCap = caps.neighbours(a).length > 0;
   for (const d2 of ctx.outOf(a)) {
-    for (const d1 of ctx.into(a)) {
-      const [p, n] = [d2.cathode, d1.anode];
-      if (p === n || ctx.isStiff(p) || ctx.isStiff(n)) continue;
+    const p = d2.cathode;
+    if (ctx.isStiff(p)) continue;
+    for (const i of candidates(caps.reachableFrom(p, a, seriesCap), byAnode)) {
+      const d1 = ins[i]!;
+      const n = d1.anode;
+      if (p === n || ctx.isStiff(n)) continue;
       const match = fullWave(ctx, d1, d2, a, p, n) ?? halfWave(ctx, d1, d2, a, p, n);
       if (match) return match;
     }
   }
   return undefined;
+}
+
+/** Indices (ascending) of the devices whose anode is among `nodes`. */
+function candidates(nodes: ReadonlySet<string>, byAnode: ReadonlyMap<string, number[]>): number[] {
+  const out: number[] = [];
+  for (const n of nodes) for (const i of byAnode.get(n) ?? []) out.push(i);
+  return out.sort((x, y) => x - y);
+}
+
+/** Which nodes capacitors link, looked up once per node. */
+class CapacitorIndex {
+  private readonly links = new Map<string, string[]>();
+
+  constructor(private readonly ctx: RecognizeContext) {}
+
+  /** Nodes one two-terminal capacitor away. */
+  neighbours(node: string): string[] {
+    let list = this.links.get(node);
+    if (!list) {
+      const at = this.ctx.graph.at(node);
+      this.ctx.spend(at.length);
+      list = at.flatMap(({ element: e, terminal }) => (e.kind === 'capacitor' && e.terminals.length === 2 ? [e.terminals[1 - terminal]!.node] : []));
+      this.links.set(node, list);
+    }
+    return list;
+  }
+
+  /**
+   * DC− candidates for DC+ node `p`: two capacitors away (full wave, through a midpoint other than
+   * `a` and `p`), or one away when `a` has a series capacitor (half wave).
+   */
+  reachableFrom(p: string, a: string, seriesCap: boolean): Set<string> {
+    const out = new Set<string>(seriesCap ? this.neighbours(p) : []);
+    for (const m of this.neighbours(p)) {
+      if (m === a || m === p) continue;
+      for (const n of this.neighbours(m)) out.add(n);
+    }
+    return out;
+  }
 }
 
 function fullWave(ctx: RecognizeContext, d1: RectDevice, d2: RectDevice, a: string, p: string, n: string): Match | undefined {

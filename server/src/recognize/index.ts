@@ -7,7 +7,7 @@ import type { LoadDirective, MainsDirective } from '../../../grammar/src/index';
 import { anchorOf, type CoreDiagnostic, type FlatCircuit, type PlacedDirective } from '../circuit/index';
 import { matchBridges } from './bridge';
 import { matchCentreTaps } from './centre-tap';
-import { RecognizeContext } from './context';
+import { DEFAULT_RECOGNITION_STEPS, RecognizeContext } from './context';
 import { deviceRef } from './devices';
 import { matchDoublers } from './doubler';
 import { classifyGate } from './gates';
@@ -21,18 +21,24 @@ import { matchThreePhase } from './three-phase';
 export * from './rectifier';
 export { toEquivalentCircuit, ratingsFromDirectives, DEFAULT_RDSON_OHM, DEFAULT_CONTROLLER_VMIN_V, type RatingsHook, type DeviceRatingHints } from './to-equivalent-circuit';
 export { DEFAULT_MAINS } from './source-description';
+export { DEFAULT_RECOGNITION_STEPS } from './context';
 
 /**
  * Finds the rectifiers of a flat circuit. `directives` defaults to the circuit's own; the first
  * `mains` and `load` directive (the root file's first) fill what the circuit leaves open.
  */
-export function recognizeRectifiers(flat: FlatCircuit, directives: readonly PlacedDirective[] = flat.directives): Recognition {
-  const ctx = new RecognizeContext(flat);
+export function recognizeRectifiers(
+  flat: FlatCircuit, directives: readonly PlacedDirective[] = flat.directives, maxSteps = DEFAULT_RECOGNITION_STEPS,
+): Recognition {
+  const ctx = new RecognizeContext(flat, maxSteps);
+  // Larger patterns first; each matcher stops once the work budget is spent, and so do the rest.
   const matches: Match[] = [...matchThreePhase(ctx), ...matchBridges(ctx)];
-  const near = matchNearMisses(ctx);
-  matches.push(...matchCentreTaps(ctx), ...matchDoublers(ctx), ...matchHalfWaves(ctx));
+  const near = ctx.exhausted ? { nearMisses: [], diagnostics: [] } : matchNearMisses(ctx);
+  for (const matcher of [matchCentreTaps, matchDoublers, matchHalfWaves]) {
+    if (!ctx.exhausted) for (const match of matcher(ctx)) matches.push(match);
+  }
   const fill = pickDirectives(directives, flat.rootUri);
-  const diagnostics: CoreDiagnostic[] = [...near.diagnostics];
+  const diagnostics: CoreDiagnostic[] = [...near.diagnostics, ...budgetFinding(ctx)];
   const rectifiers = matches.map((match) => {
     const built = buildRectifier(ctx, match, fill);
     diagnostics.push(...built.diagnostics);
@@ -63,6 +69,18 @@ function buildRectifier(ctx: RecognizeContext, match: Match, fill: SurroundingDi
   if (match.mixed) rectifier.mixed = true;
   if (match.tap) rectifier.tap = match.tap;
   return { rectifier, diagnostics };
+}
+
+/** The finding when the work budget ran out: how many devices were left unchecked, on the first of them. */
+function budgetFinding(ctx: RecognizeContext): CoreDiagnostic[] {
+  if (!ctx.exhausted) return [];
+  const left = ctx.devices.filter((d) => ctx.isFree(d));
+  const first = left[0];
+  if (!first) return [];
+  return [{
+    ...anchorOf(first.element.origin), severity: 'warning', code: 'limit-exceeded',
+    message: `rectifier recognition stopped after ${ctx.maxSteps} steps (limit: recognition steps per analysis); ${left.length} diodes and MOSFETs in no recognised rectifier were not all checked, ${first.element.name} first, so a rectifier among them may be missing`,
+  }];
 }
 
 function pickDirectives(directives: readonly PlacedDirective[], rootUri: string): SurroundingDirectives {

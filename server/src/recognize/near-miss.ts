@@ -10,9 +10,6 @@ import type { RecognizeContext } from './context';
 import { deviceRef, type RectDevice } from './devices';
 import type { NearMiss } from './rectifier';
 
-/** Ring enumeration stops after this many steps, so a dense graph cannot stall recognition. */
-const MAX_RING_STEPS = 200_000;
-
 interface Reading {
   ring: RectDevice[];
   roles: DeviceRole[];
@@ -36,24 +33,35 @@ export function matchNearMisses(ctx: RecognizeContext): { nearMisses: NearMiss[]
   return { nearMisses, diagnostics: nearMisses.map(toDiagnostic) };
 }
 
-/** Rings of four free devices through four distinct nodes, each ring once, in node order. */
+/**
+ * Rings of four free devices through four distinct nodes, each ring once, in node order. Every
+ * device looked at is a step of the recognition budget: a dense graph ends the search (and the
+ * caller reports it) instead of stalling recognition.
+ */
 function findRings(ctx: RecognizeContext): RectDevice[][] {
   const free = ctx.devices.filter((d) => ctx.isFree(d));
   const at = new Map<string, RectDevice[]>();
-  for (const d of free) for (const node of [d.anode, d.cathode]) at.set(node, [...(at.get(node) ?? []), d]);
+  for (const d of free) {
+    for (const node of [d.anode, d.cathode]) {
+      const list = at.get(node);
+      if (list) list.push(d);
+      else at.set(node, [d]);
+    }
+  }
   const other = (d: RectDevice, node: string) => (d.anode === node ? d.cathode : d.anode);
   const rings: RectDevice[][] = [];
   const seen = new Set<string>();
-  let budget = MAX_RING_STEPS;
   for (const d1 of free) {
     const [u, v] = [d1.anode, d1.cathode];
+    if (!ctx.spend(at.get(v)?.length ?? 0)) return rings;
     for (const d2 of at.get(v) ?? []) {
       const w = other(d2, v);
       if (d2 === d1 || w === u) continue;
+      if (!ctx.spend(at.get(w)?.length ?? 0)) return rings;
       for (const d3 of at.get(w) ?? []) {
         const x = other(d3, w);
-        if (--budget < 0) return rings;
         if (d3 === d2 || d3 === d1 || x === u || x === v) continue;
+        if (!ctx.spend(at.get(x)?.length ?? 0)) return rings;
         for (const d4 of at.get(x) ?? []) {
           if (d4 === d3 || d4 === d2 || d4 === d1 || other(d4, x) !== u) continue;
           const id = [d1, d2, d3, d4].map((d) => d.element.key).sort().join('|');

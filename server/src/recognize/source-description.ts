@@ -4,7 +4,7 @@
  * the `*@ mains` directive, which overrides the amplitude and frequency of the source feeding the
  * rectifier (RMS volts; line-to-line for a three-phase directive).
  */
-import type { MainsDirective } from '../../../grammar/src/index';
+import { displayNumber, type MainsDirective } from '../../../grammar/src/index';
 import type { FlatElement } from '../circuit/index';
 import type { RecognizeContext } from './context';
 import type { Match } from './match';
@@ -66,7 +66,7 @@ function assumedSource(match: Match, mains: MainsDirective | undefined): { sourc
   const freqHz = mains?.freqHz ?? DEFAULT_MAINS.freqHz;
   const vrms = peak / Math.SQRT2;
   const what = mains ? 'the mains of the `*@ mains` directive' : 'nominal mains (IEC 60038)';
-  const note = `no AC source traced to ${match.acNodes.join('/')}; assuming ${what}, ${round(vrms)} V ${round(freqHz)} Hz, directly across them`;
+  const note = `no AC source traced to ${match.acNodes.join('/')}; assuming ${what}, ${displayNumber(vrms)} V ${displayNumber(freqHz)} Hz, directly across them`;
   return {
     source: { vrms, freqHz, seriesROhm: 0, seriesLH: 0, mainsVrms: vrms, turnsRatio: 1, elements: [], mains, assumed: true },
     notes: [note],
@@ -96,7 +96,7 @@ function addSine(r: LoopReading, e: FlatElement, sign: number, ratio: number): v
   r.emf = add(r.emf, scale(p, ratio));
   r.lineEmf = add(r.lineEmf, p);
   if (r.freqHz === undefined) r.freqHz = e.sine.freqHz;
-  else if (e.sine.freqHz !== undefined && e.sine.freqHz !== r.freqHz) r.notes.push(`${e.name} runs at ${e.sine.freqHz} Hz, not ${r.freqHz} Hz; its phasor is added as if in step`);
+  else if (e.sine.freqHz !== undefined && e.sine.freqHz !== r.freqHz) r.notes.push(`${e.name} runs at ${displayNumber(e.sine.freqHz)} Hz, not ${displayNumber(r.freqHz)} Hz; its phasor is added as if in step`);
 }
 
 /** A secondary winding: its primary loop's EMF times M/L1, the leakage, and the primary's R and L referred by (M/L1)². */
@@ -142,7 +142,4 @@ function scale(a: Phasor, k: number): Phasor {
 }
 function magnitude(a: Phasor): number {
   return Math.hypot(a.re, a.im);
-}
-function round(x: number): number {
-  return Math.round(x * 100) / 100;
 }

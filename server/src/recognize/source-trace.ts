@@ -39,9 +39,8 @@ export function walkChain(graph: NodeGraph, start: string, exclude: ReadonlySet<
   let node = start;
   for (;;) {
     if ((steps.length > 0 && stop.has(node)) || node === GROUND) break;
-    const next = graph.at(node).filter((inc) => !used.has(inc.element.key) && inc.element.kind !== 'capacitor');
-    if (next.length !== 1) break;
-    const element = next[0]!.element;
+    const element = soleElementAt(graph, node, used);
+    if (!element) break;
     const to = otherEnd(element, node);
     if (!SERIES_KINDS.has(element.kind) || element.terminals.length !== 2 || to === undefined || visited.has(to)) break;
     steps.push({ element, from: node, to });
@@ -50,6 +49,20 @@ export function walkChain(graph: NodeGraph, start: string, exclude: ReadonlySet<
     node = to;
   }
   return { end: node, steps };
+}
+
+/**
+ * The one element at a node that is neither used nor a capacitor, or undefined when there are
+ * none or several. It stops at the second one, so a node with thousands of terminals costs two.
+ */
+function soleElementAt(graph: NodeGraph, node: string, used: ReadonlySet<string>): FlatElement | undefined {
+  let sole: FlatElement | undefined;
+  for (const { element } of graph.at(node)) {
+    if (used.has(element.key) || element.kind === 'capacitor') continue;
+    if (sole) return undefined;
+    sole = element;
+  }
+  return sole;
 }
 
 /** Reverses a list of steps (for a chain walked from the other end). */

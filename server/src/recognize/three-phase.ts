@@ -6,13 +6,15 @@ import type { DeviceRole } from '../solve/equivalent-circuit';
 import type { RecognizeContext } from './context';
 import type { RectDevice } from './devices';
 import type { Match } from './match';
+import { deviceFrom, firstLowerGroup, upperRow } from './rail-index';
 import { hasAcDriver, walkChain, type Step } from './source-trace';
 
 /** Finds and claims every six-pulse bridge among the free devices. */
 export function matchThreePhase(ctx: RecognizeContext): Match[] {
   const out: Match[] = [];
   for (const p of ctx.cathodeNodes()) {
-    for (let found = findAt(ctx, p); found; found = findAt(ctx, p)) {
+    if (ctx.exhausted) break;
+    for (let found = findAt(ctx, p); found; found = ctx.exhausted ? undefined : findAt(ctx, p)) {
       ctx.claim(found.devices.map((d) => d.device));
       out.push(found);
     }
@@ -20,32 +22,19 @@ export function matchThreePhase(ctx: RecognizeContext): Match[] {
   return out;
 }
 
+/**
+ * The first six-pulse bridge on DC+ node `p`: three AC nodes with a device into `p`, fed from one
+ * DC− node, chosen in device order (rail-index.ts), in time linear in the devices around `p`.
+ */
 function findAt(ctx: RecognizeContext, p: string): Match | undefined {
-  const ups = ctx.into(p);
-  if (ups.length < 3 || ctx.isStiff(p)) return undefined;
-  for (let i = 0; i < ups.length; i++) {
-    for (let j = i + 1; j < ups.length; j++) {
-      for (let k = j + 1; k < ups.length; k++) {
-        const upper = [ups[i]!, ups[j]!, ups[k]!];
-        const phases = upper.map((d) => d.anode);
-        if (new Set(phases).size !== 3) continue;
-        const lower = lowersFor(ctx, phases, p);
-        if (lower) return sixPulseMatch(ctx, upper, lower, phases, p);
-      }
-    }
-  }
-  return undefined;
-}
-
-/** One device from a common DC− into each phase node, or undefined. */
-function lowersFor(ctx: RecognizeContext, phases: string[], p: string): RectDevice[] | undefined {
-  for (const first of ctx.into(phases[0]!)) {
-    const n = first.anode;
-    if (n === p || phases.includes(n) || ctx.isStiff(n)) continue;
-    const rest = phases.slice(1).map((ph) => ctx.into(ph).find((d) => d.anode === n));
-    if (rest.every((d) => d)) return [first, ...(rest as RectDevice[])];
-  }
-  return undefined;
+  if (ctx.isStiff(p)) return undefined;
+  const uppers = upperRow(ctx, p);
+  if (uppers.size < 3) return undefined;
+  const group = firstLowerGroup(ctx, p, [...uppers.keys()], 3);
+  if (!group) return undefined;
+  const upper = group.ac.map((x) => uppers.get(x)!);
+  const lower = group.ac.map((x) => deviceFrom(ctx, group.n, x)!);
+  return sixPulseMatch(ctx, upper, lower, group.ac, p);
 }
 
 function sixPulseMatch(ctx: RecognizeContext, upper: RectDevice[], lower: RectDevice[], phases: string[], p: string): Match {

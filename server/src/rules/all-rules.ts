@@ -4,10 +4,12 @@
  * `default-model` and `assumed-condition` from the equivalent circuit; they are not rules here.
  */
 import type { Rule } from './registry';
+import { bypassedDeviceRule } from './bypassed-device';
 import { capRippleRule } from './cap-ripple';
 import { capVoltageRule } from './cap-voltage';
 import { controllerUndervoltageRule } from './controller-undervoltage';
 import { currentRatingRule } from './current-rating';
+import { duplicateNameRule } from './duplicate-name';
 import { harmonicLimitRule } from './harmonic-limit';
 import { hazardousVoltageRule } from './hazardous-voltage';
 import { implausibleValueRule } from './implausible-value';
@@ -24,4 +26,5 @@ export const ALL_RULES: readonly Rule[] = [
   pivMarginRule, currentRatingRule, surgeRatingRule, junctionTempRule, thermalRunawayRule,
   mosfetVdsRule, capVoltageRule, capRippleRule, controllerUndervoltageRule, harmonicLimitRule,
   missingRatingRule, mixedBridgeRule, hazardousVoltageRule, implausibleValueRule, shortedSourceRule,
+  bypassedDeviceRule, duplicateNameRule,
 ];

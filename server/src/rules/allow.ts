@@ -21,37 +21,98 @@ export interface AllowedRegion {
 /** The regions every allow directive covers. */
 export function allowedRegions(directives: readonly PlacedDirective[], parsed: ReadonlyMap<string, Netlist>): AllowedRegion[] {
   const regions: AllowedRegion[] = [];
+  const layouts = new Map<string, CardLayout>();
   for (const placed of directives) {
     const d = placed.directive;
     if (d.keyword !== 'allow' || d.codes.length === 0) continue;
     const codes = d.codes.map((c) => c.text.toLowerCase());
-    const cards = parsed.get(placed.uri)?.cards ?? [];
-    const leading = cards.filter((c) => c.span.start < d.span.start).every((c) => c.kind === 'directive' || c.kind === 'title');
-    if (leading) {
+    let layout = layouts.get(placed.uri);
+    if (!layout) layouts.set(placed.uri, (layout = cardLayout(parsed.get(placed.uri)?.cards ?? [])));
+    if (d.span.start <= layout.leadingEnd) {
       regions.push({ uri: placed.uri, codes });
       continue;
     }
-    const next = nextCard(cards, d.span.end);
+    const next = layout.nextAfter(d.span.end);
     if (next) regions.push({ uri: placed.uri, span: next.span, codes });
   }
   return regions;
 }
 
-/** Drops the findings an allow directive accepts. */
+/**
+ * Drops the findings an allow directive accepts. The regions are indexed by file and code, and
+ * the covered cards of one file do not overlap, so each place is one binary search: twenty
+ * thousand allow lines cost no more than their own count.
+ */
 export function filterAllowed<F extends Pick<Finding, 'uri' | 'span' | 'code' | 'related'>>(
   findings: readonly F[], directives: readonly PlacedDirective[], parsed: ReadonlyMap<string, Netlist>,
 ): F[] {
   const regions = allowedRegions(directives, parsed);
   if (regions.length === 0) return [...findings];
-  return findings.filter((f) => !regions.some((r) => covers(r, f)));
+  const index = indexRegions(regions);
+  return findings.filter((f) => {
+    const code = f.code.toLowerCase();
+    const places = [{ uri: f.uri, span: f.span }, ...(f.related ?? [])];
+    return !places.some((p) => index.covers(p.uri, code, p.span));
+  });
 }
 
-function covers(region: AllowedRegion, finding: Pick<Finding, 'uri' | 'span' | 'code' | 'related'>): boolean {
-  if (!region.codes.includes(finding.code.toLowerCase())) return false;
-  const places = [{ uri: finding.uri, span: finding.span }, ...(finding.related ?? [])];
-  return places.some((p) => p.uri === region.uri && (!region.span || (p.span.start >= region.span.start && p.span.end <= region.span.end)));
+/** Where a file's leading block of directives ends, and the next card after an offset that is not a comment. */
+interface CardLayout {
+  /** Directives starting at or before this offset sit in the leading block (no other card before them). */
+  leadingEnd: number;
+  nextAfter(offset: number): Card | undefined;
 }
 
-function nextCard(cards: readonly Card[], after: number): Card | undefined {
-  return cards.find((c) => c.span.start >= after && c.kind !== 'directive' && c.kind !== 'title');
+function cardLayout(cards: readonly Card[]): CardLayout {
+  const isComment = (c: Card) => c.kind === 'directive' || c.kind === 'title';
+  const firstOther = cards.find((c) => !isComment(c));
+  // For each card index, the first card at or after it that is not a directive or the title.
+  const nextOther: (Card | undefined)[] = new Array(cards.length + 1);
+  for (let i = cards.length - 1; i >= 0; i--) nextOther[i] = isComment(cards[i]!) ? nextOther[i + 1] : cards[i];
+  return {
+    leadingEnd: firstOther ? firstOther.span.start : Infinity,
+    nextAfter: (offset) => nextOther[firstIndexAtOrAfter(cards.length, (i) => cards[i]!.span.start, offset)],
+  };
+}
+
+/** Regions by file and code: whole-file ones as a set, card ones as start-sorted spans. */
+function indexRegions(regions: readonly AllowedRegion[]) {
+  const wholeFile = new Set<string>();
+  const spans = new Map<string, Span[]>();
+  for (const r of regions) {
+    for (const code of r.codes) {
+      const id = `${r.uri}\u0000${code}`;
+      if (!r.span) wholeFile.add(id);
+      else {
+        const list = spans.get(id);
+        if (list) list.push(r.span);
+        else spans.set(id, [r.span]);
+      }
+    }
+  }
+  for (const list of spans.values()) list.sort((a, b) => a.start - b.start);
+  return {
+    covers(uri: string, code: string, span: Span): boolean {
+      const id = `${uri}\u0000${code}`;
+      if (wholeFile.has(id)) return true;
+      const list = spans.get(id);
+      if (!list) return false;
+      // Cards do not overlap: only the last covered card starting at or before the place can hold it.
+      const k = firstIndexAtOrAfter(list.length, (i) => list[i]!.start, span.start + 1) - 1;
+      const card = list[k];
+      return card !== undefined && card.start <= span.start && span.end <= card.end;
+    },
+  };
+}
+
+/** The first index in [0, length) whose key is at least `value` (keys ascending), or `length`. */
+function firstIndexAtOrAfter(length: number, keyAt: (i: number) => number, value: number): number {
+  let lo = 0;
+  let hi = length;
+  while (lo < hi) {
+    const mid = (lo + hi) >>> 1;
+    if (keyAt(mid) < value) lo = mid + 1;
+    else hi = mid;
+  }
+  return lo;
 }

@@ -14,18 +14,19 @@ import { withLazyFixes, type Finding } from '../analysis/findings';
 import type { Rule } from './registry';
 import { capacitorsOf } from './capacitor-view';
 import { capacitorBankFix } from './fixes/cap-bank';
-import { allowsText, fmt, pct, placeOf, policyOf, severityOf } from './rule-context';
+import { ratioSeverity } from '../ratings/index';
+import { allowsText, fmt, pct, placeOf } from './rule-context';
 
 export const capRippleRule: Rule = {
   code: 'cap-ripple',
   check(input) {
-    const ripple = policyOf(input).ripple;
+    const ripple = input.policy.ripple;
     const files = input.parsed ?? new Map([[input.rootUri, input.netlist]]);
     const findings: Finding[] = [];
     for (const view of capacitorsOf(input)) {
       const rated = view.ratings.iRippleA;
       if (!rated || !view.irmsA) continue;
-      const severity = severityOf(view.irmsA.value, rated.value, ripple.value);
+      const severity = ratioSeverity(view.irmsA.value, rated.value, ripple.value);
       if (!severity) continue;
       findings.push(withLazyFixes({
         ...placeOf(view.element.origin, view.name), severity, code: 'cap-ripple',

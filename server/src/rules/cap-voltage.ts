@@ -14,17 +14,18 @@ import type { Finding } from '../analysis/findings';
 import type { Rule } from './registry';
 import { capacitorsOf } from './capacitor-view';
 import { raiseCapacitorVoltageFix } from './fixes/raise-cap-voltage';
-import { allowsText, fmt, pct, placeOf, policyOf, severityOf } from './rule-context';
+import { ratioSeverity } from '../ratings/index';
+import { allowsText, fmt, pct, placeOf } from './rule-context';
 
 export const capVoltageRule: Rule = {
   code: 'cap-voltage',
   check(input) {
-    const cap = policyOf(input).cap;
+    const cap = input.policy.cap;
     const findings: Finding[] = [];
     for (const view of capacitorsOf(input)) {
       const rated = view.ratings.vratedV;
       if (!rated || !view.peakV) continue;
-      const severity = severityOf(view.peakV.value, rated.value, cap.value);
+      const severity = ratioSeverity(view.peakV.value, rated.value, cap.value);
       if (!severity) continue;
       const fix = raiseCapacitorVoltageFix(view, view.peakV.value / cap.value);
       findings.push({

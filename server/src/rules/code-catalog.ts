@@ -26,13 +26,17 @@ const SYNTAX: Readonly<Record<string, [string, string]>> = {
   'unknown-param': ['an instance sets a parameter the subcircuit does not declare', 'Check the name against the .subckt card.'],
   'bad-value': ['a value is not a finite number', 'Write a finite value.'],
   'param-redefined': ['a parameter is defined twice', 'The later value wins; remove one of them.'],
+  'file-encoding': ['a file is not UTF-8 text (UTF-16, or binary)', 'Save the file as UTF-8; it is not analysed until then.'],
 };
 
 const CIRCUIT: Readonly<Record<string, [string, string]>> = {
-  'missing-include': ['an included file cannot be read', 'Check the path (relative to the including file) and, in an untrusted workspace, that it lies inside it.'],
+  'missing-include': ['an included file cannot be read', 'Check the path (relative to the including file).'],
+  'untrusted-file': ['the workspace is untrusted and a file it names (include, library or parts file) lies outside its folders, by its real path', 'Trust the workspace to read it, or copy the file into the workspace; it is not read until then.'],
+  'unreadable-file': ['a file named by an include, library or parts file is not a regular file (a folder, device, named pipe or socket) or cannot be read', 'Name a regular file you can read.'],
   'missing-lib-section': ['a .lib reference names a section the library does not have', 'Check the section name.'],
   'include-cycle': ['files include each other in a cycle', 'Remove one of the includes.'],
   'include-depth': ['includes nested too deeply', 'Flatten the include chain.'],
+  'include-error': ['an included file has errors, so part of the circuit was not analysed as written', 'Fix the errors in the included file; the message quotes the first.'],
   'unknown-subckt': ['an X card names a subcircuit that is not defined', 'Define or include the subcircuit.'],
   'unknown-model': ['a device names a model that is not defined', 'Define or include the model; defaults are used meanwhile.'],
   'subckt-redefined': ['a subcircuit is defined twice', 'The later definition wins; remove one.'],
@@ -60,9 +64,12 @@ const ANALYSIS_HELP: Readonly<Record<string, string>> = {
   'mixed-bridge': 'Devices of different models share the stress unevenly; use one model unless that is intended.',
   'hazardous-voltage': 'Estimates only, not a safety or compliance test; follow local codes and licensed practice.',
   'implausible-value': 'Correct the value; the part is left out of the analysis until then.',
-  'shorted-source': 'Remove the short or give the source its real value.',
+  'shorted-source': 'Remove the short or give the source or the load its real value.',
+  'bypassed-device': 'Remove the resistor, or model it in the circuit some other way; the figures leave it out.',
+  'duplicate-name': 'Rename one of the two; element names must be unique.',
   'limit-exceeded': 'Split the netlist, or analyse the part that matters; the message names the limit.',
   'figure-omitted': 'Check the values feeding the rectifier for ones far outside any real part.',
+  'parts-file': 'Fix the parts file where the finding points; its JSON Schema is parts-file.schema.json.',
 };
 
 /** Metadata for a code, with a generic fallback for codes added later. */

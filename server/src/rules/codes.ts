@@ -17,7 +17,10 @@ export const FINDING_CODES: Readonly<Record<string, string>> = {
   'mixed-bridge': 'the devices of one bridge use different models',
   'hazardous-voltage': 'a source above extra-low voltage: caution',
   'implausible-value': 'a value no real part has: zero or negative capacitance, negative resistance, negative SIN amplitude',
-  'shorted-source': 'a voltage source shorted by 0 Ω, or a 0 V source across a rectifier input',
-  'limit-exceeded': 'a hard limit of the analysis was reached (file size, cards, rectifiers, time, solver iterations); the result is partial',
+  'shorted-source': 'a short: a voltage source with both terminals on one node or 0 Ω across it, a 0 V source across a rectifier input, or 0 Ω across a rectifier output',
+  'bypassed-device': 'a resistor across a rectifier device conducts both ways; the analysis leaves it out',
+  'duplicate-name': 'an element or instance name used twice in one scope',
+  'limit-exceeded': 'a hard limit of the analysis was reached (file size, cards, cards read through includes, recognition steps, rectifiers, solver work, solver iterations); the result is partial',
   'figure-omitted': 'a figure was left out because it was not a finite number',
+  'parts-file': 'a parts file is empty, not valid JSON, of an unsupported version or breaks its format; what it cannot give is not used',
 };

@@ -14,40 +14,36 @@
 import { withLazyFixes, type Finding } from '../analysis/findings';
 import type { Rule } from './registry';
 import { diodeSwapFix } from './fixes/swap-diode';
-import { allowsText, devicesOf, fmt, pct, placeOf, policyOf, ratingTag, severityOf, type DeviceView } from './rule-context';
+import { allowsText, fmt, pct, placeOf, ratingTag, stressFindings, type DeviceView, type FailedStress } from './rule-context';
+import type { DeviceAnalysis } from '../analysis/rectifier-analysis';
 import type { RuleInput } from './registry';
 
 export const currentRatingRule: Rule = {
   code: 'current-rating',
   check(input) {
-    return devicesOf(input).flatMap((view) => {
-      const finding = view.device.ratings.ratings.kind === 'diode' ? diodeFinding(input, view) : mosfetFinding(input, view);
-      return finding ? [finding] : [];
-    });
+    const stress = (d: DeviceAnalysis) => (d.ratings.ratings.kind === 'diode' ? 'average-current' : 'drain-current');
+    return stressFindings(input, stress, (view, failed) =>
+      view.device.ratings.ratings.kind === 'diode' ? diodeFinding(input, view, failed) : mosfetFinding(input, view, failed));
   },
 };
 
-function diodeFinding(input: RuleInput, { analysis, index, device, worst }: DeviceView): Finding | undefined {
+function diodeFinding(input: RuleInput, { analysis, index, device, worst }: DeviceView, failed: FailedStress): Finding | undefined {
   const r = device.ratings.ratings;
-  const limit = policyOf(input).if;
+  const limit = input.policy.if;
   if (r.kind !== 'diode' || !r.ifavA || !worst?.iavgA) return undefined;
-  const severity = severityOf(worst.iavgA.value, r.ifavA.value, limit.value);
-  if (!severity) return undefined;
   return withLazyFixes({
-    ...placeOf(device.ref.origin, device.ref.name), severity, code: 'current-rating',
+    ...placeOf(device.ref.origin, device.ref.name), severity: failed.status, code: 'current-rating',
     message: `${device.ref.name}: average current ${fmt(worst.iavgA.value)} A at ${worst.iavgA.corner} is ` +
       `${pct(worst.iavgA.value / r.ifavA.value)} of IF(AV) ${fmt(r.ifavA.value)} A${ratingTag(r.ifavA)}; ${allowsText(limit)}`,
   }, () => [diodeSwapFix(input, analysis, index)]);
 }
 
-function mosfetFinding(input: RuleInput, { device, worst }: DeviceView): Finding | undefined {
+function mosfetFinding(input: RuleInput, { device, worst }: DeviceView, failed: FailedStress): Finding | undefined {
   const r = device.ratings.ratings;
-  const limit = policyOf(input).id;
+  const limit = input.policy.id;
   if (r.kind !== 'mosfet' || !r.idA || !worst?.irmsA) return undefined;
-  const severity = severityOf(worst.irmsA.value, r.idA.value, limit.value);
-  if (!severity) return undefined;
   return {
-    ...placeOf(device.ref.origin, device.ref.name), severity, code: 'current-rating',
+    ...placeOf(device.ref.origin, device.ref.name), severity: failed.status, code: 'current-rating',
     message: `${device.ref.name}: RMS drain current ${fmt(worst.irmsA.value)} A at ${worst.irmsA.corner} is ` +
       `${pct(worst.irmsA.value / r.idA.value)} of ID ${fmt(r.idA.value)} A; ${allowsText(limit)}`,
   };

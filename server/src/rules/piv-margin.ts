@@ -10,28 +10,24 @@
  * itself (outside the part's rating), warning when it only exceeds the derated limit. Fix: the
  * lowest-rated part that passes every stress rule (fixes/swap-diode.ts).
  */
-import { withLazyFixes, type Finding } from '../analysis/findings';
+import { withLazyFixes } from '../analysis/findings';
 import type { Rule } from './registry';
 import { diodeSwapFix } from './fixes/swap-diode';
-import { allowsText, devicesOf, fmt, pct, placeOf, policyOf, ratingTag, severityOf } from './rule-context';
+import { allowsText, fmt, pct, placeOf, ratingTag, stressFindings } from './rule-context';
 
 export const pivMarginRule: Rule = {
   code: 'piv-margin',
   check(input) {
-    const vr = policyOf(input).vr;
-    const findings: Finding[] = [];
-    for (const { analysis, index, device, worst } of devicesOf(input)) {
+    const vr = input.policy.vr;
+    return stressFindings(input, 'reverse-voltage', ({ analysis, index, device, worst }, failed) => {
       const rating = device.ratings.ratings;
-      if (rating.kind !== 'diode' || !rating.vrrmV || !worst?.pivV) continue;
+      if (rating.kind !== 'diode' || !rating.vrrmV || !worst?.pivV) return undefined;
       const piv = worst.pivV;
-      const severity = severityOf(piv.value, rating.vrrmV.value, vr.value);
-      if (!severity) continue;
-      findings.push(withLazyFixes({
-        ...placeOf(device.ref.origin, device.ref.name), severity, code: 'piv-margin',
+      return withLazyFixes({
+        ...placeOf(device.ref.origin, device.ref.name), severity: failed.status, code: 'piv-margin',
         message: `${device.ref.name}: PIV ${fmt(piv.value)} V at ${piv.corner} is ${pct(piv.value / rating.vrrmV.value)} of VRRM ` +
           `${fmt(rating.vrrmV.value)} V${ratingTag(rating.vrrmV)}; ${allowsText(vr)}`,
-      }, () => [diodeSwapFix(input, analysis, index)]));
-    }
-    return findings;
+      }, () => [diodeSwapFix(input, analysis, index)]);
+    });
   },
 };

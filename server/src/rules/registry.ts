@@ -7,9 +7,8 @@ import type { Netlist } from '../../../grammar/src/index';
 import type { FlatCircuit } from '../circuit/index';
 import type { Finding } from '../analysis/findings';
 import type { RectifierAnalysis } from '../analysis/rectifier-analysis';
-import type { AnalysisSettings } from '../analysis/settings';
 import type { SolveFn } from '../analysis/solver-memo';
-import type { PartsFile } from '../ratings/index';
+import type { DeratingPolicy, PartsFile } from '../ratings/index';
 import type { NearMiss } from '../recognize/index';
 import { ALL_RULES } from './all-rules';
 import { filterAllowed } from './allow';
@@ -20,7 +19,8 @@ export interface RuleInput {
   flat: FlatCircuit;
   rectifiers: readonly RectifierAnalysis[];
   nearMisses: readonly NearMiss[];
-  settings: AnalysisSettings;
+  /** The file's derating policy, resolved once per analysis (ratings/derating-policy.ts `resolvePolicy`). */
+  policy: DeratingPolicy;
   /** Validated workspace parts files: candidates for the part-swap fix. */
   partsFiles?: readonly PartsFile[];
   /** Every file the analysis parsed, by URI (the root included), for fixes that edit them. */

@@ -1,44 +1,17 @@
 /**
- * Helpers the rules share: the derating policy for a file, where a finding about a device goes,
- * the severity of a figure against a rating and its derated limit, and number formatting.
+ * Helpers the rules share: where a finding about a device goes, the devices of the file with
+ * their figures, and number formatting. The policy is `input.policy`; the stress thresholds are
+ * ratings/stress-checks.ts.
  */
-import type { Severity } from '../../../grammar/src/index';
+import { displayNumber, displayPercent } from '../../../grammar/src/index';
 import { anchorOf, type FlatElement, type Origin, type SourceElement } from '../circuit/index';
 import type { Finding, RelatedPlace } from '../analysis/findings';
-import type { AnalysisSettings } from '../analysis/settings';
 import type { DeviceAnalysis, RectifierAnalysis } from '../analysis/rectifier-analysis';
 import {
-  describeOrigin, describePolicyOrigin, resolveDeratingPolicy,
-  type DeratingPolicy, type DeratingSettings, type PolicyEntry, type Rated,
+  describeOrigin, describePolicyOrigin, stressVerdict, type PolicyEntry, type Rated, type StressKind, type StressVerdict,
 } from '../ratings/index';
 import type { DeviceWorst } from '../solve/index';
 import type { RuleInput } from './registry';
-
-/** The settings' derating names mapped to the policy keys of `*@ derate`. */
-export function deratingSettings(settings: AnalysisSettings): DeratingSettings {
-  const d = settings.derating ?? {};
-  const out: DeratingSettings = {};
-  // Only real numbers count: an unset editor setting may arrive as null.
-  const given = (v: unknown): v is number => typeof v === 'number' && Number.isFinite(v);
-  if (given(d.reverseVoltage)) out.vr = d.reverseVoltage;
-  if (given(d.forwardCurrent)) out.if = d.forwardCurrent;
-  if (given(d.surgeCurrent)) out.ifsm = d.surgeCurrent;
-  if (given(d.junctionTempC)) out.tj = d.junctionTempC;
-  if (given(d.capacitorVoltage)) out.cap = d.capacitorVoltage;
-  return out;
-}
-
-const policies = new WeakMap<RuleInput, DeratingPolicy>();
-
-/** The file's derating policy: directive, then settings, then the cited defaults. */
-export function policyOf(input: RuleInput): DeratingPolicy {
-  let policy = policies.get(input);
-  if (!policy) {
-    policy = resolveDeratingPolicy(input.flat.directives, deratingSettings(input.settings)).policy;
-    policies.set(input, policy);
-  }
-  return policy;
-}
 
 /** Where a finding about an element goes, with the inner card as related when it sits in a subcircuit. */
 export function placeOf(origin: Origin, name: string): Pick<Finding, 'uri' | 'span' | 'related'> {
@@ -48,7 +21,7 @@ export function placeOf(origin: Origin, name: string): Pick<Finding, 'uri' | 'sp
   return { ...anchor, related };
 }
 
-/** One device of an analysed rectifier with its worst figures. */
+/** One device of an analysed rectifier with its worst figures (the device's own `figures.worst`). */
 export interface DeviceView {
   analysis: RectifierAnalysis;
   index: number;
@@ -59,32 +32,32 @@ export interface DeviceView {
 /** Every device of every rectifier of the file. */
 export function devicesOf(input: RuleInput): DeviceView[] {
   return input.rectifiers.flatMap((analysis) =>
-    analysis.devices.map((device, index) => ({ analysis, index, device, worst: analysis.solution.devices[index] })));
+    analysis.devices.map((device, index) => ({ analysis, index, device, worst: device.figures.worst })));
 }
+
+/** A stress verdict that fails the policy: its status is the finding's severity. */
+export type FailedStress = StressVerdict & { status: 'warning' | 'error' };
 
 /**
- * Severity of a figure against a rating and the allowed fraction of it: beyond the rating itself
- * the part is outside what its maker guarantees (error); beyond only the policy's fraction it
- * lacks the margin the policy asks for (warning). Undefined when within the policy.
+ * The findings of a stress rule, in device order: for each device that fails its `stress`
+ * (ratings/stress-checks.ts; unrated and passing devices give none), the finding `build` words.
  */
-export function severityOf(figure: number, rating: number, allowedFraction: number): Severity | undefined {
-  if (figure > rating) return 'error';
-  if (figure > rating * allowedFraction) return 'warning';
-  return undefined;
+export function stressFindings(
+  input: RuleInput, stress: StressKind | ((device: DeviceAnalysis) => StressKind), build: (view: DeviceView, failed: FailedStress) => Finding | undefined,
+): Finding[] {
+  return devicesOf(input).flatMap((view) => {
+    const kind = typeof stress === 'function' ? stress(view.device) : stress;
+    const verdict = stressVerdict(kind, view.device.figures, view.device.ratings.ratings, input.policy);
+    if (verdict?.status !== 'warning' && verdict?.status !== 'error') return [];
+    return build(view, verdict as FailedStress) ?? [];
+  });
 }
 
-/** A number with three significant digits, without exponent noise: 358, 0.142, 1.05, 1200. */
-export function fmt(value: number): string {
-  if (!Number.isFinite(value)) return String(value);
-  const abs = Math.abs(value);
-  if (abs >= 1000) return String(Math.round(value));
-  return String(Number(value.toPrecision(3)));
-}
+/** A number for a message: three significant digits, never NaN or a raw double (grammar/src/display.ts). */
+export const fmt = displayNumber;
 
-/** A fraction as a whole percentage: 0.8 → "80 %". */
-export function pct(fraction: number): string {
-  return `${Math.round(fraction * 100)} %`;
-}
+/** A fraction as a whole percentage: 0.8 → "80 %" (grammar/src/display.ts). */
+export const pct = displayPercent;
 
 /** "policy allows 80 % (origin)". */
 export function allowsText(entry: PolicyEntry<number>): string {
@@ -103,6 +76,11 @@ export function ratingTag(rated: Rated<number>): string {
 /** The full origin of a rating, for related messages. */
 export function ratingOriginText(rated: Rated<number>): string {
   return describeOrigin(rated.origin);
+}
+
+/** The same key for a two-node pair in either order, for look-ups of parts across two nodes. */
+export function nodePairKey(a: string, b: string): string {
+  return a < b ? `${a}\u0000${b}` : `${b}\u0000${a}`;
 }
 
 /** Look-ups over the flat circuit that several rules need, built once per analysis. */

@@ -1,33 +1,37 @@
 /**
  * The minimum rating values a `rate` template proposes, from the part's worst stresses under the
  * policy: VRRM ≥ PIV/vr, IF(AV) ≥ Iavg/if, IFSM (8.3 ms) ≥ surge/ifsm converted at equal I²t,
- * VDS ≥ PIV/vds, rated voltage ≥ the next class above peak/cap, ripple ≥ Irms/ripple. Tjmax is
+ * VDS ≥ PIV/vds (the stress checks inverted, ratings/stress-checks.ts `leastPassingRatings`),
+ * rated voltage ≥ the next class above peak/cap, ripple ≥ Irms/ripple. Tjmax is
  * 150 °C, the common class of silicon rectifiers (common practice), or higher when the junction
  * needs it with the default margin.
  */
-import { DEFAULT_IFSM_DURATION_S, equivalentSurgeA, junctionLimitC, nextCapacitorVoltageClass } from '../ratings/index';
+import {
+  DEFAULT_IFSM_DURATION_S, equivalentSurgeA, junctionLimitC, leastPassingRatings, nextCapacitorVoltageClass, type StressInputs,
+} from '../ratings/index';
 import type { CapacitorView } from './capacitor-view';
 import { ceilTwoDigits } from './fixes/rate-template';
 import { groupOf } from './fixes/swap-diode';
 import type { RuleInput } from './registry';
-import { fmt, policyOf, type DeviceView } from './rule-context';
-import { surgeFigureA, surgeStressOf } from './surge-stress';
+import { fmt, type DeviceView } from './rule-context';
 
 const CLASS_TJMAX_C = 150;
 
 /** `key=value` entries for a device's missing keys. */
 export function deviceTemplate(input: RuleInput, view: DeviceView, missing: readonly string[]): string[] {
-  const policy = policyOf(input);
   // A template for a model name covers every device of the rectifier using that model.
-  const group = groupOf(view.analysis, view.index).map((index) => ({ ...view, index, worst: view.analysis.solution.devices[index] }));
-  const most = (get: (v: DeviceView) => number | undefined) => Math.max(...group.map(get).map((x) => x ?? -Infinity));
-  const piv = most((v) => v.worst?.pivV?.value);
-  const iavg = most((v) => v.worst?.iavgA?.value);
+  const group = groupOf(view.analysis, view.index).map((index): DeviceView => {
+    const device = view.analysis.devices[index]!;
+    return { ...view, index, device, worst: device.figures.worst };
+  });
+  const least = leastPassingRatings(groupStress(group), input.policy);
+  const entry = (key: string, value: number | undefined, unit: string) => (value === undefined ? undefined : `${key}=${fmt(ceilTwoDigits(value))}${unit}`);
   const values: Record<string, string | undefined> = {
-    vrrm: piv > 0 ? `vrrm=${fmt(ceilTwoDigits(piv / policy.vr.value))}V` : undefined,
-    vds: piv > 0 ? `vds=${fmt(ceilTwoDigits(piv / policy.vds.value))}V` : undefined,
-    ifav: iavg > 0 ? `ifav=${fmt(ceilTwoDigits(iavg / policy.if.value))}A` : undefined,
-    ifsm: surgeEntry(group, policy.ifsm.value),
+    vrrm: entry('vrrm', least.vrrmV, 'V'),
+    vds: entry('vds', least.vdsV, 'V'),
+    ifav: entry('ifav', least.ifavA, 'A'),
+    // The IFSM an 8.3 ms rating must state so that, converted to this half-cycle, it covers the surge.
+    ifsm: least.surge && entry('ifsm', equivalentSurgeA(least.surge.peakA, least.surge.durationS, DEFAULT_IFSM_DURATION_S), 'A'),
     tjmax: `tjmax=${fmt(Math.max(...group.map((v) => tjmaxFor(v, input))))}C`,
   };
   return missing.map((k) => values[k]).filter((v): v is string => v !== undefined);
@@ -35,7 +39,7 @@ export function deviceTemplate(input: RuleInput, view: DeviceView, missing: read
 
 /** `key=value` entries for a capacitor's missing keys. */
 export function capacitorTemplate(input: RuleInput, view: CapacitorView, missing: readonly string[]): string[] {
-  const policy = policyOf(input);
+  const policy = input.policy;
   const classV = view.peakV && nextCapacitorVoltageClass(view.peakV.value / policy.cap.value);
   const values: Record<string, string | undefined> = {
     vrated: classV === undefined ? undefined : `vrated=${fmt(classV)}V`,
@@ -44,18 +48,22 @@ export function capacitorTemplate(input: RuleInput, view: CapacitorView, missing
   return missing.map((k) => values[k]).filter((v): v is string => v !== undefined);
 }
 
-function surgeEntry(group: readonly DeviceView[], fraction: number): string | undefined {
-  const stresses = group.map((v) => surgeStressOf(v.analysis, v.index)).filter((s) => s !== undefined);
-  if (stresses.length === 0) return undefined;
-  const figureA = Math.max(...stresses.map(surgeFigureA));
-  // The IFSM an 8.3 ms rating must state so that, converted to this half-cycle, it covers the surge.
-  const at83 = equivalentSurgeA(figureA / fraction, stresses[0]!.durationS, DEFAULT_IFSM_DURATION_S);
-  return `ifsm=${fmt(ceilTwoDigits(at83))}A`;
+/** The group's worst stresses: the largest positive PIV and average current, the largest surge figure. */
+function groupStress(group: readonly DeviceView[]): StressInputs {
+  const most = (get: (v: DeviceView) => number | undefined) => Math.max(...group.map(get).map((x) => x ?? -Infinity));
+  const piv = most((v) => v.worst?.pivV?.value);
+  const iavg = most((v) => v.worst?.iavgA?.value);
+  const worst: NonNullable<StressInputs['worst']> = {};
+  if (piv > 0) worst.pivV = { value: piv };
+  if (iavg > 0) worst.iavgA = { value: iavg };
+  const surges = group.map((v) => v.device.figures.surge).filter((s) => s !== undefined);
+  if (surges.length === 0) return { worst };
+  return { worst, surge: { ...surges[0]!, figureA: Math.max(...surges.map((s) => s.figureA)) } };
 }
 
 function tjmaxFor(view: DeviceView, input: RuleInput): number {
   const tjC = view.worst?.tjC?.value;
-  const limit = policyOf(input).tj.value;
+  const limit = input.policy.tj.value;
   if (tjC === undefined || junctionLimitC(limit, CLASS_TJMAX_C) >= tjC) return CLASS_TJMAX_C;
   return ceilTwoDigits(tjC + (limit.kind === 'below-max' ? limit.marginC : 0));
 }

@@ -18,8 +18,8 @@ export const thermalRunawayRule: Rule = {
     const findings: Finding[] = [];
     for (const { analysis, index, device, worst } of devicesOf(input)) {
       if (!worst?.thermalRunaway) continue;
-      const corners = analysis.solution.corners.filter((c) => c.devices[index]?.thermalRunaway).map((c) => c.name);
-      const rthja = analysis.circuit.devices[index]?.rthjaKPerW;
+      const corners = device.figures.corners.filter((c) => c.figures?.thermalRunaway).map((c) => c.corner);
+      const rthja = device.figures.rthjaKPerW;
       findings.push(withLazyFixes({
         ...placeOf(device.ref.origin, device.ref.name), severity: 'error', code: 'thermal-runaway',
         message: `${device.ref.name}: loss and junction temperature do not settle at ${corners.join(', ')}` +

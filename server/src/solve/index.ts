@@ -18,3 +18,4 @@ export { simulateInrush, type InrushResult } from './inrush';
 export { settleJunctionTemperatures, type ThermalResult, type ThermalOptions } from './thermal';
 export type { Waveform } from './waveform';
 export { NON_FINITE_NOTE } from './finite-figures';
+export { deviceFiguresOf, type DeviceAtCorner, type DeviceFigures, type SurgeStress } from './device-figures';

@@ -13,12 +13,11 @@
 import type { Fix } from '../../analysis/findings';
 import type { RectifierAnalysis } from '../../analysis/rectifier-analysis';
 import type { SourceElement } from '../../circuit/index';
-import { E_SERIES_SOURCE, nextPreferredValue, type DeratingPolicy } from '../../ratings/index';
-import { solveRectifier, type RectifierSolution } from '../../solve/index';
+import { E_SERIES_SOURCE, nextPreferredValue, stressVerdict, type DeratingPolicy } from '../../ratings/index';
+import { deviceFiguresOf, solveRectifier, type RectifierSolution } from '../../solve/index';
 import type { SolveFn } from '../../analysis/solver-memo';
 import type { RuleInput } from '../registry';
-import { circuitIndexOf, fmt, policyOf } from '../rule-context';
-import { surgeCapability, surgeFigureA, surgeStressOf } from '../surge-stress';
+import { circuitIndexOf, fmt } from '../rule-context';
 import { cardAt, insertLinesAfter, spiceNumber } from './text-edits';
 
 /** The E12 ladder the fix searches, 0.1 Ω … 1 kΩ. */
@@ -38,7 +37,7 @@ function buildFix(input: RuleInput, analysis: RectifierAnalysis): Fix | undefine
   const source = sourceOf(input, analysis);
   const card = source && cardAt(input.netlist, source.origin.span);
   if (!source || card?.kind !== 'source' || !card.nodes[0]) return undefined;
-  const policy = policyOf(input);
+  const policy = input.policy;
   const trial = (ohm: number) => solveWithSeries(analysis, ohm, input.solve);
   let lo = 0;
   let hi = INRUSH_LADDER_OHM.length - 1;
@@ -83,14 +82,11 @@ export function solveWithSeries(analysis: RectifierAnalysis, ohm: number, solve:
   return solve(circuit, analysis.corners.filter((c) => c.lineScale === top), { waveformPoints: 0 });
 }
 
-/** Whether every rated device's surge is within its derated IFSM in `solution`. */
+/** Whether every rated device's surge is within its derated IFSM in `solution` (an unrated one is missing-rating's). */
 export function surgePasses(analysis: RectifierAnalysis, solution: RectifierSolution, policy: DeratingPolicy): boolean {
-  const trial = { ...analysis, solution };
   return analysis.devices.every((d, k) => {
-    const r = d.ratings.ratings;
-    const stress = surgeStressOf(trial, k);
-    const capability = r.kind === 'diode' && stress ? surgeCapability(r, stress.durationS) : undefined;
-    return !stress || !capability || surgeFigureA(stress) <= policy.ifsm.value * capability.equivalentA;
+    const status = stressVerdict('surge', deviceFiguresOf(analysis.circuit, solution, k), d.ratings.ratings, policy)?.status;
+    return status === undefined || status === 'pass' || status === 'unrated';
   });
 }
 

@@ -4,7 +4,8 @@
  * bridge keeps one part). Candidates are ranked by `selectPassingPart` against the minimum
  * ratings the present stresses and the policy demand (never a silicon Schottky beyond its class);
  * the best few are then re-solved with their own forward model, because a part with another
- * forward drop sees other currents and another junction temperature. The fix edits each device's
+ * forward drop sees other currents and another junction temperature; a re-solved part must pass
+ * every stress check (ratings/stress-checks.ts) in every place of the group. The fix edits each device's
  * model reference and, when the file has no `.model` of that name, adds one with the part's
  * forward model; a thermal resistance the old model's ratings gave is carried over in a `rate`
  * line, since RθJA belongs to the mounting as much as to the part.
@@ -12,14 +13,13 @@
 import type { Fix, TextEdit } from '../../analysis/findings';
 import type { RectifierAnalysis } from '../../analysis/rectifier-analysis';
 import {
-  checkDiodeRequirement, diodePartsFromFiles, diodeRequirementFromStress, DIODE_CATALOG, junctionLimitC, selectPassingPart,
-  type DeratingPolicy, type DiodePart, type DiodeRatings,
+  diodePartsFromFiles, diodeRequirementFromStress, DIODE_CATALOG, passesEveryStress, selectPassingPart,
+  type DeratingPolicy, type DiodePart,
 } from '../../ratings/index';
-import { solveRectifier, type EquivalentCircuit, type RectifierSolution } from '../../solve/index';
+import { deviceFiguresOf, solveRectifier, type EquivalentCircuit } from '../../solve/index';
 import type { SolveFn } from '../../analysis/solver-memo';
 import type { RuleInput } from '../registry';
-import { fmt, policyOf } from '../rule-context';
-import { surgeCapability, surgeFigureA, surgeStressOf } from '../surge-stress';
+import { fmt } from '../rule-context';
 import { cardAt, insertLinesAfter, insertLinesBefore } from './text-edits';
 
 /** How many ranked candidates are re-solved before giving up. */
@@ -45,7 +45,7 @@ export function groupOf(analysis: RectifierAnalysis, index: number): number[] {
 }
 
 function buildFix(input: RuleInput, analysis: RectifierAnalysis, group: readonly number[]): Fix | undefined {
-  const policy = policyOf(input);
+  const policy = input.policy;
   const current = analysis.devices[group[0]!]!.model?.name.toLowerCase();
   let candidates = [...DIODE_CATALOG, ...diodePartsFromFiles(input.partsFiles ?? [])].filter((p) => p.name.toLowerCase() !== current);
   const requirement = diodeRequirementFromStress(groupStress(analysis, group), policy);
@@ -60,10 +60,10 @@ function buildFix(input: RuleInput, analysis: RectifierAnalysis, group: readonly
 
 function groupStress(analysis: RectifierAnalysis, group: readonly number[]) {
   const worst = (get: (k: number) => number | undefined) => Math.max(0, ...group.map(get).filter((v): v is number => v !== undefined));
-  const pivV = worst((k) => analysis.solution.devices[k]?.pivV?.value);
-  const iavgA = worst((k) => analysis.solution.devices[k]?.iavgA?.value);
-  const surges = group.map((k) => surgeStressOf(analysis, k)).filter((s) => s !== undefined);
-  const surge = surges.length ? { peakA: Math.max(...surges.map(surgeFigureA)), durationS: surges[0]!.durationS } : undefined;
+  const pivV = worst((k) => analysis.devices[k]!.figures.worst?.pivV?.value);
+  const iavgA = worst((k) => analysis.devices[k]!.figures.worst?.iavgA?.value);
+  const surges = group.map((k) => analysis.devices[k]!.figures.surge).filter((s) => s !== undefined);
+  const surge = surges.length ? { peakA: Math.max(...surges.map((s) => s.figureA)), durationS: surges[0]!.durationS } : undefined;
   return surge ? { pivV, iavgA, surge } : { pivV, iavgA };
 }
 
@@ -73,8 +73,7 @@ export function passesAfterSwap(
 ): boolean {
   const circuit = swappedCircuit(analysis.circuit, group, part);
   const solution = solve(circuit, analysis.corners, { waveformPoints: 0 });
-  const trial: RectifierAnalysis = { ...analysis, circuit, solution };
-  return group.every((k) => devicePasses(trial, solution, k, part.ratings, policy));
+  return group.every((k) => passesEveryStress(deviceFiguresOf(circuit, solution, k), part.ratings, policy));
 }
 
 function swappedCircuit(circuit: EquivalentCircuit, group: readonly number[], part: DiodePart): EquivalentCircuit {
@@ -83,17 +82,6 @@ function swappedCircuit(circuit: EquivalentCircuit, group: readonly number[], pa
   const params = { isA: fm.isA, n: fm.n, rsOhm: fm.rsOhm, egEv: fm.egEv, xti: fm.xti, tnomC: fm.tnomC };
   const devices = circuit.devices.map((d, k) => (group.includes(k) && d.kind === 'diode' ? { ...d, params } : d));
   return { ...circuit, devices };
-}
-
-function devicePasses(trial: RectifierAnalysis, solution: RectifierSolution, k: number, r: DiodeRatings, policy: DeratingPolicy): boolean {
-  const w = solution.devices[k];
-  if (!w || w.thermalRunaway) return false;
-  if (checkDiodeRequirement({ name: 'trial', ratings: r }, diodeRequirementFromStress({ pivV: w.pivV?.value ?? 0, iavgA: w.iavgA?.value }, policy)).length) return false;
-  const surge = surgeStressOf(trial, k);
-  const capability = surge && surgeCapability(r, surge.durationS);
-  if (surge && (!capability || surgeFigureA(surge) > policy.ifsm.value * capability.equivalentA)) return false;
-  const rthja = trial.circuit.devices[k]?.rthjaKPerW;
-  return rthja === undefined || w.tjC === undefined || w.tjC.value <= junctionLimitC(policy.tj.value, r.tjmaxC?.value);
 }
 
 function toFix(input: RuleInput, analysis: RectifierAnalysis, group: readonly number[], part: DiodePart): Fix | undefined {

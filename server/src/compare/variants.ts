@@ -2,9 +2,14 @@
  * The four constructions of a single-phase bridge that the topology comparison puts side by
  * side, each built from the same equivalent circuit (same source, filter, load and corners):
  * silicon diodes, Schottky diodes, hybrid (two diodes plus two self-driven MOSFETs) and
- * synchronous (four MOSFETs gated by a controller). Only the devices change.
+ * synchronous (four MOSFETs gated by a controller). Only the devices change. Catalog parts are
+ * picked by the stress checks under the file's own policy (ratings/stress-checks.ts).
  */
-import { DEFAULT_DERATING, DIODE_CATALOG, SCHOTTKY_MAX_VRRM_V, type CatalogDiode, type CatalogSeriesId } from '../ratings/index';
+import { displayNumber as trim } from '../../../grammar/src/index';
+import {
+  DIODE_CATALOG, SCHOTTKY_MAX_VRRM_V, stressVerdict,
+  type CatalogDiode, type CatalogSeriesId, type DeratingPolicy, type StressInputs, type StressKind,
+} from '../ratings/index';
 import {
   DEFAULT_CONTROLLER_VMIN_V, DEFAULT_RDSON_TEMP_EXPONENT, SPICE_DIODE_DEFAULTS,
   type DeviceRole, type DiodeDevice, type DiodeParams, type EquivalentCircuit, type MosfetDevice, type RectifierDevice, type RectifierKind,
@@ -12,9 +17,11 @@ import {
 
 export type VariantId = 'silicon' | 'schottky' | 'hybrid' | 'synchronous';
 
-/** What the variants are built from: the file's circuit and its worst stresses. */
+/** What the variants are built from: the file's circuit, its policy and its worst stresses. */
 export interface VariantBasis {
   circuit: EquivalentCircuit;
+  /** The file's derating policy: the catalog parts must pass its stress checks. */
+  policy: DeratingPolicy;
   /** Worst reverse voltage over devices and corners. */
   pivV: number;
   /** Worst per-device average current over devices and corners. */
@@ -83,7 +90,7 @@ export function planVariants(basis: VariantBasis): VariantPlan[] {
 function planSchottky(basis: VariantBasis, series: SeriesChoice, rthKPerW: number, common: string[]): VariantPlan {
   const plan: VariantPlan = { id: 'schottky', label: 'Schottky bridge', construction: `4 × ${series.label}`, assumptions: [...common, series.why] };
   if (basis.pivV > SCHOTTKY_MAX_VRRM_V) {
-    plan.notApplicable = `reverse voltage ${Math.round(basis.pivV)} V is beyond the silicon Schottky class (up to ${SCHOTTKY_MAX_VRRM_V} V, common practice)`;
+    plan.notApplicable = `reverse voltage ${trim(basis.pivV)} V is beyond the silicon Schottky class (up to ${SCHOTTKY_MAX_VRRM_V} V, common practice)`;
     return plan;
   }
   plan.circuit = withDevices(basis.circuit, 'diode-bridge', () => diode(series.entry, rthKPerW));
@@ -96,7 +103,7 @@ function planSynchronous(basis: VariantBasis, rthKPerW: number, rdson: { ohm: nu
   const assumptions = [...common, ...rdson.assumptions];
   if (basis.controllerVminV === undefined) assumptions.push(`controller minimum operating voltage ${vmin} V (common practice); below it only the body diodes conduct`);
   const crestV = basis.circuit.source.vrms * Math.SQRT2;
-  if (crestV < vmin) assumptions.push(`the source crest (${crestV.toFixed(1)} V nominal) stays below the controller's ${vmin} V: the channels never turn on`);
+  if (crestV < vmin) assumptions.push(`the source crest (${trim(crestV)} V nominal) stays below the controller's ${trim(vmin)} V: the channels never turn on`);
   const circuit = withDevices(basis.circuit, 'active-bridge', () => mosfet(rdson.ohm, 'controller', rthKPerW));
   circuit.controllerVminV = vmin;
   return {
@@ -112,21 +119,22 @@ interface SeriesChoice {
 }
 
 /**
- * The 1 A or the 3 A series of the catalog: the 1 A one when the worst average current stays
- * within the default current derating of 1 A, else the 3 A one. Within the series, the lowest
- * VRRM step that keeps the worst reverse voltage within the default reverse derating.
+ * The 1 A or the 3 A series of the catalog: the 1 A one when its current rating passes the
+ * average-current check at the worst average current under the file's policy, else the 3 A one.
+ * Within the series, the lowest VRRM step that passes the reverse-voltage check, else the top.
  */
 function pickSeries(basis: VariantBasis, technology: 'silicon' | 'schottky'): SeriesChoice {
-  const ifFraction = DEFAULT_DERATING.if.value;
-  const small = basis.iavgA <= ifFraction * 1;
-  const id: CatalogSeriesId = technology === 'silicon' ? (small ? '1n4001' : '1n5400') : small ? '1n5817' : '1n5820';
-  const ladder = DIODE_CATALOG.filter((d) => d.series === id);
-  const neededV = basis.pivV / DEFAULT_DERATING.vr.value;
-  const entry = ladder.find((d) => (d.ratings.vrrmV?.value ?? 0) >= neededV) ?? ladder[ladder.length - 1]!;
-  const amps = small ? 1 : 3;
+  const [smallId, largeId]: CatalogSeriesId[] = technology === 'silicon' ? ['1n4001', '1n5400'] : ['1n5817', '1n5820'];
+  const ladderOf = (id: CatalogSeriesId) => DIODE_CATALOG.filter((d) => d.series === id);
+  const stress: StressInputs = { worst: { pivV: { value: basis.pivV }, iavgA: { value: basis.iavgA } } };
+  const passes = (kind: StressKind) => (d: CatalogDiode) => stressVerdict(kind, stress, d.ratings, basis.policy)?.status === 'pass';
+  const small = passes('average-current')(ladderOf(smallId)[0]!);
+  const ladder = ladderOf(small ? smallId : largeId);
+  const entry = ladder.find(passes('reverse-voltage')) ?? ladder[ladder.length - 1]!;
+  const amps = entry.ratings.ifavA?.value ?? 0;
   const label = `${entry.name}-class ${technology === 'schottky' ? 'Schottky' : 'silicon'} (${amps} A)`;
-  const why = `${technology} variant: ${amps} A catalog series for a worst average current of ${basis.iavgA.toFixed(2)} A per device; forward law fitted to the catalog's generic class points`;
-  return { entry, label, why: basis.iavgA > 3 * ifFraction ? `${why}; the current exceeds the largest class in the catalog` : why };
+  const why = `${technology} variant: ${amps} A catalog series for a worst average current of ${trim(basis.iavgA)} A per device; forward law fitted to the catalog's generic class points`;
+  return { entry, label, why: !passes('average-current')(ladder[0]!) ? `${why}; the current exceeds the largest class in the catalog` : why };
 }
 
 function thermalResistance(circuit: EquivalentCircuit): { kPerW: number; assumptions: string[] } {
@@ -142,7 +150,7 @@ function onResistance(basis: VariantBasis): { ohm: number; assumptions: string[]
     return { ohm, assumptions: [`MOSFET on-resistance ${milliOhm(ohm)} at 25 °C from the file's MOSFETs`] };
   }
   const ohm = ASSUMED_RDSON_BY_VOLTAGE.find((c) => basis.pivV <= c.upToV)!.rdsOnOhm;
-  return { ohm, assumptions: [`no MOSFET in the file: ${milliOhm(ohm)} at 25 °C assumed for a part blocking ${Math.round(basis.pivV)} V (our own round figure)`] };
+  return { ohm, assumptions: [`no MOSFET in the file: ${milliOhm(ohm)} at 25 °C assumed for a part blocking ${trim(basis.pivV)} V (our own round figure)`] };
 }
 
 /** A copy of the circuit whose devices are rebuilt per bridge role, keeping the file's names. */
@@ -166,5 +174,5 @@ function mosfet(rdsOn25Ohm: number, gate: MosfetDevice['gate'], rthjaKPerW: numb
 }
 
 function milliOhm(ohm: number): string {
-  return `${Math.round(ohm * 1000)} mΩ`;
+  return `${trim(ohm * 1000)} mΩ`;
 }

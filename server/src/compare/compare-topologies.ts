@@ -2,13 +2,17 @@
  * The topology comparison (DESIGN.md §7): a single-phase bridge solved as drawn and as four
  * constructions of the same circuit (silicon, Schottky, hybrid, synchronous) at the file's own
  * corners, with the worst efficiency, rectifier loss, hottest junction, inrush peak and, when
- * the file states part costs, the cost of each. A pure function of one analysed rectifier.
+ * the file states part costs, the cost of each. A pure function of one analysed rectifier and its
+ * file's derating policy (which picks the variants' catalog parts); the variants are solved
+ * through the caller's solver, the memoised one in the analysis and the language server.
  */
 import type { DeviceAnalysis, RectifierAnalysis } from '../analysis/rectifier-analysis';
-import { solveRectifier, type RectifierSolution, type WorstValue } from '../solve/index';
-import { planVariants, type VariantId, type VariantPlan } from './comparison-variants';
+import type { SolveFn } from '../analysis/solver-memo';
+import type { DeratingPolicy } from '../ratings/index';
+import type { RectifierSolution, WorstValue } from '../solve/index';
+import { planVariants, type VariantId, type VariantPlan } from './variants';
 
-export type { VariantId } from './comparison-variants';
+export type { VariantId } from './variants';
 
 /** One row of the comparison. */
 export interface ComparisonRow {
@@ -44,17 +48,21 @@ export interface TopologyComparison {
 
 const BRIDGE_KINDS = new Set(['diode-bridge', 'active-bridge', 'hybrid-bridge']);
 
-/** Compares constructions of one rectifier; the variants are solved here (a few milliseconds each). */
-export function compareTopologies(analysis: RectifierAnalysis): TopologyComparison {
-  const { rectifier, solution, circuit } = analysis;
+/**
+ * Compares constructions of one rectifier under its file's policy (`FileAnalysis.policy`); the
+ * variants are solved with `solve` (a few milliseconds each, nothing when the cache holds them).
+ */
+export function compareTopologies(analysis: RectifierAnalysis, policy: DeratingPolicy, solve: SolveFn): TopologyComparison {
+  const { rectifier, solution, circuit, devices } = analysis;
   const base = { rectifierId: rectifier.id, kind: rectifier.kind };
   if (!BRIDGE_KINDS.has(rectifier.kind) || circuit.devices.length !== 4) {
     return { ...base, applicable: false, reason: 'the comparison covers single-phase four-device bridges only', rows: [], assumptions: [] };
   }
   const plans = planVariants({
     circuit,
-    pivV: maxWorst(solution, 'pivV'),
-    iavgA: maxWorst(solution, 'iavgA'),
+    policy,
+    pivV: maxWorst(devices, 'pivV'),
+    iavgA: maxWorst(devices, 'iavgA'),
     controllerVminV: circuit.controllerVminV ?? analysis.controller?.vminV?.value,
   });
   const costs = partCosts(analysis);
@@ -62,20 +70,20 @@ export function compareTopologies(analysis: RectifierAnalysis): TopologyComparis
     id: 'as-drawn', label: 'As drawn', construction: describeAsDrawn(analysis), applicable: true,
     ...figuresOf(solution), cost: costs.asDrawn, assumptions: asDrawnNotes(solution),
   };
-  const rows = [asDrawn, ...plans.map((plan) => solvePlan(plan, analysis, costs))];
+  const rows = [asDrawn, ...plans.map((plan) => solvePlan(plan, analysis, costs, solve))];
   const shared = plans.map((p) => p.assumptions).reduce((a, b) => a.filter((x) => b.includes(x)));
   for (const row of rows.slice(1)) row.assumptions = row.assumptions.filter((a) => !shared.includes(a));
   return { ...base, applicable: true, rows, assumptions: shared };
 }
 
-function solvePlan(plan: VariantPlan, analysis: RectifierAnalysis, costs: PartCosts): ComparisonRow {
+function solvePlan(plan: VariantPlan, analysis: RectifierAnalysis, costs: PartCosts, solve: SolveFn): ComparisonRow {
   const row: ComparisonRow = {
     id: plan.id, label: plan.label, construction: plan.construction, applicable: !plan.notApplicable && !!plan.circuit,
     thermalRunaway: false, assumptions: plan.assumptions,
   };
   if (plan.notApplicable || !plan.circuit) return { ...row, reason: plan.notApplicable ?? 'not built' };
   // Waveforms are not drawn for variants; leaving them out keeps the comparison quick.
-  const solved = solveRectifier(plan.circuit, analysis.corners, { waveformPoints: 0 });
+  const solved = solve(plan.circuit, analysis.corners, { waveformPoints: 0 });
   const cost = costs.variant(plan.id);
   return { ...row, ...figuresOf(solved), ...(cost !== undefined ? { cost } : {}) };
 }
@@ -95,8 +103,8 @@ function asDrawnNotes(solution: RectifierSolution): string[] {
   return solution.notes.some((n) => n.includes('no RθJA')) ? ['no RθJA in the file for some parts: their Tj is taken as ambient'] : [];
 }
 
-function maxWorst(solution: RectifierSolution, key: 'pivV' | 'iavgA'): number {
-  return Math.max(0, ...solution.devices.map((d) => d[key]?.value ?? 0));
+function maxWorst(devices: readonly DeviceAnalysis[], key: 'pivV' | 'iavgA'): number {
+  return Math.max(0, ...devices.map((d) => d.figures.worst?.[key]?.value ?? 0));
 }
 
 function describeAsDrawn(analysis: RectifierAnalysis): string {

@@ -1,0 +1,63 @@
+/**
+ * The editor's side of configuration: the initialize handshake (capabilities, trust, settings
+ * given up front), settings pushed or pulled afterwards, and the parts files they name. Every
+ * change of settings re-reads the parts files and re-analyses the open documents.
+ */
+import { CodeActionKind, TextDocumentSyncKind, type InitializeParams, type InitializeResult } from 'vscode-languageserver/node';
+import { DEFAULT_SETTINGS, validateSettings, type AnalysisSettings } from '../analysis/settings';
+import { publishPartsFiles, readPartsFiles } from './parts-files';
+import type { ServerState } from './server-state';
+
+const CAPABILITIES: InitializeResult['capabilities'] = {
+  textDocumentSync: TextDocumentSyncKind.Incremental,
+  hoverProvider: true,
+  inlayHintProvider: true,
+  codeLensProvider: { resolveProvider: false },
+  codeActionProvider: { codeActionKinds: [CodeActionKind.QuickFix] },
+  documentSymbolProvider: true,
+  definitionProvider: true,
+  referencesProvider: true,
+  renameProvider: { prepareProvider: true },
+  foldingRangeProvider: true,
+  completionProvider: { triggerCharacters: ['@', ' ', '='] },
+};
+
+export function registerConfiguration(state: ServerState): void {
+  const { connection } = state;
+  connection.onInitialize((params: InitializeParams): InitializeResult => {
+    const options = (params.initializationOptions ?? {}) as { trusted?: boolean; settings?: AnalysisSettings };
+    state.trust = { trusted: options.trusted !== false, folders: (params.workspaceFolders ?? []).map((f) => f.uri) };
+    if (options.settings) state.settings = { ...DEFAULT_SETTINGS, ...validateSettings(options.settings) };
+    state.pullConfiguration = Boolean(params.capabilities.workspace?.configuration);
+    state.refreshSupport = {
+      inlayHints: Boolean(params.capabilities.workspace?.inlayHint?.refreshSupport),
+      codeLenses: Boolean(params.capabilities.workspace?.codeLens?.refreshSupport),
+    };
+    return { capabilities: CAPABILITIES, serverInfo: { name: 'rectilens' } };
+  });
+  connection.onInitialized(() => void refreshConfiguration(state));
+  connection.onDidChangeConfiguration((change) => {
+    const pushed = (change.settings as { rectilens?: AnalysisSettings } | undefined)?.rectilens;
+    if (pushed) applySettings(state, pushed);
+    else void refreshConfiguration(state);
+  });
+}
+
+async function refreshConfiguration(state: ServerState): Promise<void> {
+  if (!state.pullConfiguration) return;
+  try {
+    const pulled = (await state.connection.workspace.getConfiguration('rectilens')) as AnalysisSettings | null;
+    if (pulled) applySettings(state, pulled);
+  } catch (error) {
+    state.connection.console.error(`rectilens: could not read settings: ${String(error)}`);
+  }
+}
+
+function applySettings(state: ServerState, next: AnalysisSettings & { partsFiles?: unknown }): void {
+  const { partsFiles: paths, ...rest } = validateSettings(next);
+  state.settings = { ...DEFAULT_SETTINGS, ...rest };
+  const reading = readPartsFiles(Array.isArray(paths) ? paths.filter((p): p is string => typeof p === 'string') : [], state.trust, state.readText);
+  state.partsFiles = reading.files;
+  state.partsFilesWithFindings = publishPartsFiles(state.connection, reading, state.partsFilesWithFindings);
+  state.scheduler.schedule(state.documents.all().map((d) => d.uri));
+}

@@ -1,0 +1,61 @@
+/** Outline, folding, definition, references, rename and completion: the features that read the netlist's names. */
+import { CompletionItemKind, ErrorCodes, ResponseError } from 'vscode-languageserver/node';
+import { completeAt, modelsOf } from '../features/completion';
+import { findDefinition, findReferences, prepareRename, rename } from '../features/navigation';
+import { foldingRangesOf, outlineOf } from '../features/outline';
+import { toDocumentSymbol, toFoldingRange, toRange, toWorkspaceEdit } from './convert';
+import type { Guard } from './request-guard';
+import type { ServerState } from './server-state';
+
+const COMPLETION_KIND = {
+  keyword: CompletionItemKind.Keyword, property: CompletionItemKind.Property, model: CompletionItemKind.Class,
+  subckt: CompletionItemKind.Module, node: CompletionItemKind.Variable, code: CompletionItemKind.EnumMember,
+} as const;
+
+export function registerNavigationFeatures(state: ServerState, guard: Guard): void {
+  const { connection } = state;
+  const locationOf = (uri: string, span: { start: number; end: number }) => {
+    const lines = state.linesOf(uri);
+    return lines ? [{ uri, range: toRange(lines, span) }] : [];
+  };
+
+  connection.onDocumentSymbol(guard([], (params) => {
+    const place = state.placeIn(params.textDocument.uri);
+    return place ? outlineOf(place.file.netlist).map((s) => toDocumentSymbol(place.lines, s)) : [];
+  }));
+  connection.onFoldingRanges(guard([], (params) => {
+    const place = state.placeIn(params.textDocument.uri);
+    if (!place) return [];
+    return foldingRangesOf(place.file.netlist).map((f) => toFoldingRange(place.lines, f)).filter((f) => f.endLine > f.startLine);
+  }));
+  connection.onDefinition(guard([], (params) => {
+    const place = state.placeIn(params.textDocument.uri, params.position);
+    return place ? findDefinition(state.fileSet(place.file.uri), place.offset).flatMap((l) => locationOf(l.uri, l.span)) : [];
+  }));
+  connection.onReferences(guard([], (params) => {
+    const place = state.placeIn(params.textDocument.uri, params.position);
+    if (!place) return [];
+    return findReferences(state.fileSet(place.file.uri), place.offset, params.context.includeDeclaration).flatMap((l) => locationOf(l.uri, l.span));
+  }));
+  connection.onPrepareRename(guard(null, (params) => {
+    const place = state.placeIn(params.textDocument.uri, params.position);
+    const span = place && prepareRename(state.fileSet(place.file.uri), place.offset);
+    return span ? toRange(place.lines, span) : null;
+  }));
+  connection.onRenameRequest(guard(null, (params) => {
+    const place = state.placeIn(params.textDocument.uri, params.position);
+    if (!place) return null;
+    const edits = rename(state.fileSet(place.file.uri), place.offset, params.newName);
+    return 'error' in edits ? new ResponseError(ErrorCodes.InvalidRequest, edits.error) : toWorkspaceEdit(edits, state.linesOf);
+  }));
+  connection.onCompletion(guard([], (params) => {
+    const current = state.currentParse(params.textDocument.uri);
+    if (!current) return [];
+    // Models defined in included files come from the last analysis; everything else from the text as it is now.
+    const included = state.fileSet(params.textDocument.uri).flatMap((f) => [...f.parsed].filter(([uri]) => uri !== f.uri).map(([, n]) => n));
+    const models = [current.netlist, ...included].flatMap(modelsOf);
+    return completeAt(current.netlist, current.document.offsetAt(params.position), models).map((item) => ({
+      label: item.label, kind: COMPLETION_KIND[item.kind], detail: item.detail, insertText: item.insertText,
+    }));
+  }));
+}

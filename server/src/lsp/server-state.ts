@@ -1,0 +1,132 @@
+/**
+ * Everything the language server holds, in one object: the open documents, the settings and trust
+ * the editor gave, the parts files, the analysis worker and scheduler, and the lookups every
+ * handler shares. Handlers read it; only the configuration handlers change its settings.
+ */
+import { join } from 'node:path';
+import { TextDocuments, type Connection } from 'vscode-languageserver/node';
+import { TextDocument } from 'vscode-languageserver-textdocument';
+import { parseNetlist, type Netlist } from '../../../grammar/src/index';
+import type { FileAnalysis } from '../analysis/analyze';
+import { LineIndex, lineIndexOf } from '../analysis/line-index';
+import { DEFAULT_SETTINGS, type AnalysisSettings } from '../analysis/settings';
+import type { FileText } from '../circuit/index';
+import type { FileSet } from '../features/navigation';
+import { BUSY_NOTIFICATION, type BusyParams } from '../protocol/custom-protocol';
+import type { PartsFile } from '../ratings/index';
+import { AnalysisScheduler } from './analysis-scheduler';
+import { AnalysisWorkerHost, DEFAULT_WORKER_HEAP_MB, type AnalysisStop } from './analysis-worker-host';
+import { toDiagnostic } from './convert';
+import { stoppedFinding } from './stopped-finding';
+import type { TrustPolicy } from './trust';
+import { createWorkspaceReader } from './workspace-reader';
+
+/** A file's analysis and a position in it as an offset, for handlers that answer about a place. */
+export interface PlaceInFile {
+  file: FileAnalysis;
+  lines: LineIndex;
+  offset: number;
+}
+
+/** How long a request just after an edit waits for that edit's analysis before answering from the last one. */
+export const FRESHNESS_WAIT_MS = 2_000;
+
+export class ServerState {
+  readonly documents = new TextDocuments(TextDocument);
+  settings: AnalysisSettings = DEFAULT_SETTINGS;
+  trust: TrustPolicy = { trusted: true, folders: [] };
+  /** Whether the editor answers `workspace/configuration`. */
+  pullConfiguration = false;
+  /** Whether the editor can be asked to re-request its inlay hints and code lenses. */
+  refreshSupport = { inlayHints: false, codeLenses: false };
+  partsFiles: PartsFile[] = [];
+  /** Parts files with diagnostics published, so that fixed ones are cleared. */
+  partsFilesWithFindings: ReadonlySet<string> = new Set();
+  readonly readText: (uri: string) => FileText;
+  readonly worker: AnalysisWorkerHost;
+  readonly scheduler: AnalysisScheduler;
+
+  constructor(readonly connection: Connection, env: NodeJS.ProcessEnv = process.env) {
+    this.readText = createWorkspaceReader({ openText: (uri) => this.documents.get(uri)?.getText(), trust: () => this.trust });
+    this.worker = new AnalysisWorkerHost({
+      script: join(__dirname, 'analysis-worker.js'),
+      setup: () => ({ trust: this.trust }),
+      heapMb: positiveNumber(env.RECTILENS_WORKER_HEAP_MB) ?? DEFAULT_WORKER_HEAP_MB,
+      log: (message) => connection.console.error(message),
+    });
+    this.scheduler = new AnalysisScheduler(this.worker, {
+      openDocuments: () => this.documents.all().map((d) => ({ uri: d.uri, version: d.version, text: d.getText() })),
+      settings: () => this.settings,
+      partsFiles: () => this.partsFiles,
+      onAnalysed: (file, version) => this.publish(file, version),
+      onStopped: (uri, version, stop) => this.publishStopped(uri, version, stop),
+      onBusy: (busy, pending) => void connection.sendNotification(BUSY_NOTIFICATION, { busy, pending } satisfies BusyParams),
+    }, 10, positiveNumber(env.RECTILENS_EDITOR_PATIENCE_MS));
+  }
+
+  /** The line index of a file: its analysis's, else its text's (an include not open). */
+  readonly linesOf = (uri: string): LineIndex | undefined => {
+    const analysed = this.scheduler.get(uri);
+    if (analysed) return lineIndexOf(analysed);
+    const text = this.readText(uri);
+    return typeof text === 'string' ? new LineIndex(text) : undefined;
+  };
+
+  /** The analysis of a root and of the files it includes, root first. */
+  fileSet(uri: string): FileSet {
+    const root = this.scheduler.get(uri);
+    return root ? [root] : [];
+  }
+
+  /** A file's last analysis with its line index, and the offset of a position in it (0 without one). */
+  placeIn(uri: string, position?: { line: number; character: number }): PlaceInFile | undefined {
+    const file = this.scheduler.get(uri);
+    if (!file) return undefined;
+    const lines = lineIndexOf(file);
+    return { file, lines, offset: position ? lines.offsetAt(position) : 0 };
+  }
+
+  /**
+   * `placeIn` once the document's analysis has caught up with the version the editor has (or the
+   * wait is over), so that hints, lenses, hovers and fixes describe the text as it is.
+   */
+  async freshPlaceIn(uri: string, position?: { line: number; character: number }): Promise<PlaceInFile | undefined> {
+    const document = this.documents.get(uri);
+    if (document) await this.scheduler.whenAnalysed(uri, document.version, FRESHNESS_WAIT_MS);
+    return this.placeIn(uri, position);
+  }
+
+  /**
+   * The parse of a document's text as the editor has it now: the analysis's own when it was made
+   * from this version, else a fresh parse (re-using the old one's unchanged cards). Completion
+   * answers from this, so text and tree always belong to one version.
+   */
+  currentParse(uri: string): { netlist: Netlist; document: TextDocument } | undefined {
+    const document = this.documents.get(uri);
+    const file = this.scheduler.get(uri);
+    if (!document) return undefined;
+    if (file && this.scheduler.versionOf(uri) === document.version) return { netlist: file.netlist, document };
+    return { netlist: parseNetlist(document.getText(), { previous: file?.netlist }), document };
+  }
+
+  private publish(file: FileAnalysis, version: number | undefined): void {
+    const lines = lineIndexOf(file);
+    const diagnostics = file.findings.filter((f) => f.uri === file.uri).map((f) => toDiagnostic(lines, f, this.linesOf));
+    void this.connection.sendDiagnostics({ uri: file.uri, version, diagnostics });
+    // An editor that asked for hints or lenses before this analysis asks again.
+    if (this.refreshSupport.inlayHints) void this.connection.languages.inlayHint.refresh().catch(() => undefined);
+    if (this.refreshSupport.codeLenses) void this.connection.sendRequest('workspace/codeLens/refresh').catch(() => undefined);
+  }
+
+  private publishStopped(uri: string, version: number | undefined, stop: AnalysisStop): void {
+    const text = this.documents.get(uri)?.getText() ?? '';
+    this.connection.console.error(`rectilens: ${uri} was not analysed: ${stop.reason}`);
+    const diagnostic = toDiagnostic(new LineIndex(text), stoppedFinding(uri, text, stop), this.linesOf);
+    void this.connection.sendDiagnostics({ uri, version, diagnostics: [diagnostic] });
+  }
+}
+
+function positiveNumber(text: string | undefined): number | undefined {
+  const value = Number(text);
+  return text && Number.isFinite(value) && value > 0 ? value : undefined;
+}

@@ -1,0 +1,40 @@
+/**
+ * Everything the VS Code client and the language server must spell alike: Rectilens' own requests
+ * and notifications, and the command ids the server's code lenses name and the client registers.
+ * Declared once here, imported by both sides (and by the manifest test); plain constants and types.
+ */
+
+/** Commands the extension contributes (package.json `contributes.commands`). */
+export const COMMANDS = {
+  showWaveforms: 'rectilens.showWaveforms',
+  compareTopologies: 'rectilens.compareTopologies',
+} as const;
+
+/** `rectilens/view`: a rectifier's waveform or comparison view, rendered by the server. */
+export const VIEW_REQUEST = 'rectilens/view';
+
+export type ViewKind = 'waveforms' | 'comparison';
+
+export interface ViewRequest {
+  kind: ViewKind;
+  uri: string;
+  rectifierId?: string;
+}
+
+/** A view's title (for the panel tab) and its body (an HTML fragment with inline SVG, no scripts). */
+export interface ViewContent {
+  title: string;
+  body: string;
+}
+
+/** `rectilens/busy`: sent when a batch of analyses starts and ends. */
+export const BUSY_NOTIFICATION = 'rectilens/busy';
+
+export interface BusyParams {
+  busy: boolean;
+  /** Files still queued. */
+  pending: number;
+}
+
+/** `rectilens/documentText`: the server's copy of an open document (a test and diagnostic aid). */
+export const DOCUMENT_TEXT_REQUEST = 'rectilens/documentText';
