@@ -11,6 +11,7 @@ import { parentPort, workerData } from 'node:worker_threads';
 import { analyze, type FileAnalysis } from '../analysis/analyze';
 import type { Finding } from '../analysis/findings';
 import type { SolutionCache } from '../analysis/rectifier-analysis';
+import { memoisedSolver } from '../analysis/solver-memo';
 import type { PostedAnswer, PostedRequest, WorkerAnswer, WorkerRequest, WorkerSetup } from './analysis-messages';
 import { renderView } from './views';
 import { createWorkspaceReader } from './workspace-reader';
@@ -55,7 +56,7 @@ function handle(request: WorkerRequest): WorkerAnswer {
       return { kind: 'fixes', fixes: request.findings.map((index) => file?.findings[index]?.fixes ?? []) };
     }
     case 'view':
-      return { kind: 'view', view: renderView(keptAnalysis(request.uri, request.sequence), request.request) };
+      return { kind: 'view', view: renderView(keptAnalysis(request.uri, request.sequence), request.request, memoisedSolver(solutionCache)) };
     case 'forget':
       kept.delete(request.uri);
       return { kind: 'forgotten' };
