@@ -8,3 +8,4 @@ export { parseDirective } from './directives';
 export { boundMessage, clipText, displayNumber, displayPercent, escapeControlChars, NO_NUMBER, QUOTE_MAX_CHARS } from './display';
 export { detectForeignEncoding, type ForeignEncoding } from './encoding';
 export { resolveParams, evaluateValue, type ParamDefinition, type Lookup, type ResolvedParams } from './params';
+export { LineIndex, lineIndexOf, type Position } from './line-index';

@@ -6,7 +6,7 @@ import { readFileSync } from 'node:fs';
 import { basename } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import type { FileAnalysis } from '../../server/src/analysis/analyze';
-import { LineIndex } from '../../server/src/analysis/line-index';
+import { LineIndex } from '../../grammar/src/index';
 import { analyseExample, examplePaths } from '../report/fixtures';
 
 interface Expectation {

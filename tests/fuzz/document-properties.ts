@@ -5,16 +5,16 @@
  * same text is analysed again. A violated property throws with the detail, so fast-check can shrink.
  */
 import { analyze, type FileAnalysis } from '../../server/src/analysis/analyze';
-import { codeLensesOf } from '../../server/src/features/code-lens';
-import { completeAt, modelsOf } from '../../server/src/features/completion';
-import { hoverAt } from '../../server/src/features/hover';
-import { inlayHintsOf } from '../../server/src/features/inlay-hints';
-import { findDefinition, findReferences, prepareRename, rename } from '../../server/src/features/navigation';
-import { foldingRangesOf, outlineOf, type OutlineSymbol } from '../../server/src/features/outline';
-import { devicesAtCard } from '../../server/src/features/rectifier-lookup';
-import { renderAnnotatedText } from '../../server/src/features/report-text-annotated';
-import { stressHover } from '../../server/src/features/stress-hover';
-import { renderComparisonView, renderWaveformView } from '../../server/src/features/view-content';
+import { codeLensesOf } from '../../server/src/editor/code-lens';
+import { completeAt, modelsOf } from '../../server/src/editor/completion';
+import { hoverAt } from '../../server/src/editor/hover';
+import { inlayHintsOf } from '../../server/src/editor/inlay-hints';
+import { findDefinition, findReferences, prepareRename, rename } from '../../server/src/editor/navigation';
+import { foldingRangesOf, outlineOf, type OutlineSymbol } from '../../server/src/editor/outline';
+import { devicesAtCard } from '../../server/src/editor/rectifier-lookup';
+import { renderAnnotatedText } from '../../server/src/report/report-text-annotated';
+import { stressHover } from '../../server/src/editor/stress-hover';
+import { renderComparisonView, renderWaveformView } from '../../server/src/report/view-content';
 import { toJsonReport } from '../../server/src/cli/report-json';
 import { unsafeHtmlParts } from '../security/html-safety';
 import { MAX_MS_PER_DOCUMENT } from './fuzz-config';

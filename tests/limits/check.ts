@@ -1,8 +1,8 @@
 /** Helpers for the limit and pathological-value suites: analyse inline netlists and read the results. */
 import { expect } from 'vitest';
 import { analyze, type AnalysisInput, type FileAnalysis } from '../../server/src/analysis/analyze';
-import { codeLensesOf } from '../../server/src/features/code-lens';
-import { inlayHintsOf } from '../../server/src/features/inlay-hints';
+import { codeLensesOf } from '../../server/src/editor/code-lens';
+import { inlayHintsOf } from '../../server/src/editor/inlay-hints';
 import { toJsonReport } from '../../server/src/cli/report-json';
 import { assertFiniteNumbers } from '../fuzz/document-properties';
 

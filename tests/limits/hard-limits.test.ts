@@ -7,7 +7,7 @@ import { describe, expect, it } from 'vitest';
 import { MAX_EXPRESSION_DEPTH } from '../../grammar/src/index';
 import { MAX_INCLUDE_DEPTH } from '../../server/src/circuit/index';
 import { DEFAULT_LIMITS } from '../../server/src/analysis/limits';
-import { solverPeriods } from '../../server/src/analysis/rectifier-analysis';
+import { solverPeriods } from '../../server/src/equivalent/index';
 import { analyseText, bridge, DIODE_MODEL, expectNoNonFinite, findingsOf, ROOT } from './check';
 
 const names = (file: ReturnType<typeof analyseText>) => file.flat.elements.map((e) => e.name);

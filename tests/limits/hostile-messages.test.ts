@@ -9,13 +9,13 @@ import { clipText, displayNumber, displayPercent, escapeControlChars } from '../
 import type { FileAnalysis } from '../../server/src/analysis/analyze';
 import { toJsonReport } from '../../server/src/cli/report-json';
 import { toTextReport } from '../../server/src/cli/report-text';
-import { codeLensesOf } from '../../server/src/features/code-lens';
-import { hoverAt } from '../../server/src/features/hover';
-import { inlayHintsOf } from '../../server/src/features/inlay-hints';
-import { escapeMarkdown, markdownCode } from '../../server/src/features/markup';
-import { devicesAtCard } from '../../server/src/features/rectifier-lookup';
-import { renderAnnotatedText } from '../../server/src/features/report-text-annotated';
-import { stressHover } from '../../server/src/features/stress-hover';
+import { codeLensesOf } from '../../server/src/editor/code-lens';
+import { hoverAt } from '../../server/src/editor/hover';
+import { inlayHintsOf } from '../../server/src/editor/inlay-hints';
+import { escapeMarkdown, markdownCode } from '../../server/src/presentation/markup';
+import { devicesAtCard } from '../../server/src/editor/rectifier-lookup';
+import { renderAnnotatedText } from '../../server/src/report/report-text-annotated';
+import { stressHover } from '../../server/src/editor/stress-hover';
 import { analyseText, bridge, DIODE_MODEL, ROOT } from './check';
 
 const ESC = '\u001b';

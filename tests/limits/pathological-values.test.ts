@@ -4,7 +4,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import { solverFindings } from '../../server/src/analysis/limits';
-import type { RectifierAnalysis } from '../../server/src/analysis/rectifier-analysis';
+import type { RectifierAnalysis } from '../../server/src/equivalent/index';
 import { dropNonFiniteFigures, NON_FINITE_NOTE } from '../../server/src/solve/finite-figures';
 import type { CornerSolution } from '../../server/src/solve/index';
 import { analyseText, bridge, DIODE_MODEL, expectNoNonFinite, findingsOf } from './check';

@@ -1,10 +1,10 @@
 /** Would-be bridges with one reversed device: an error naming it, and a fix that makes a bridge. */
 import { describe, expect, it } from 'vitest';
-import type { CoreTextEdit } from '../../server/src/circuit/index';
+import type { TextEdit } from '../../server/src/findings/index';
 import { build, PACKAGE, recognize, type Form } from './check';
 import { NEAR_MISSES } from './fixtures';
 
-function applyEdits(text: string, edits: readonly CoreTextEdit[]): string {
+function applyEdits(text: string, edits: readonly TextEdit[]): string {
   return [...edits].sort((a, b) => b.span.start - a.span.start).reduce((t, e) => t.slice(0, e.span.start) + e.newText + t.slice(e.span.end), text);
 }
 

@@ -1,7 +1,9 @@
 /** Every topology of DESIGN.md §4, flat and wrapped in a `.subckt` package. */
 import { describe, expect, it } from 'vitest';
 import { elaborate } from '../../server/src/circuit/index';
-import { recognizeRectifiers, toEquivalentCircuit } from '../../server/src/recognize/index';
+import { recognizeRectifiers } from '../../server/src/recognize/index';
+import { rateRectifier, toEquivalentCircuit } from '../../server/src/equivalent/index';
+import { createRatingResolver } from '../../server/src/ratings/index';
 import { parseNetlist } from '../../grammar/src/index';
 import { build, expected, PACKAGE, recognize, summarize, type Form } from './check';
 import { TOPOLOGIES } from './fixtures';
@@ -27,7 +29,8 @@ describe.each(TOPOLOGIES)('$name', (fixture) => {
     for (const cut of cuts) {
       const flat = elaborate('file:///t.cir', new Map([['file:///t.cir', parseNetlist(text.slice(0, cut))]]));
       const found = recognizeRectifiers(flat);
-      for (const r of found.rectifiers) toEquivalentCircuit(r, flat.models);
+      const resolve = createRatingResolver({ directives: flat.directives, partsFiles: [] });
+      for (const r of found.rectifiers) toEquivalentCircuit(r, flat.models, rateRectifier(r, flat, resolve).parts);
     }
   });
 });

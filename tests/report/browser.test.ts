@@ -6,8 +6,8 @@
 import { statSync } from 'node:fs';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { renderHtmlReport } from '../../server/src/features/report-html';
-import { renderComparisonView, renderWaveformView, type ViewContent } from '../../server/src/features/view-content';
+import { renderHtmlReport } from '../../server/src/report/report-html';
+import { renderComparisonView, renderWaveformView, type ViewContent } from '../../server/src/report/view-content';
 import { analyseExample } from './fixtures';
 import { launchOfflineBrowser, SHOT_DIR, type OfflineBrowser } from './offline-browser';
 

@@ -7,7 +7,7 @@ import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { analyze, type FileAnalysis } from '../../server/src/analysis/analyze';
-import { memoisedSolver, type SolutionCache, type SolveFn } from '../../server/src/analysis/solver-memo';
+import { memoisedSolver, type SolutionCache, type SolveFn } from '../../server/src/solve/index';
 import { compareTopologies } from '../../server/src/compare/index';
 import { EXAMPLES_DIR } from './fixtures';
 

@@ -3,11 +3,11 @@ import { basename } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { parseNetlist } from '../../grammar/src/index';
 import { analyze, type FileAnalysis } from '../../server/src/analysis/analyze';
-import { memoisedSolver } from '../../server/src/analysis/solver-memo';
+import { memoisedSolver } from '../../server/src/solve/index';
 import { compareTopologies as compareWith, type ComparisonRow } from '../../server/src/compare/index';
-import { escapeMarkup, niceTicks } from '../../server/src/features/markup';
-import { renderHtmlReport } from '../../server/src/features/report-html';
-import { renderComparisonView, renderWaveformView } from '../../server/src/features/view-content';
+import { escapeMarkup, niceTicks } from '../../server/src/presentation/markup';
+import { renderHtmlReport } from '../../server/src/report/report-html';
+import { renderComparisonView, renderWaveformView } from '../../server/src/report/view-content';
 import { analyseExample, examplePaths } from './fixtures';
 
 const seriesIn = (html: string) => [...html.matchAll(/data-series="([^"]+)"/g)].map((m) => m[1]!);

@@ -7,7 +7,7 @@
  */
 import { expect } from 'vitest';
 import { analyze, type FileAnalysis } from '../../server/src/analysis/analyze';
-import type { Finding, Fix } from '../../server/src/analysis/findings';
+import type { Finding, Fix } from '../../server/src/findings/index';
 import type { AnalysisSettings } from '../../server/src/analysis/settings';
 import type { PartsFile } from '../../server/src/ratings/index';
 import { applyEdits } from '../../server/src/rules/fixes/text-edits';

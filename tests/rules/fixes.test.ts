@@ -140,7 +140,7 @@ describe('reversed device (recognition) through the whole pipeline', () => {
 
 describe('fixes that need trial solves are computed when asked for', () => {
   it('does not run a fix trial until the finding\'s fixes are read, then keeps them', async () => {
-    const { withLazyFixes } = await import('../../server/src/analysis/findings');
+    const { withLazyFixes } = await import('../../server/src/findings/index');
     let computed = 0;
     const finding = withLazyFixes(
       { uri: 'file:///x.cir', span: { start: 0, end: 1 }, severity: 'warning', code: 'piv-margin', message: 'm' },

@@ -4,8 +4,8 @@
  */
 import { describe, expect, it } from 'vitest';
 import { contentSecurityPolicy, viewPage } from '../../client/src/view-page';
-import { renderComparisonView, renderWaveformView } from '../../server/src/features/view-content';
-import { renderHtmlReport } from '../../server/src/features/report-html';
+import { renderComparisonView, renderWaveformView } from '../../server/src/report/view-content';
+import { renderHtmlReport } from '../../server/src/report/report-html';
 import { analyseText, bridge, DIODE_MODEL } from '../limits/check';
 import { unsafeHtmlParts } from './html-safety';
 

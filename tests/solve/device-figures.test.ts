@@ -1,6 +1,6 @@
 /**
  * Each analysed device carries its own figures (solve/device-figures.ts, computed once in
- * analysis/rectifier-analysis.ts): its worst case, its figures at every corner, its surge and
+ * equivalent/rectifier-analysis.ts): its worst case, its figures at every corner, its surge and
  * the RθJA it was solved with — the same numbers as the solution, under the device's own name.
  */
 import { describe, expect, it } from 'vitest';

@@ -8,11 +8,10 @@ import { elaborate, isRefusal, type FileText, type FlatCircuit, type ReadRefusal
 import { resolvePolicy, type DeratingPolicy, type PartsFile } from '../ratings/index';
 import { recognizeRectifiers, type NearMiss } from '../recognize/index';
 import { applyRules } from '../rules/registry';
-import { filterAllowed } from '../rules/allow';
-import { boundMessages, compareFindings, type Finding } from './findings';
+import { allowance, boundMessages, compareFindings, withoutRepeats, type Finding } from '../findings/index';
 import { includedErrorFindings } from './included-errors';
-import { analyseRectifiers, type RectifierAnalysis } from './rectifier-analysis';
-import { memoisedSolver, type SolutionCache, type SolveFn } from './solver-memo';
+import { analyseRectifiers, type RectifierAnalysis } from '../equivalent/index';
+import { memoisedSolver, type SolutionCache, type SolveFn } from '../solve/index';
 import type { AnalysisSettings } from './settings';
 import { DEFAULT_LIMITS, parseWithinLimits, solverFindings, unsolvedFinding, type AnalysisLimits } from './limits';
 
@@ -108,10 +107,13 @@ function analyzeRoot(uri: string, input: AnalysisInput, cache: Map<string, Netli
   const ruleFindings = applyRules({
     rootUri: uri, netlist, flat, rectifiers: analyses, nearMisses: recognition.nearMisses, policy, partsFiles: input.partsFiles ?? [], parsed, solve,
   });
-  // `*@ allow` covers the findings of recognition and elaboration of the rectifiers too.
-  const accepted = filterAllowed([...recognition.diagnostics, ...assumptions, ...limitFindings], flat.directives, parsed);
-  const own = dedupe([...syntax, ...flat.diagnostics, ...accepted, ...ruleFindings]);
-  const included = filterAllowed(includedErrorFindings(uri, parsed, own), flat.directives, parsed);
+  // The one place `*@ allow` applies: to every judgement about the design (recognition, assumed
+  // defaults, limits, rules, errors behind an include). What is wrong with the text itself
+  // (syntax, elaboration) is not a judgement and no allowance hides it.
+  const allowed = allowance(flat.directives, parsed);
+  const judged = [...recognition.diagnostics, ...assumptions, ...limitFindings, ...ruleFindings].filter((f) => !allowed(f));
+  const own = withoutRepeats([...syntax, ...flat.diagnostics, ...judged]);
+  const included = includedErrorFindings(uri, parsed, own).filter((f) => !allowed(f));
   const findings = boundMessages([...own, ...included]).sort(compareFindings);
   return {
     uri, text: netlist.text, netlist, findings, dependencies: flat.dependencies.filter((d) => d !== uri), parsed, flat, policy,
@@ -123,15 +125,4 @@ function analyzeRoot(uri: string, input: AnalysisInput, cache: Map<string, Netli
 function withIterationLimit(solve: SolveFn, maxIterations: number | undefined): SolveFn {
   if (maxIterations === undefined) return solve;
   return (circuit, corners, options) => solve(circuit, corners, { ...options, steadyState: { ...options?.steadyState, maxIterations } });
-}
-
-/** The same finding reached twice (e.g. a shared include) is reported once. */
-function dedupe(findings: Finding[]): Finding[] {
-  const seen = new Set<string>();
-  return findings.filter((f) => {
-    const id = `${f.uri}|${f.span.start}|${f.span.end}|${f.code}|${f.message}`;
-    if (seen.has(id)) return false;
-    seen.add(id);
-    return true;
-  });
 }

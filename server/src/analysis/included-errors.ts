@@ -12,8 +12,8 @@
  */
 import { clipText, type Netlist, type Span } from '../../../grammar/src/index';
 import { listIncludeTargets } from '../circuit/index';
-import type { Finding } from './findings';
-import { LineIndex } from './line-index';
+import type { Finding } from '../findings/index';
+import { LineIndex } from '../../../grammar/src/index';
 
 export const INCLUDE_ERROR_CODE = 'include-error';
 

@@ -30,8 +30,8 @@ import type { Netlist, SyntaxDiagnostic } from '../../../grammar/src/index';
 import { DEFAULT_MAX_INCLUDED_CARDS } from '../circuit/index';
 import { DEFAULT_RECOGNITION_STEPS } from '../recognize/index';
 import { NON_FINITE_NOTE } from '../solve/index';
-import type { Finding } from './findings';
-import type { RectifierAnalysis } from './rectifier-analysis';
+import type { Finding } from '../findings/index';
+import type { RectifierAnalysis } from '../equivalent/index';
 
 export interface AnalysisLimits {
   /**

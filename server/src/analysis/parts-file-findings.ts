@@ -6,7 +6,7 @@
  */
 import { isRefusal, refusalCode, REFUSAL_SEVERITY, type FileText } from '../circuit/index';
 import { readPartsFileText, type PartsFile } from '../ratings/index';
-import type { Finding } from './findings';
+import type { Finding } from '../findings/index';
 
 /** The code of every finding about a parts file's content. */
 export const PARTS_FILE_CODE = 'parts-file';

@@ -6,7 +6,7 @@
  * input can exhaust the stack, the memory or the time.
  */
 import { key, type InstanceCard, type Item, type Lookup, type ModelCard, type Netlist } from '../../../grammar/src/index';
-import { DiagnosticSink } from './diagnostic-sink';
+import { FindingSet } from '../findings/index';
 import { buildElement, terminalsOf, type Frame } from './elements';
 import type { FileSource, FlatCircuit, FlatElement, FlatInstance, FlatModel, PlacedDirective } from './flat-circuit';
 import { ExpansionSizer, lookupDef, type Defs, type SubcktDef } from './expansion-size';
@@ -37,7 +37,7 @@ export function elaborate(rootUri: string, files: FileSource, options: Elaborate
 }
 
 class Elaborator {
-  private readonly sink = new DiagnosticSink();
+  private readonly sink = new FindingSet();
   private readonly expander: IncludeExpander;
   private readonly elements: FlatElement[] = [];
   private readonly instances: FlatInstance[] = [];
@@ -231,7 +231,7 @@ function paramsOf(items: readonly PlacedItem[]): PlacedParam[] {
   return items.flatMap(({ item, uri }) => (item.kind === 'param' ? item.params.map((param) => ({ param, uri })) : []));
 }
 
-function modelOf(card: ModelCard, uri: string, lookup: Lookup, sink: DiagnosticSink): FlatModel {
+function modelOf(card: ModelCard, uri: string, lookup: Lookup, sink: FindingSet): FlatModel {
   return {
     name: card.name!.text, type: card.type ? key(card.type) : '', uri, span: card.span,
     params: evaluateParams(card.params, lookup, uri, sink),

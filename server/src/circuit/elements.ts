@@ -3,7 +3,7 @@
  * nodes, evaluated values, origin.
  */
 import { key, type ElementCard, type Lookup, type Name, type SourceCard } from '../../../grammar/src/index';
-import type { DiagnosticSink } from './diagnostic-sink';
+import type { FindingSet } from '../findings/index';
 import { GROUND, isGroundName, type FlatElement, type InstanceStep, type Origin, type SineWave, type Terminal } from './flat-circuit';
 import { evaluateIn, evaluateParams } from './scope';
 
@@ -38,7 +38,7 @@ export function originOf(card: { span: Origin['span']; name: Name }, frame: Fram
 }
 
 /** Builds the flat element for a card other than an X instance. */
-export function buildElement(card: Exclude<ElementCard, { kind: 'instance' }>, frame: Frame, sink: DiagnosticSink): FlatElement {
+export function buildElement(card: Exclude<ElementCard, { kind: 'instance' }>, frame: Frame, sink: FindingSet): FlatElement {
   const base = {
     name: frame.namePrefix + card.name.text,
     key: frame.keyPrefix + key(card.name),
@@ -66,7 +66,7 @@ export function buildElement(card: Exclude<ElementCard, { kind: 'instance' }>, f
   }
 }
 
-function modelOf(model: Name | undefined, frame: Frame, sink: DiagnosticSink): string | undefined {
+function modelOf(model: Name | undefined, frame: Frame, sink: FindingSet): string | undefined {
   if (!model) return undefined;
   const found = frame.modelKey(key(model));
   if (found === undefined) {
@@ -75,7 +75,7 @@ function modelOf(model: Name | undefined, frame: Frame, sink: DiagnosticSink): s
   return found;
 }
 
-function sourceValues(card: SourceCard, frame: Frame, sink: DiagnosticSink) {
+function sourceValues(card: SourceCard, frame: Frame, sink: FindingSet) {
   const evaluate = (v: Parameters<typeof evaluateIn>[0]) => evaluateIn(v, frame.lookup, frame.uri, sink);
   const values = {
     kind: card.letter === 'V' ? ('vsource' as const) : ('isource' as const),

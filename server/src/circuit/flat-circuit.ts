@@ -3,42 +3,11 @@
  * canonical node names, evaluated values, and the origin of each card and terminal so that a
  * finding can point at the right text in the right file. Plain data.
  */
-import type { Directive, Netlist, Severity, Span } from '../../../grammar/src/index';
+import type { Directive, Netlist, Span } from '../../../grammar/src/index';
+import type { Finding, Place } from '../findings/index';
 import type { ReadRefusal } from './file-text';
 
-/** A place in a file: the URI (or path) as the adapter names it, and character offsets. */
-export interface Place {
-  uri: string;
-  span: Span;
-}
-
-/** A text edit a quick fix would apply. */
-export interface CoreTextEdit {
-  uri: string;
-  span: Span;
-  newText: string;
-}
-
-/** A quick fix: a title and the edits that carry it out. */
-export interface CoreFix {
-  title: string;
-  edits: CoreTextEdit[];
-  preferred?: boolean;
-}
-
-/**
- * A finding of the analysis core (shaped like the app's `Finding`, so it can be passed on as is).
- * Codes are stable lowercase phrases.
- */
-export interface CoreDiagnostic {
-  uri: string;
-  span: Span;
-  severity: Severity;
-  code: string;
-  message: string;
-  related?: (Place & { message: string })[];
-  fixes?: CoreFix[];
-}
+export type { Place } from '../findings/index';
 
 /** One `X` card on the way from the root file down to an element. */
 export interface InstanceStep {
@@ -177,7 +146,7 @@ export interface FlatCircuit {
   globalParams: ReadonlyMap<string, number>;
   /** Every file the root depends on (the root first), for re-analysis when one of them changes. */
   dependencies: string[];
-  diagnostics: CoreDiagnostic[];
+  diagnostics: Finding[];
 }
 
 /**

@@ -4,7 +4,7 @@
  * supplies parsed files, and `listIncludeTargets` / `collectDependencies` tell it what to load.
  */
 import { key, type IncludeCard, type Item, type LibCard, type Netlist } from '../../../grammar/src/index';
-import type { DiagnosticSink } from './diagnostic-sink';
+import type { FindingSet } from '../findings/index';
 import { isRefusal, refusalCode, REFUSAL_SEVERITY, type ReadRefusal } from './file-text';
 import type { FileSource } from './flat-circuit';
 
@@ -118,7 +118,7 @@ export class IncludeExpander {
   /** Cards taken from included files so far, counted before each is placed. */
   private spliced = 0;
 
-  constructor(private readonly files: FileSource, private readonly sink: DiagnosticSink, private readonly maxIncludedCards = DEFAULT_MAX_INCLUDED_CARDS) {}
+  constructor(private readonly files: FileSource, private readonly sink: FindingSet, private readonly maxIncludedCards = DEFAULT_MAX_INCLUDED_CARDS) {}
 
   /** Reads a file and remembers that the analysis depends on it. */
   read(uri: string): Netlist | undefined {

@@ -8,7 +8,7 @@ import {
   evaluateValue, foldExpr, key, resolveParams,
   type Expr, type Lookup, type Param, type ParamDefinition, type Span, type Value,
 } from '../../../grammar/src/index';
-import type { DiagnosticSink } from './diagnostic-sink';
+import type { FindingSet } from '../findings/index';
 
 /** A parameter definition with the file it is written in. */
 export interface PlacedParam {
@@ -25,7 +25,7 @@ export interface PlacedParam {
 const BAND = 2 ** 40;
 
 /** Resolves placed definitions against an outer lookup; diagnostics go to the sink in their own files. */
-export function resolvePlaced(placed: readonly PlacedParam[], outer: Lookup, sink: DiagnosticSink): Map<string, number> {
+export function resolvePlaced(placed: readonly PlacedParam[], outer: Lookup, sink: FindingSet): Map<string, number> {
   const uris: string[] = [];
   const defs: ParamDefinition[] = placed.map(({ param, uri }) => {
     let band = uris.indexOf(uri);
@@ -61,7 +61,7 @@ export function instanceScope(
   overrides: { params: readonly Param[]; uri: string; lookup: Lookup },
   body: readonly PlacedParam[],
   global: Lookup,
-  sink: DiagnosticSink,
+  sink: FindingSet,
 ): Lookup {
   const declared = new Set(header.params.map((p) => key(p.name)));
   const given = new Map<string, number>();
@@ -82,7 +82,7 @@ export function instanceScope(
 }
 
 /** Evaluates a value, reporting a failure in the file it is written in. */
-export function evaluateIn(value: Value | undefined, lookup: Lookup, uri: string, sink: DiagnosticSink): number | undefined {
+export function evaluateIn(value: Value | undefined, lookup: Lookup, uri: string, sink: FindingSet): number | undefined {
   if (!value) return undefined;
   const result = evaluateValue(value, lookup);
   if (result.diagnostic) sink.addSyntax(uri, result.diagnostic);
@@ -90,7 +90,7 @@ export function evaluateIn(value: Value | undefined, lookup: Lookup, uri: string
 }
 
 /** Evaluates `name=value` parameters of a card into a record (flags without a value are left out). */
-export function evaluateParams(params: readonly Param[], lookup: Lookup, uri: string, sink: DiagnosticSink): Record<string, number> {
+export function evaluateParams(params: readonly Param[], lookup: Lookup, uri: string, sink: FindingSet): Record<string, number> {
   const out: Record<string, number> = {};
   for (const p of params) {
     const v = evaluateIn(p.value, lookup, uri, sink);

@@ -1,7 +1,7 @@
 /** `rectilens check <files or folders…> [--format text|json] [--fail-on error|warning|never]`. */
 import { isAbsolute, relative as relativePath, sep } from 'node:path';
 import { analyze, type FileAnalysis, type Snapshot } from '../analysis/analyze';
-import { reaches } from '../analysis/findings';
+import { reaches } from '../findings/index';
 import { parseArgs, UsageError } from './args';
 import { cachedReader, collectNetlistFiles, unreadReason } from './netlist-files';
 import { toJsonReport } from './report-json';

@@ -1,10 +1,10 @@
 /** `rectilens compare <file> [--format text|json]`: the topology comparison of every bridge in a file. */
 import { escapeControlChars } from '../../../grammar/src/index';
-import { memoisedSolver } from '../analysis/solver-memo';
+import { memoisedSolver } from '../solve/index';
 import { compareTopologies, type ComparisonRow, type TopologyComparison } from '../compare/index';
-import { formatCelsius, formatFixed, formatPercent, formatSi } from '../features/format';
-import { rectifierLabel } from '../features/html-blocks';
-import { shortCornerName } from '../features/report-text-annotated';
+import { formatCelsius, formatFixed, formatPercent, formatSi } from '../presentation/format';
+import { rectifierLabel } from '../report/html-blocks';
+import { shortCornerName } from '../report/report-text-annotated';
 import { parseArgs } from './args';
 import type { CommandIo } from './command-io';
 import { analyseSingleNetlist } from './single-netlist';

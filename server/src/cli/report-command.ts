@@ -4,8 +4,8 @@ import type { CommandIo } from './command-io';
 import { describeError } from './netlist-files';
 import { analyseSingleNetlist } from './single-netlist';
 import { TOOL_VERSION } from './tool-version';
-import { renderHtmlReport } from '../features/report-html';
-import { renderAnnotatedText } from '../features/report-text-annotated';
+import { renderHtmlReport } from '../report/report-html';
+import { renderAnnotatedText } from '../report/report-text-annotated';
 
 export const REPORT_USAGE = 'rectilens report <file> [--html out.html]';
 

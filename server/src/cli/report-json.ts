@@ -1,7 +1,7 @@
 /** The JSON report of `check --format json` (DESIGN.md §8): stable names, SI units in the names, 1-based lines. */
 import type { FileAnalysis, Snapshot } from '../analysis/analyze';
-import { LineIndex } from '../analysis/line-index';
-import type { RectifierAnalysis } from '../analysis/rectifier-analysis';
+import { LineIndex } from '../../../grammar/src/index';
+import type { RectifierAnalysis } from '../equivalent/index';
 import type { DeviceSolution } from '../solve/index';
 
 export interface JsonDiagnostic {

@@ -6,8 +6,8 @@
  * file's derating policy (which picks the variants' catalog parts); the variants are solved
  * through the caller's solver, the memoised one in the analysis and the language server.
  */
-import type { DeviceAnalysis, RectifierAnalysis } from '../analysis/rectifier-analysis';
-import type { SolveFn } from '../analysis/solver-memo';
+import type { DeviceAnalysis, RectifierAnalysis } from '../equivalent/index';
+import type { SolveFn } from '../solve/index';
 import type { DeratingPolicy } from '../ratings/index';
 import type { RectifierSolution, WorstValue } from '../solve/index';
 import { planVariants, type VariantId, type VariantPlan } from './variants';

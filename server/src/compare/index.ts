@@ -1,7 +1,7 @@
 /**
  * The topology comparison: a single-phase bridge as drawn beside four constructions of the same
  * circuit, solved through the caller's (memoised) solver and picked under the file's own policy.
- * The renderers live with the other views (features/comparison-svg.ts, view-content.ts).
+ * The renderers live with the other views (report/comparison-svg.ts, view-content.ts).
  */
 export { compareTopologies, type ComparisonRow, type TopologyComparison, type VariantId } from './compare-topologies';
 export { ASSUMED_RDSON_BY_VOLTAGE, ASSUMED_RTHJA_K_PER_W, planVariants, type VariantBasis, type VariantPlan } from './variants';

@@ -10,6 +10,7 @@ import {
   DIODE_CATALOG, SCHOTTKY_MAX_VRRM_V, stressVerdict,
   type CatalogDiode, type CatalogSeriesId, type DeratingPolicy, type StressInputs, type StressKind,
 } from '../ratings/index';
+import { diodeParamsOfForwardModel } from '../equivalent/index';
 import {
   DEFAULT_CONTROLLER_VMIN_V, DEFAULT_RDSON_TEMP_EXPONENT, SPICE_DIODE_DEFAULTS,
   type DeviceRole, type DiodeDevice, type DiodeParams, type EquivalentCircuit, type MosfetDevice, type RectifierDevice, type RectifierKind,
@@ -165,7 +166,7 @@ function withDevices(circuit: EquivalentCircuit, kind: RectifierKind, make: (rol
 
 function diode(entry: CatalogDiode, rthjaKPerW: number): DeviceBody {
   const f = entry.forwardModel;
-  const params: DiodeParams = f ? { isA: f.isA, n: f.n, rsOhm: f.rsOhm, egEv: f.egEv, xti: f.xti, tnomC: f.tnomC } : { ...SPICE_DIODE_DEFAULTS };
+  const params: DiodeParams = f ? diodeParamsOfForwardModel(f) : { ...SPICE_DIODE_DEFAULTS };
   return { kind: 'diode', params, rthjaKPerW };
 }
 

@@ -5,7 +5,7 @@
  */
 import type { FileAnalysis } from '../analysis/analyze';
 import type { AnalysisSettings } from '../analysis/settings';
-import type { Fix } from '../analysis/findings';
+import type { Fix } from '../findings/index';
 import type { PartsFile } from '../ratings/index';
 import type { ViewContent, ViewRequest } from '../protocol/custom-protocol';
 import type { TrustPolicy } from './trust';

@@ -5,7 +5,7 @@
  * file while the next one runs.
  */
 import type { FileAnalysis } from '../analysis/analyze';
-import type { Fix } from '../analysis/findings';
+import type { Fix } from '../findings/index';
 import type { AnalysisSettings } from '../analysis/settings';
 import type { PartsFile } from '../ratings/index';
 import type { AnalysisStop, AnalysisWorkerHost } from './analysis-worker-host';

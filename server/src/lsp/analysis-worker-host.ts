@@ -6,7 +6,7 @@
  */
 import { Worker } from 'node:worker_threads';
 import type { FileAnalysis } from '../analysis/analyze';
-import type { Fix } from '../analysis/findings';
+import type { Fix } from '../findings/index';
 import type { AnalysisSettings } from '../analysis/settings';
 import type { PartsFile } from '../ratings/index';
 import type { DocumentUpdate, PostedAnswer, WorkerAnswer, WorkerRequest, WorkerSetup } from './analysis-messages';

@@ -9,9 +9,9 @@
  */
 import { parentPort, workerData } from 'node:worker_threads';
 import { analyze, type FileAnalysis } from '../analysis/analyze';
-import type { Finding } from '../analysis/findings';
-import type { SolutionCache } from '../analysis/rectifier-analysis';
-import { memoisedSolver } from '../analysis/solver-memo';
+import type { Finding } from '../findings/index';
+import type { SolutionCache } from '../solve/index';
+import { memoisedSolver } from '../solve/index';
 import type { PostedAnswer, PostedRequest, WorkerAnswer, WorkerRequest, WorkerSetup } from './analysis-messages';
 import { renderView } from './views';
 import { createWorkspaceReader } from './workspace-reader';

@@ -4,9 +4,9 @@ import {
   type WorkspaceEdit,
 } from 'vscode-languageserver/node';
 import type { Span } from '../../../grammar/src/index';
-import type { Finding, TextEdit as CoreEdit } from '../analysis/findings';
-import { LineIndex } from '../analysis/line-index';
-import type { FoldRange, OutlineSymbol } from '../features/outline';
+import type { Finding, TextEdit as CoreEdit } from '../findings/index';
+import { LineIndex } from '../../../grammar/src/index';
+import type { FoldRange, OutlineSymbol } from '../editor/outline';
 
 const SEVERITY: Readonly<Record<Finding['severity'], DiagnosticSeverity>> = {
   error: DiagnosticSeverity.Error,

@@ -1,9 +1,9 @@
 /** Hover, inlay hints, code lenses, quick fixes and the views: the features that show analysis results. */
 import { CodeActionKind, InlayHintKind, MarkupKind, type CodeAction, type CodeLens, type InlayHint } from 'vscode-languageserver/node';
-import { findingsInRange } from '../analysis/findings';
-import { codeLensesOf } from '../features/code-lens';
-import { inlayHintsIn } from '../features/inlay-hints';
-import { hoverInFile } from '../features/stress-hover';
+import { findingsInRange } from '../findings/index';
+import { codeLensesOf } from '../editor/code-lens';
+import { inlayHintsIn } from '../editor/inlay-hints';
+import { hoverInFile } from '../editor/stress-hover';
 import { VIEW_REQUEST, type ViewRequest } from '../protocol/custom-protocol';
 import { toRange, toWorkspaceEdit } from './convert';
 import type { Guard } from './request-guard';

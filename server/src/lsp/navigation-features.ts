@@ -1,8 +1,8 @@
 /** Outline, folding, definition, references, rename and completion: the features that read the netlist's names. */
 import { CompletionItemKind, ErrorCodes, ResponseError } from 'vscode-languageserver/node';
-import { completeAt, modelsOf } from '../features/completion';
-import { findDefinition, findReferences, prepareRename, rename } from '../features/navigation';
-import { foldingRangesOf, outlineOf } from '../features/outline';
+import { completeAt, modelsOf } from '../editor/completion';
+import { findDefinition, findReferences, prepareRename, rename } from '../editor/navigation';
+import { foldingRangesOf, outlineOf } from '../editor/outline';
 import { toDocumentSymbol, toFoldingRange, toRange, toWorkspaceEdit } from './convert';
 import type { Guard } from './request-guard';
 import type { ServerState } from './server-state';

@@ -7,7 +7,7 @@ import { isAbsolute, resolve } from 'node:path';
 import { fileURLToPath, pathToFileURL } from 'node:url';
 import type { Connection } from 'vscode-languageserver/node';
 import type { FileText } from '../circuit/index';
-import { LineIndex } from '../analysis/line-index';
+import { LineIndex } from '../../../grammar/src/index';
 import { partsFileFindings, type PartsFileResult } from '../analysis/parts-file-findings';
 import type { PartsFile } from '../ratings/index';
 import { toDiagnostic } from './convert';

@@ -1,5 +1,5 @@
 /** The finding shown for a file the editor could not analyse at all, so that it never looks clean. */
-import type { Finding } from '../analysis/findings';
+import type { Finding } from '../findings/index';
 import type { AnalysisStop } from './analysis-worker-host';
 
 export function stoppedFinding(uri: string, text: string, stop: AnalysisStop): Finding {

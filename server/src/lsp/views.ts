@@ -1,7 +1,7 @@
 /** The `rectilens/view` request: the waveform or comparison view of a rectifier, rendered by the core. */
 import type { FileAnalysis } from '../analysis/analyze';
-import type { SolveFn } from '../analysis/solver-memo';
-import { renderComparisonView, renderWaveformView } from '../features/view-content';
+import type { SolveFn } from '../solve/index';
+import { renderComparisonView, renderWaveformView } from '../report/view-content';
 import type { ViewContent, ViewRequest } from '../protocol/custom-protocol';
 
 export type { ViewRequest };

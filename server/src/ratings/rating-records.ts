@@ -3,7 +3,6 @@
  * came from and how far to trust it (a directive the user wrote, a parts-file entry, a catalog
  * entry with its source, or the `.model BV` fallback). SI units, temperatures in °C.
  */
-import type { DiodeParams } from '../solve/equivalent-circuit';
 import type { ForwardPoint, Span } from '../../../grammar/src/index';
 
 export type { ForwardPoint } from '../../../grammar/src/index';
@@ -141,10 +140,13 @@ export type RatingsOf<K extends PartKind> = Extract<PartRatings, { kind: K }>;
  * A SPICE diode model (IS, N, RS, EG, XTI; Berkeley SPICE3 diode model) suggested for a part
  * whose `.model` carries no parameters, with the reason it may be trusted as far as it may.
  */
-export interface ForwardModel extends DiodeParams {
+export type ForwardModel = Record<ForwardModelParameter, number> & {
   /** Where the fit comes from, for the hint. */
   note: string;
-}
+};
+
+/** The SPICE3 diode parameters a fit gives (IS A, N, RS Ω, EG eV, XTI, TNOM °C); the solver's `DiodeParams` has the same fields. */
+export type ForwardModelParameter = 'isA' | 'n' | 'rsOhm' | 'egEv' | 'xti' | 'tnomC';
 
 /** A part that may be offered by a quick fix: its name, where it is described, its ratings. */
 export interface DiodePart {

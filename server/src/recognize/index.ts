@@ -4,7 +4,8 @@
  * bridge is not also read as three single-phase bridges, nor a bridge leg as a half-wave.
  */
 import type { LoadDirective, MainsDirective } from '../../../grammar/src/index';
-import { anchorOf, type CoreDiagnostic, type FlatCircuit, type PlacedDirective } from '../circuit/index';
+import { anchorOf, type FlatCircuit, type PlacedDirective } from '../circuit/index';
+import type { Finding } from '../findings/index';
 import { matchBridges } from './bridge';
 import { matchCentreTaps } from './centre-tap';
 import { DEFAULT_RECOGNITION_STEPS, RecognizeContext } from './context';
@@ -19,7 +20,6 @@ import { findSurroundings, type SurroundingDirectives } from './surroundings';
 import { matchThreePhase } from './three-phase';
 
 export * from './rectifier';
-export { toEquivalentCircuit, ratingsFromDirectives, DEFAULT_RDSON_OHM, DEFAULT_CONTROLLER_VMIN_V, type RatingsHook, type DeviceRatingHints } from './to-equivalent-circuit';
 export { DEFAULT_MAINS } from './source-description';
 export { DEFAULT_RECOGNITION_STEPS } from './context';
 
@@ -38,7 +38,7 @@ export function recognizeRectifiers(
     if (!ctx.exhausted) for (const match of matcher(ctx)) matches.push(match);
   }
   const fill = pickDirectives(directives, flat.rootUri);
-  const diagnostics: CoreDiagnostic[] = [...near.diagnostics, ...budgetFinding(ctx)];
+  const diagnostics: Finding[] = [...near.diagnostics, ...budgetFinding(ctx)];
   const rectifiers = matches.map((match) => {
     const built = buildRectifier(ctx, match, fill);
     diagnostics.push(...built.diagnostics);
@@ -47,7 +47,7 @@ export function recognizeRectifiers(
   return { rectifiers, nearMisses: near.nearMisses, diagnostics };
 }
 
-function buildRectifier(ctx: RecognizeContext, match: Match, fill: SurroundingDirectives): { rectifier: Rectifier; diagnostics: CoreDiagnostic[] } {
+function buildRectifier(ctx: RecognizeContext, match: Match, fill: SurroundingDirectives): { rectifier: Rectifier; diagnostics: Finding[] } {
   const devices = match.devices.map(({ device, role }) => {
     const ref = deviceRef(device, role);
     classifyGate(ctx.graph, device, ref, match.acNodes);
@@ -72,7 +72,7 @@ function buildRectifier(ctx: RecognizeContext, match: Match, fill: SurroundingDi
 }
 
 /** The finding when the work budget ran out: how many devices were left unchecked, on the first of them. */
-function budgetFinding(ctx: RecognizeContext): CoreDiagnostic[] {
+function budgetFinding(ctx: RecognizeContext): Finding[] {
   if (!ctx.exhausted) return [];
   const left = ctx.devices.filter((d) => ctx.isFree(d));
   const first = left[0];

@@ -4,7 +4,8 @@
  * same AC node). Reported as `reversed-device`, an error, with a quick fix that swaps the device's
  * anode and cathode (drain and source) in its card.
  */
-import { anchorOf, type CoreDiagnostic, type CoreFix } from '../circuit/index';
+import { anchorOf } from '../circuit/index';
+import { type Finding, type Fix } from '../findings/index';
 import type { DeviceRole } from '../solve/equivalent-circuit';
 import type { RecognizeContext } from './context';
 import { deviceRef, type RectDevice } from './devices';
@@ -21,7 +22,7 @@ interface Reading {
 }
 
 /** Finds and claims every would-be bridge with exactly one reversed device. */
-export function matchNearMisses(ctx: RecognizeContext): { nearMisses: NearMiss[]; diagnostics: CoreDiagnostic[] } {
+export function matchNearMisses(ctx: RecognizeContext): { nearMisses: NearMiss[]; diagnostics: Finding[] } {
   const nearMisses: NearMiss[] = [];
   for (const ring of findRings(ctx)) {
     if (!ring.every((d) => ctx.isFree(d))) continue;
@@ -121,7 +122,7 @@ function roleIn(d: Pick<RectDevice, 'anode' | 'cathode'>, ac: [string, string], 
 function toNearMiss(r: Reading): NearMiss {
   const devices = r.ring.map((d, i) => deviceRef(d, r.roles[i]!));
   const dev = r.ring[r.reversed]!;
-  const fix: CoreFix = {
+  const fix: Fix = {
     title: `Reverse ${dev.element.name} (swap ${dev.anodeTerminal.text} and ${dev.cathodeTerminal.text})`,
     preferred: true,
     edits: [
@@ -135,7 +136,7 @@ function toNearMiss(r: Reading): NearMiss {
   };
 }
 
-function toDiagnostic(miss: NearMiss): CoreDiagnostic {
+function toDiagnostic(miss: NearMiss): Finding {
   const dev = miss.reversed;
   const inside = dev.origin.chain.length > 0;
   return {

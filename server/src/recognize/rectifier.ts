@@ -3,7 +3,8 @@
  * Plain data; node names are the flat circuit's canonical nodes.
  */
 import type { MainsDirective } from '../../../grammar/src/index';
-import type { CoreDiagnostic, CoreFix, Origin, Place } from '../circuit/index';
+import type { Origin, Place } from '../circuit/index';
+import type { Finding, Fix } from '../findings/index';
 import type { AcSource, DeviceRole, Load, RectifierKind } from '../solve/equivalent-circuit';
 
 /** How a MOSFET's gate is driven. */
@@ -103,11 +104,11 @@ export interface NearMiss {
   dcNegative: string;
   anchor: Place;
   /** Swaps the reversed device's anode and cathode (drain and source) in its card. */
-  fix: CoreFix;
+  fix: Fix;
 }
 
 export interface Recognition {
   rectifiers: Rectifier[];
   nearMisses: NearMiss[];
-  diagnostics: CoreDiagnostic[];
+  diagnostics: Finding[];
 }

@@ -5,7 +5,8 @@
  * Whatever is missing is assumed and said in an `assumed-condition` info finding.
  */
 import type { LoadDirective, MainsDirective } from '../../../grammar/src/index';
-import type { CoreDiagnostic, FlatElement, Place } from '../circuit/index';
+import type { FlatElement, Place } from '../circuit/index';
+import type { Finding } from '../findings/index';
 import type { RecognizeContext } from './context';
 import type { Match } from './match';
 import type { CapacitorFinding, LoadFinding, Surroundings } from './rectifier';
@@ -18,7 +19,7 @@ export interface SurroundingDirectives {
 }
 
 /** Finds the surroundings of a match; assumptions become info findings at `anchor`. */
-export function findSurroundings(ctx: RecognizeContext, match: Match, directives: SurroundingDirectives, anchor: Place): { surroundings: Surroundings; diagnostics: CoreDiagnostic[] } {
+export function findSurroundings(ctx: RecognizeContext, match: Match, directives: SurroundingDirectives, anchor: Place): { surroundings: Surroundings; diagnostics: Finding[] } {
   const notes: string[] = [];
   const { source, notes: sourceNotes } = describeSource(ctx, match, directives.mains);
   notes.push(...sourceNotes);
@@ -29,7 +30,7 @@ export function findSurroundings(ctx: RecognizeContext, match: Match, directives
     else notes.push(`no capacitor across ${x}/${y}; assuming none there`);
   }
   const load = findLoad(ctx, match.dcPositive, match.dcNegative, directives.load, notes);
-  const diagnostics = notes.map((message): CoreDiagnostic => ({ ...anchor, severity: 'info', code: 'assumed-condition', message }));
+  const diagnostics = notes.map((message): Finding => ({ ...anchor, severity: 'info', code: 'assumed-condition', message }));
   return { surroundings: { source, capacitors, load }, diagnostics };
 }
 

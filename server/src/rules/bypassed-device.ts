@@ -13,7 +13,7 @@
  * effect a short across the device and the rectifier cannot be analysed as drawn: error.
  */
 import type { Severity } from '../../../grammar/src/index';
-import type { Finding } from '../analysis/findings';
+import type { Finding } from '../findings/index';
 import type { FlatElement } from '../circuit/index';
 import type { Rule } from './registry';
 import { devicesOf, fmt, nodePairKey, pct, placeOf, type DeviceView } from './rule-context';

@@ -10,7 +10,7 @@
  * above the rating itself, warning above a stricter derated limit only. Fix: a bank of parallel
  * parts (fixes/cap-bank.ts).
  */
-import { withLazyFixes, type Finding } from '../analysis/findings';
+import { withLazyFixes, type Finding } from '../findings/index';
 import type { Rule } from './registry';
 import { capacitorsOf } from './capacitor-view';
 import { capacitorBankFix } from './fixes/cap-bank';

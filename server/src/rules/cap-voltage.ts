@@ -10,7 +10,7 @@
  * Parameters", aluminium electrolytic in a benign environment; REFERENCES.md §4, C). Error above
  * the rated voltage itself, warning above the derated limit. Fix: the next standard voltage class.
  */
-import type { Finding } from '../analysis/findings';
+import type { Finding } from '../findings/index';
 import type { Rule } from './registry';
 import { capacitorsOf } from './capacitor-view';
 import { raiseCapacitorVoltageFix } from './fixes/raise-cap-voltage';

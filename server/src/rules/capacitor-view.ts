@@ -12,7 +12,7 @@
  * capacitor charges to the crest, half the output, and its output capacitor sees the whole
  * (REFERENCES.md §1, doubler row, M).
  */
-import type { RectifierAnalysis } from '../analysis/rectifier-analysis';
+import type { RectifierAnalysis } from '../equivalent/index';
 import type { PassiveElement } from '../circuit/index';
 import type { CapacitorRatings } from '../ratings/index';
 import type { WorstValue } from '../solve/index';

@@ -6,10 +6,10 @@
  * its MOSFETs' body diodes, with their drop and loss, and the efficiency it was chosen for is gone.
  *
  * Threshold: the controller's `vmin` rating (`*@ rate <instance or subckt> vmin=`), else the
- * common-practice default the equivalent circuit assumed (to-equivalent-circuit.ts); the crest is
+ * common-practice default the equivalent circuit assumed (equivalent/to-equivalent-circuit.ts); the crest is
  * √2 times the corner's RMS on the rectifier side (a sinusoidal source, D).
  */
-import type { Finding } from '../analysis/findings';
+import type { Finding } from '../findings/index';
 import { anchorOf } from '../circuit/index';
 import type { Rule } from './registry';
 import { fmt } from './rule-context';

@@ -11,11 +11,11 @@
  * a continuous rating, so its RMS current (what heats the channel) is compared: our reading,
  * common practice. Error above the rating itself, warning above the derated limit only.
  */
-import { withLazyFixes, type Finding } from '../analysis/findings';
+import { withLazyFixes, type Finding } from '../findings/index';
 import type { Rule } from './registry';
 import { diodeSwapFix } from './fixes/swap-diode';
 import { allowsText, fmt, pct, placeOf, ratingTag, stressFindings, type DeviceView, type FailedStress } from './rule-context';
-import type { DeviceAnalysis } from '../analysis/rectifier-analysis';
+import type { DeviceAnalysis } from '../equivalent/index';
 import type { RuleInput } from './registry';
 
 export const currentRatingRule: Rule = {

@@ -10,8 +10,8 @@
  * Threshold: any repeat. Copies made by instantiating one subcircuit twice are not repeats; a
  * repeat inside a subcircuit body is reported once, on its card in the body.
  */
-import type { Finding } from '../analysis/findings';
-import { LineIndex } from '../analysis/line-index';
+import type { Finding } from '../findings/index';
+import { LineIndex } from '../../../grammar/src/index';
 import type { Origin } from '../circuit/index';
 import type { Rule, RuleInput } from './registry';
 

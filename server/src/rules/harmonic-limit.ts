@@ -11,8 +11,8 @@
  * 220–240 V, 50/60 Hz mains, above 75 W input (clause 7) and, for Class D, up to 600 W. An
  * estimate, not a compliance test: the standard's measurement conditions are not reproduced.
  */
-import type { Finding } from '../analysis/findings';
-import type { RectifierAnalysis } from '../analysis/rectifier-analysis';
+import type { Finding } from '../findings/index';
+import type { RectifierAnalysis } from '../equivalent/index';
 import type { HarmonicClass, HarmonicCompliance } from '../solve/index';
 import type { Rule } from './registry';
 import { fmt, pct } from './rule-context';

@@ -11,7 +11,7 @@
  * (ratings/voltage-safety.ts). A rectifier's source is judged at its nominal mains RMS (a `*@
  * mains` line overrides the SIN amplitude); other sources at their SIN amplitude/√2 and DC value.
  */
-import type { Finding } from '../analysis/findings';
+import type { Finding } from '../findings/index';
 import { anchorOf, type SourceElement } from '../circuit/index';
 import { ELV_SOURCE, isAboveExtraLowVoltage, MAINS_CAUTION } from '../ratings/index';
 import type { Rule, RuleInput } from './registry';

@@ -9,7 +9,7 @@
  * Threshold: the sign alone (common practice: passive parts have positive values; a SPICE SIN
  * amplitude is written positive and the phase argument shifts it).
  */
-import type { Finding } from '../analysis/findings';
+import type { Finding } from '../findings/index';
 import type { FlatElement } from '../circuit/index';
 import type { Rule } from './registry';
 import { fmt, placeOf } from './rule-context';

@@ -11,7 +11,7 @@
  * Devices without RθJA are skipped: their Tj is only the ambient (missing-rating says so). The
  * verdict is ratings/stress-checks.ts.
  */
-import { withLazyFixes } from '../analysis/findings';
+import { withLazyFixes } from '../findings/index';
 import { describePolicyOrigin } from '../ratings/index';
 import type { Rule } from './registry';
 import { diodeSwapFix } from './fixes/swap-diode';

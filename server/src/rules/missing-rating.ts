@@ -10,7 +10,7 @@
  * here: without it Tj is the ambient and the solver notes it. Fix: a `rate` template filled with
  * the minimum values the design needs (fixes/rate-template.ts).
  */
-import type { Finding } from '../analysis/findings';
+import type { Finding } from '../findings/index';
 import type { DeviceView } from './rule-context';
 import { capacitorsOf, type CapacitorView } from './capacitor-view';
 import { rateTemplateFix } from './fixes/rate-template';

@@ -9,8 +9,8 @@
  *
  * Threshold: none; any difference of model name (case-insensitive) is reported.
  */
-import type { Finding } from '../analysis/findings';
-import type { RectifierAnalysis } from '../analysis/rectifier-analysis';
+import type { Finding } from '../findings/index';
+import type { RectifierAnalysis } from '../equivalent/index';
 import type { Rule } from './registry';
 
 export const mixedBridgeRule: Rule = {

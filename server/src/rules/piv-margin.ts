@@ -10,7 +10,7 @@
  * itself (outside the part's rating), warning when it only exceeds the derated limit. Fix: the
  * lowest-rated part that passes every stress rule (fixes/swap-diode.ts).
  */
-import { withLazyFixes } from '../analysis/findings';
+import { withLazyFixes } from '../findings/index';
 import type { Rule } from './registry';
 import { diodeSwapFix } from './fixes/swap-diode';
 import { allowsText, fmt, pct, placeOf, ratingTag, stressFindings } from './rule-context';

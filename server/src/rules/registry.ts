@@ -1,17 +1,16 @@
 /**
  * The rule registry: every rule is a function of the analysed file that returns findings. A rule
- * that throws becomes one `internal-error` finding and the others still run. Findings that an
- * `*@ allow CODE` directive accepts are dropped here (see allow.ts).
+ * that throws becomes one `internal-error` finding and the others still run. The findings come
+ * back as the rules found them; the analysis applies the file's `*@ allow` once, to every finding.
  */
 import type { Netlist } from '../../../grammar/src/index';
 import type { FlatCircuit } from '../circuit/index';
-import type { Finding } from '../analysis/findings';
-import type { RectifierAnalysis } from '../analysis/rectifier-analysis';
-import type { SolveFn } from '../analysis/solver-memo';
+import type { Finding } from '../findings/index';
+import type { RectifierAnalysis } from '../equivalent/index';
+import type { SolveFn } from '../solve/index';
 import type { DeratingPolicy, PartsFile } from '../ratings/index';
 import type { NearMiss } from '../recognize/index';
 import { ALL_RULES } from './all-rules';
-import { filterAllowed } from './allow';
 
 export interface RuleInput {
   rootUri: string;
@@ -39,7 +38,7 @@ export interface Rule {
 export const RULES: readonly Rule[] = ALL_RULES;
 
 export function applyRules(input: RuleInput): Finding[] {
-  const findings = RULES.flatMap((rule) => {
+  return RULES.flatMap((rule) => {
     try {
       return rule.check(input);
     } catch (error) {
@@ -49,5 +48,4 @@ export function applyRules(input: RuleInput): Finding[] {
       }];
     }
   });
-  return filterAllowed(findings, input.flat.directives, input.parsed ?? new Map([[input.rootUri, input.netlist]]));
 }

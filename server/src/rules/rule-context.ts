@@ -5,8 +5,8 @@
  */
 import { displayNumber, displayPercent } from '../../../grammar/src/index';
 import { anchorOf, type FlatElement, type Origin, type SourceElement } from '../circuit/index';
-import type { Finding, RelatedPlace } from '../analysis/findings';
-import type { DeviceAnalysis, RectifierAnalysis } from '../analysis/rectifier-analysis';
+import type { Finding, RelatedPlace } from '../findings/index';
+import type { DeviceAnalysis, RectifierAnalysis } from '../equivalent/index';
 import {
   describeOrigin, describePolicyOrigin, stressVerdict, type PolicyEntry, type Rated, type StressKind, type StressVerdict,
 } from '../ratings/index';

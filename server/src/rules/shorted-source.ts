@@ -12,7 +12,7 @@
  * terminals: any finite resistance or voltage is a circuit the solver can take as it is.
  */
 import type { Severity } from '../../../grammar/src/index';
-import type { Finding } from '../analysis/findings';
+import type { Finding } from '../findings/index';
 import type { FlatElement, SourceElement } from '../circuit/index';
 import type { Rule, RuleInput } from './registry';
 import type { Rectifier } from '../recognize/index';

@@ -16,7 +16,7 @@
  * when only the derated limit is exceeded. Fixes: an E12 series inrush resistor, or a part with
  * more IFSM. The verdict is ratings/stress-checks.ts.
  */
-import { withLazyFixes } from '../analysis/findings';
+import { withLazyFixes } from '../findings/index';
 import type { Rule } from './registry';
 import { diodeSwapFix } from './fixes/swap-diode';
 import { inrushResistorFix } from './fixes/inrush-resistor';

@@ -7,7 +7,7 @@
  * Threshold: none to choose — the solver reports the loop as diverged (Tj iterated to 0.1 K).
  * Always an error.
  */
-import { withLazyFixes, type Finding } from '../analysis/findings';
+import { withLazyFixes, type Finding } from '../findings/index';
 import type { Rule } from './registry';
 import { diodeSwapFix } from './fixes/swap-diode';
 import { devicesOf, fmt, placeOf } from './rule-context';

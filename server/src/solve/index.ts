@@ -19,3 +19,4 @@ export { settleJunctionTemperatures, type ThermalResult, type ThermalOptions } f
 export type { Waveform } from './waveform';
 export { NON_FINITE_NOTE } from './finite-figures';
 export { deviceFiguresOf, type DeviceAtCorner, type DeviceFigures, type SurgeStress } from './device-figures';
+export { memoisedSolver, type SolutionCache, type SolveFn } from './solver-memo';

@@ -12,11 +12,11 @@
  * comment above the card saying the card now stands for a bank. A series ESR resistor in the
  * netlist is left as it is (conservative: the bank's would be smaller).
  */
-import type { Fix, TextEdit } from '../../analysis/findings';
+import type { Fix, TextEdit } from '../../findings/index';
 import type { Netlist } from '../../../../grammar/src/index';
-import type { RectifierAnalysis } from '../../analysis/rectifier-analysis';
+import type { RectifierAnalysis } from '../../equivalent/index';
 import { solveRectifier } from '../../solve/index';
-import type { SolveFn } from '../../analysis/solver-memo';
+import type { SolveFn } from '../../solve/index';
 import type { CapacitorView } from '../capacitor-view';
 import { fmt } from '../rule-context';
 import { cardAt, insertLinesBefore, spiceNumber } from './text-edits';

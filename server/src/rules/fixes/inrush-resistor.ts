@@ -10,12 +10,12 @@
  * series resistance rises). The title states the steady-state dissipation I²R at high line, which
  * the designer must rate the resistor for (or choose an NTC thermistor of that cold value).
  */
-import type { Fix } from '../../analysis/findings';
-import type { RectifierAnalysis } from '../../analysis/rectifier-analysis';
+import type { Fix } from '../../findings/index';
+import type { RectifierAnalysis } from '../../equivalent/index';
 import type { SourceElement } from '../../circuit/index';
 import { E_SERIES_SOURCE, nextPreferredValue, stressVerdict, type DeratingPolicy } from '../../ratings/index';
 import { deviceFiguresOf, solveRectifier, type RectifierSolution } from '../../solve/index';
-import type { SolveFn } from '../../analysis/solver-memo';
+import type { SolveFn } from '../../solve/index';
 import type { RuleInput } from '../registry';
 import { circuitIndexOf, fmt } from '../rule-context';
 import { cardAt, insertLinesAfter, spiceNumber } from './text-edits';

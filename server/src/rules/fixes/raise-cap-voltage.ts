@@ -4,7 +4,7 @@
  * fraction, by editing the `vrated=` entry of the `*@ rate` line that gave the rating. Above the
  * highest class no single electrolytic will do, and no fix is offered.
  */
-import type { Fix } from '../../analysis/findings';
+import type { Fix } from '../../findings/index';
 import { CAPACITOR_CLASS_SOURCE, nextCapacitorVoltageClass } from '../../ratings/index';
 import type { CapacitorView } from '../capacitor-view';
 import { fmt } from '../rule-context';

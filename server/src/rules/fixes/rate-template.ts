@@ -5,7 +5,7 @@
  * digits. The line goes above the part's `.model` card (a rate line for a model name covers every
  * device using it), else above the device's own card.
  */
-import type { Fix } from '../../analysis/findings';
+import type { Fix } from '../../findings/index';
 import type { Place } from '../../circuit/index';
 import type { Netlist } from '../../../../grammar/src/index';
 import { insertLinesBefore } from './text-edits';

@@ -10,14 +10,13 @@
  * forward model; a thermal resistance the old model's ratings gave is carried over in a `rate`
  * line, since RθJA belongs to the mounting as much as to the part.
  */
-import type { Fix, TextEdit } from '../../analysis/findings';
-import type { RectifierAnalysis } from '../../analysis/rectifier-analysis';
+import type { Fix, TextEdit } from '../../findings/index';
+import { diodeParamsOfForwardModel, type RectifierAnalysis } from '../../equivalent/index';
 import {
   diodePartsFromFiles, diodeRequirementFromStress, DIODE_CATALOG, passesEveryStress, selectPassingPart,
   type DeratingPolicy, type DiodePart,
 } from '../../ratings/index';
-import { deviceFiguresOf, solveRectifier, type EquivalentCircuit } from '../../solve/index';
-import type { SolveFn } from '../../analysis/solver-memo';
+import { deviceFiguresOf, solveRectifier, type EquivalentCircuit, type SolveFn } from '../../solve/index';
 import type { RuleInput } from '../registry';
 import { fmt } from '../rule-context';
 import { cardAt, insertLinesAfter, insertLinesBefore } from './text-edits';
@@ -79,7 +78,7 @@ export function passesAfterSwap(
 function swappedCircuit(circuit: EquivalentCircuit, group: readonly number[], part: DiodePart): EquivalentCircuit {
   const fm = part.forwardModel;
   if (!fm) return circuit;
-  const params = { isA: fm.isA, n: fm.n, rsOhm: fm.rsOhm, egEv: fm.egEv, xti: fm.xti, tnomC: fm.tnomC };
+  const params = diodeParamsOfForwardModel(fm);
   const devices = circuit.devices.map((d, k) => (group.includes(k) && d.kind === 'diode' ? { ...d, params } : d));
   return { ...circuit, devices };
 }

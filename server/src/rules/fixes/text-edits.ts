@@ -3,7 +3,7 @@
  * breaking the netlist, in the file's own line ending, and finding a card by its span.
  */
 import type { Card, Netlist, Span } from '../../../../grammar/src/index';
-import type { TextEdit } from '../../analysis/findings';
+import type { TextEdit } from '../../findings/index';
 
 /** The file's line ending: CRLF when it already uses one. */
 export function eolOf(text: string): string {

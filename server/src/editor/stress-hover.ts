@@ -4,11 +4,11 @@
  * the caution for mains-connected designs.
  */
 import type { FileAnalysis } from '../analysis/analyze';
-import type { RectifierAnalysis } from '../analysis/rectifier-analysis';
+import type { RectifierAnalysis } from '../equivalent/index';
 import { describeOrigin, isAboveExtraLowVoltage, MAINS_CAUTION, type Rated } from '../ratings/index';
 import type { DeviceAtCorner, WorstValue } from '../solve/index';
-import { formatCelsius, formatPercent, formatSi, KIND_NAMES } from './format';
-import { escapeMarkdown as md, markdownCode as code } from './markup';
+import { formatCelsius, formatPercent, formatSi, KIND_NAMES } from '../presentation/format';
+import { escapeMarkdown as md, markdownCode as code } from '../presentation/markup';
 import { hoverAt, type HoverResult } from './hover';
 import { devicesAtCard, type DeviceHit } from './rectifier-lookup';
 

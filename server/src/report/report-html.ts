@@ -5,13 +5,13 @@
  * findings, the assumptions and the caution.
  */
 import type { FileAnalysis } from '../analysis/analyze';
-import type { RectifierAnalysis } from '../analysis/rectifier-analysis';
+import type { RectifierAnalysis } from '../equivalent/index';
 import { MAINS_CAUTION, type DeratingPolicy } from '../ratings/index';
 import { deviceFigureTables, rectifierFigureTable } from './figure-tables';
 import {
   fileNeedsCaution, rectifierLabel, renderCautionHtml, renderFigureTableHtml, renderFindingsHtml, renderNotesHtml,
 } from './html-blocks';
-import { escapeMarkup } from './markup';
+import { escapeMarkup } from '../presentation/markup';
 import { PAGE_CSS } from './page-style';
 import { annotateDeviceLines } from './report-text-annotated';
 import { renderComparisonSection } from './view-content';

@@ -4,8 +4,8 @@
  * `data-variant="<id>"` (`as-drawn`, `silicon`, `schottky`, `hybrid`, `synchronous`).
  */
 import type { ComparisonRow, TopologyComparison } from '../compare/index';
-import { coord, escapeMarkup, niceTicks, tickLabel } from './markup';
-import { formatCelsius, formatFixed, formatPercent, formatSi } from './format';
+import { coord, escapeMarkup, niceTicks, tickLabel } from '../presentation/markup';
+import { formatCelsius, formatFixed, formatPercent, formatSi } from '../presentation/format';
 
 const BAR_COLOURS: Readonly<Record<ComparisonRow['id'], string>> = {
   'as-drawn': '#5b574f',

@@ -4,13 +4,13 @@
  * that reaches the markup goes through `escapeMarkup`.
  */
 import type { FileAnalysis } from '../analysis/analyze';
-import type { Finding } from '../analysis/findings';
-import { LineIndex } from '../analysis/line-index';
-import type { RectifierAnalysis } from '../analysis/rectifier-analysis';
+import type { Finding } from '../findings/index';
+import { LineIndex } from '../../../grammar/src/index';
+import type { RectifierAnalysis } from '../equivalent/index';
 import { isAboveExtraLowVoltage, MAINS_CAUTION } from '../ratings/index';
 import type { FigureTable } from './figure-tables';
-import { KIND_NAMES } from './format';
-import { escapeMarkup } from './markup';
+import { KIND_NAMES } from '../presentation/format';
+import { escapeMarkup } from '../presentation/markup';
 
 /** "diode bridge D1, D2, D3, D4". */
 export function rectifierLabel(analysis: RectifierAnalysis): string {

@@ -2,9 +2,9 @@
  * The figures of one rectifier as tables of formatted cells, one column per corner, with the
  * worst corner of each row marked: the one model behind the HTML report and the terminal text.
  */
-import type { DeviceAnalysis, RectifierAnalysis } from '../analysis/rectifier-analysis';
+import type { DeviceAnalysis, RectifierAnalysis } from '../equivalent/index';
 import type { CornerSolution, DeviceSolution, WorstFigures, WorstValue } from '../solve/index';
-import { formatCelsius, formatFixed, formatPercent, formatSi } from './format';
+import { formatCelsius, formatFixed, formatPercent, formatSi } from '../presentation/format';
 
 export interface FigureRow {
   label: string;

@@ -1,8 +1,8 @@
 /** Inlay hints at the end of each rectifier device's card: worst PIV against its rating, loss, Tj. */
 import type { FileAnalysis } from '../analysis/analyze';
-import type { DeviceAnalysis, RectifierAnalysis } from '../analysis/rectifier-analysis';
+import type { DeviceAnalysis, RectifierAnalysis } from '../equivalent/index';
 import type { DeviceWorst } from '../solve/index';
-import { formatCelsius, formatSi, trim } from './format';
+import { formatCelsius, formatSi, trim } from '../presentation/format';
 import { cardPlaceOf } from './rectifier-lookup';
 
 export interface InlayHint {

@@ -3,7 +3,7 @@
  * value axis and a legend row above it. Voltages and currents get separate panels rather than
  * two scales on one plot, so every trace can be read against the axis beside it.
  */
-import { coord, escapeMarkup, niceTicks, tickLabel } from './markup';
+import { coord, escapeMarkup, niceTicks, tickLabel } from '../presentation/markup';
 
 /** One trace: `id` goes into `data-series` so tests and styles can find it. */
 export interface ChartSeries {

@@ -1,5 +1,15 @@
-/** Findings: what the core says about a file, in offsets; adapters convert to lines and columns. */
+/**
+ * The findings contract: what the core says about a file, in offsets (adapters convert to lines and
+ * columns). The ground floor of the server: every room may import it, and it imports only the
+ * netlist language.
+ */
 import { boundMessage, type Severity, type Span } from '../../../grammar/src/index';
+
+/** A place in a file: the URI (or path) as the adapter names it, and character offsets. */
+export interface Place {
+  uri: string;
+  span: Span;
+}
 
 export interface TextEdit {
   uri: string;
@@ -15,9 +25,7 @@ export interface Fix {
   preferred?: boolean;
 }
 
-export interface RelatedPlace {
-  uri: string;
-  span: Span;
+export interface RelatedPlace extends Place {
   message: string;
 }
 
@@ -53,29 +61,6 @@ export function boundMessages(findings: Finding[]): Finding[] {
     for (const place of finding.related ?? []) place.message = boundMessage(place.message);
   }
   return findings;
-}
-
-/**
- * Gives a finding fixes that are computed on first read of `fixes` and then kept. Fix trials
- * re-solve the rectifier, and most findings are never opened for a fix, so they are not computed
- * with every keystroke's analysis.
- */
-export function withLazyFixes(finding: Finding, compute: () => (Fix | undefined)[]): Finding {
-  let fixes: Fix[] | undefined;
-  return Object.defineProperty(finding, 'fixes', {
-    get: () => (fixes ??= computeSafely(compute)),
-    enumerable: true,
-    configurable: true,
-  });
-}
-
-/** A fix that fails to compute is not offered; the finding itself still stands. */
-function computeSafely(compute: () => (Fix | undefined)[]): Fix[] {
-  try {
-    return compute().filter((f): f is Fix => f !== undefined);
-  } catch {
-    return [];
-  }
 }
 
 /** Indexes of a file's own findings that overlap `[start, end]` (an editor's selection). */

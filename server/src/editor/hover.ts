@@ -3,7 +3,7 @@
  * devices get their stress table from the analysis (see `stress-hover.ts`).
  */
 import { key, type Card, type Netlist, type Span } from '../../../grammar/src/index';
-import { escapeMarkdown as md, markdownCode as code } from './markup';
+import { escapeMarkdown as md, markdownCode as code } from '../presentation/markup';
 import { indexNames, occurrenceAt } from './name-index';
 
 export interface HoverResult {

@@ -3,12 +3,11 @@
  * origins), its equivalent circuit, its corners and the solution (through the memoised solver).
  */
 import type { FlatCircuit, FlatModel } from '../circuit/index';
-import type { Finding } from './findings';
-import type { AnalysisSettings } from './settings';
-import { createRatingResolver, type PartsFile, type RatingsOf, type ResolvedRatings } from '../ratings/index';
-import { toEquivalentCircuit, type DeviceRatingHints, type Rectifier, type RectifierDeviceRef } from '../recognize/index';
-import { defaultCorners, deviceFiguresOf, type Corner, type DeviceFigures, type EquivalentCircuit, type RectifierSolution } from '../solve/index';
-import type { SolveFn } from './solver-memo';
+import type { Finding } from '../findings/index';
+import { createRatingResolver, type AnalysisSettings, type PartsFile, type RatingsOf, type ResolvedRatings } from '../ratings/index';
+import type { Rectifier, RectifierDeviceRef } from '../recognize/index';
+import { defaultCorners, deviceFiguresOf, type Corner, type DeviceFigures, type EquivalentCircuit, type RectifierSolution, type SolveFn } from '../solve/index';
+import { controllersOf, toEquivalentCircuit, type RatedParts } from './to-equivalent-circuit';
 
 export interface DeviceAnalysis {
   ref: RectifierDeviceRef;
@@ -34,8 +33,6 @@ export interface RectifierAnalysis {
   controller?: RatingsOf<'controller'>;
 }
 
-export type { SolutionCache } from './solver-memo';
-
 /**
  * Analyses the rectifiers in order while the solver budget lasts: before each one the periods
  * integrated so far (`solverPeriods`) are compared with `maxPeriods`; once it is spent the rest are
@@ -52,10 +49,10 @@ export function analyseRectifiers(
   let periods = 0;
   for (const rectifier of rectifiers) {
     if (periods >= maxPeriods) break;
-    const rated = rectifier.devices.map((ref) => resolveDevice(ref, flat, resolve));
-    const hints = ratingHints(rated, resolve);
-    const { circuit, diagnostics } = toEquivalentCircuit(rectifier, flat.models, hints);
-    findings.push(...diagnostics);
+    const { rated, parts } = rateRectifier(rectifier, flat, resolve);
+    const { controllers } = parts;
+    const { circuit, findings: assumed } = toEquivalentCircuit(rectifier, flat.models, parts);
+    findings.push(...assumed);
     const corners = cornersFor(rectifier, flat, settings);
     const solution = solve(circuit, corners);
     periods += solverPeriods(solution);
@@ -63,9 +60,10 @@ export function analyseRectifiers(
     const capacitors = rectifier.surroundings.capacitors.flatMap((c) => c.names).map((name) => ({
       name, ratings: resolve({ kind: 'capacitor', instanceName: name }).ratings,
     }));
-    const controllerRef = rectifier.devices.flatMap((d) => d.controllers ?? [])[0];
     const analysis: RectifierAnalysis = { rectifier, circuit, corners, solution, devices, capacitors };
-    if (controllerRef) analysis.controller = resolve({ kind: 'controller', instanceName: controllerRef.name, modelName: controllerRef.subckt }).ratings;
+    // The controller whose vmin the circuit took, else the first.
+    const controller = controllers.find((c) => c.vminV) ?? controllers[0];
+    if (controller) analysis.controller = controller;
     analyses.push(analysis);
   }
   return { analyses, findings };
@@ -78,30 +76,18 @@ export function solverPeriods(solution: RectifierSolution): number {
 
 type Resolver = ReturnType<typeof createRatingResolver>;
 
+/** A rectifier's devices and controllers with their resolved ratings: what its equivalent circuit is built from. */
+export function rateRectifier(rectifier: Rectifier, flat: FlatCircuit, resolve: Resolver): { rated: Omit<DeviceAnalysis, 'figures'>[]; parts: RatedParts } {
+  const rated = rectifier.devices.map((ref) => resolveDevice(ref, flat, resolve));
+  const controllers = controllersOf(rectifier).map((c) => resolve({ kind: 'controller', instanceName: c.name, modelName: c.subckt }).ratings);
+  return { rated, parts: { devices: rated.map((d) => d.ratings), controllers } };
+}
+
 function resolveDevice(ref: RectifierDeviceRef, flat: FlatCircuit, resolve: Resolver): Omit<DeviceAnalysis, 'figures'> {
   const model = ref.model ? flat.models.get(ref.model) : undefined;
   const query = { instanceName: ref.name, modelName: model?.name, model: model ? { name: model.name, params: model.params, uri: model.uri, span: model.span } : undefined };
   const ratings = ref.type === 'diode' ? resolve({ kind: 'diode', ...query }) : resolve({ kind: 'mosfet', ...query });
   return model ? { ref, model, ratings } : { ref, ratings };
-}
-
-/** What the equivalent circuit needs from the ratings, looked up by instance name. */
-function ratingHints(devices: readonly Omit<DeviceAnalysis, 'figures'>[], resolve: Resolver) {
-  const byName = new Map(devices.map((d) => [d.ref.name.toLowerCase(), d]));
-  return ({ instance, model }: { instance: string; model?: string }): DeviceRatingHints | undefined => {
-    const device = byName.get(instance.toLowerCase());
-    if (!device) {
-      const controller = resolve({ kind: 'controller', instanceName: instance, modelName: model }).ratings;
-      return controller.vminV ? { vminV: controller.vminV.value } : undefined;
-    }
-    const r = device.ratings.ratings;
-    const hints: DeviceRatingHints = {};
-    if (r.rthjaKPerW) hints.rthjaKPerW = r.rthjaKPerW.value;
-    if (r.kind === 'mosfet' && r.rdsonOhm) hints.rdsonOhm = r.rdsonOhm.value;
-    const fitted = device.ratings.forwardModel;
-    if (fitted) hints.forwardModel = { isA: fitted.isA, n: fitted.n, rsOhm: fitted.rsOhm, egEv: fitted.egEv, xti: fitted.xti, tnomC: fitted.tnomC };
-    return hints;
-  };
 }
 
 /** Line tolerance from the mains directive, then settings, then the solver's defaults; ambient likewise. */

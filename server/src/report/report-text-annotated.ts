@@ -5,11 +5,11 @@
  */
 import { escapeControlChars } from '../../../grammar/src/index';
 import type { FileAnalysis } from '../analysis/analyze';
-import { LineIndex } from '../analysis/line-index';
-import type { RectifierAnalysis } from '../analysis/rectifier-analysis';
+import { LineIndex } from '../../../grammar/src/index';
+import type { RectifierAnalysis } from '../equivalent/index';
 import { MAINS_CAUTION } from '../ratings/index';
 import { deviceFigureTables, rectifierFigureTable, reverseRatingV, type FigureTable } from './figure-tables';
-import { formatCelsius, formatSi } from './format';
+import { formatCelsius, formatSi } from '../presentation/format';
 import { fileNeedsCaution, rectifierLabel } from './html-blocks';
 
 /** Widest column the annotations are aligned to; longer cards get theirs two spaces after. */

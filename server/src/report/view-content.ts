@@ -5,16 +5,16 @@
  */
 import type { ViewContent } from '../protocol/custom-protocol';
 import type { FileAnalysis } from '../analysis/analyze';
-import type { RectifierAnalysis } from '../analysis/rectifier-analysis';
-import { memoisedSolver, type SolveFn } from '../analysis/solver-memo';
+import type { RectifierAnalysis } from '../equivalent/index';
+import { memoisedSolver, type SolveFn } from '../solve/index';
 import { compareTopologies } from '../compare/index';
 import type { DeratingPolicy } from '../ratings/index';
 import { renderComparisonSvg, renderComparisonTable } from './comparison-svg';
 import { needsCaution, rectifierLabel, renderCautionHtml, renderNotesHtml } from './html-blocks';
-import { escapeMarkup } from './markup';
+import { escapeMarkup } from '../presentation/markup';
 import { PAGE_CSS } from './page-style';
 import { defaultInrushCorner, defaultPeriodCorner, renderInrushSvg, renderPeriodSvg } from './waveform-svg';
-import { formatFixed, formatPercent, formatSi } from './format';
+import { formatFixed, formatPercent, formatSi } from '../presentation/format';
 
 export type { ViewContent };
 

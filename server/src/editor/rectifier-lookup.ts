@@ -1,7 +1,7 @@
 /** Finds the rectifier analyses and devices that belong to a place in a file. */
 import type { Span } from '../../../grammar/src/index';
 import type { FileAnalysis } from '../analysis/analyze';
-import type { DeviceAnalysis, RectifierAnalysis } from '../analysis/rectifier-analysis';
+import type { DeviceAnalysis, RectifierAnalysis } from '../equivalent/index';
 
 export interface DeviceHit {
   analysis: RectifierAnalysis;

@@ -5,9 +5,14 @@
  * place, or one of its related places (the inner card of a device inside a subcircuit), lies in a
  * covered card.
  */
-import type { Card, Netlist, Span } from '../../../grammar/src/index';
-import type { PlacedDirective } from '../circuit/index';
-import type { Finding } from '../analysis/findings';
+import type { Card, Directive, Netlist, Span } from '../../../grammar/src/index';
+import type { Finding } from './finding';
+
+/** A directive and the file it sits in (the flat circuit's placed directives have this shape). */
+export interface DirectiveInFile {
+  uri: string;
+  directive: Directive;
+}
 
 /** One region an allow directive covers. */
 export interface AllowedRegion {
@@ -19,7 +24,7 @@ export interface AllowedRegion {
 }
 
 /** The regions every allow directive covers. */
-export function allowedRegions(directives: readonly PlacedDirective[], parsed: ReadonlyMap<string, Netlist>): AllowedRegion[] {
+export function allowedRegions(directives: readonly DirectiveInFile[], parsed: ReadonlyMap<string, Netlist>): AllowedRegion[] {
   const regions: AllowedRegion[] = [];
   const layouts = new Map<string, CardLayout>();
   for (const placed of directives) {
@@ -39,21 +44,29 @@ export function allowedRegions(directives: readonly PlacedDirective[], parsed: R
 }
 
 /**
- * Drops the findings an allow directive accepts. The regions are indexed by file and code, and
- * the covered cards of one file do not overlap, so each place is one binary search: twenty
- * thousand allow lines cost no more than their own count.
+ * The designer's allowances of one analysis: whether an allow directive accepts a finding. The
+ * regions are indexed by file and code, and the covered cards of one file do not overlap, so each
+ * place is one binary search: twenty thousand allow lines cost no more than their own count.
  */
-export function filterAllowed<F extends Pick<Finding, 'uri' | 'span' | 'code' | 'related'>>(
-  findings: readonly F[], directives: readonly PlacedDirective[], parsed: ReadonlyMap<string, Netlist>,
-): F[] {
+export function allowance(directives: readonly DirectiveInFile[], parsed: ReadonlyMap<string, Netlist>): (finding: AllowableFinding) => boolean {
   const regions = allowedRegions(directives, parsed);
-  if (regions.length === 0) return [...findings];
+  if (regions.length === 0) return () => false;
   const index = indexRegions(regions);
-  return findings.filter((f) => {
+  return (f) => {
     const code = f.code.toLowerCase();
     const places = [{ uri: f.uri, span: f.span }, ...(f.related ?? [])];
-    return !places.some((p) => index.covers(p.uri, code, p.span));
-  });
+    return places.some((p) => index.covers(p.uri, code, p.span));
+  };
+}
+
+type AllowableFinding = Pick<Finding, 'uri' | 'span' | 'code' | 'related'>;
+
+/** The findings an allow directive does not accept. */
+export function filterAllowed<F extends AllowableFinding>(
+  findings: readonly F[], directives: readonly DirectiveInFile[], parsed: ReadonlyMap<string, Netlist>,
+): F[] {
+  const allowed = allowance(directives, parsed);
+  return findings.filter((f) => !allowed(f));
 }
 
 /** Where a file's leading block of directives ends, and the next card after an offset that is not a comment. */

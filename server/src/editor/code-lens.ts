@@ -1,7 +1,7 @@
 /** Code lenses above each rectifier: its kind and headline figures, and the two view commands. */
 import { COMMANDS } from '../protocol/custom-protocol';
 import type { FileAnalysis } from '../analysis/analyze';
-import { formatPercent, formatSi, KIND_NAMES, trim } from './format';
+import { formatPercent, formatSi, KIND_NAMES, trim } from '../presentation/format';
 
 export interface CodeLens {
   /** Offset of the line the lens sits above. */

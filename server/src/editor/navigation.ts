@@ -1,7 +1,7 @@
 /** Go to definition, find references and rename for models, subcircuits and nodes. */
 import type { Span } from '../../../grammar/src/index';
 import type { FileAnalysis } from '../analysis/analyze';
-import type { TextEdit } from '../analysis/findings';
+import type { TextEdit } from '../findings/index';
 import { indexNames, occurrenceAt, sameSymbol, type Occurrence } from './name-index';
 
 export interface Location {

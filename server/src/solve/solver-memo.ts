@@ -3,7 +3,9 @@
  * adapter owns. The analysis, the rules and their fixes all solve through it, so an edit that
  * leaves a rectifier's inputs alone re-solves nothing — neither the rectifier nor its fix trials.
  */
-import { solveRectifier, type Corner, type EquivalentCircuit, type RectifierSolution, type SolveOptions } from '../solve/index';
+import type { Corner, EquivalentCircuit } from './equivalent-circuit';
+import type { RectifierSolution } from './solution';
+import { solveRectifier, type SolveOptions } from './solve-rectifier';
 
 export type SolveFn = (circuit: EquivalentCircuit, corners: Corner[], options?: SolveOptions) => RectifierSolution;
 

@@ -1,14 +1,18 @@
-/** A recognised rectifier → the solver's equivalent circuit: models, ratings hook, defaults said. */
+/** A recognised rectifier with resolved ratings → the solver's equivalent circuit: models, ratings, defaults said. */
 import { describe, expect, it } from 'vitest';
-import { ratingsFromDirectives, toEquivalentCircuit, DEFAULT_CONTROLLER_VMIN_V, DEFAULT_RDSON_OHM } from '../../server/src/recognize/index';
-import { SPICE_DIODE_DEFAULTS } from '../../server/src/solve/equivalent-circuit';
-import { build, recognize } from './check';
-import { TOPOLOGIES } from './fixtures';
+import { rateRectifier, toEquivalentCircuit, DEFAULT_RDSON_OHM } from '../../server/src/equivalent/index';
+import { createRatingResolver } from '../../server/src/ratings/index';
+import { DEFAULT_CONTROLLER_VMIN_V, SPICE_DIODE_DEFAULTS } from '../../server/src/solve/index';
+import { build, recognize } from '../recognize/check';
+import { TOPOLOGIES } from '../recognize/fixtures';
 
 function convert(text: string) {
   const { flat, result } = recognize(text);
   expect(result.rectifiers).toHaveLength(1);
-  return toEquivalentCircuit(result.rectifiers[0]!, flat.models, ratingsFromDirectives(flat.directives));
+  const rectifier = result.rectifiers[0]!;
+  const { parts } = rateRectifier(rectifier, flat, createRatingResolver({ directives: flat.directives, partsFiles: [] }));
+  const { circuit, findings } = toEquivalentCircuit(rectifier, flat.models, parts);
+  return { circuit, diagnostics: findings };
 }
 
 const BRIDGE = 'V1 ac1 ac2 SIN(0 325.27 50)\nC1 out 0 100u\nRL out 0 1k\nD1 ac1 out DM\nD2 ac2 out DM\nD3 0 ac1 DM\nD4 0 ac2 DM';

@@ -1,0 +1,7 @@
+/**
+ * The equivalent-circuit step, after ratings: each recognised rectifier with its resolved ratings,
+ * its equivalent circuit, its corners and its solution (through the caller's solver).
+ */
+export { analyseRectifiers, rateRectifier, solverPeriods, type CapacitorAnalysis, type DeviceAnalysis, type RectifierAnalysis } from './rectifier-analysis';
+export { toEquivalentCircuit, controllersOf, DEFAULT_RDSON_OHM, type RatedParts } from './to-equivalent-circuit';
+export { diodeParamsOfForwardModel, diodeParamsOfModel } from './diode-params';
