@@ -114,24 +114,26 @@ function buildPassive(raw: RawCard, span: Span, letter: 'R' | 'C' | 'L', d: Diag
 }
 
 function buildDiode(raw: RawCard, span: Span, d: Diagnostics): DiodeCard {
-  const { bare, params, groups } = sortArgs(raw.args, d);
-  reportGroups(groups, 'a diode card', d);
-  const card: DiodeCard = { kind: 'diode', name: nameOf(raw.head), nodes: nodes(bare, 2, d), params, span };
-  card.model = wordName(bare[2], 'a model name', d);
-  if (!bare[2]) reportShort(raw.head, raw.args, `${raw.head.image} needs anode, cathode and a model (${ELEMENT_SYNTAX.D})`, d);
+  const { bare, card } = modelledCard(raw, span, d, 'diode', 2, `anode, cathode and a model (${ELEMENT_SYNTAX.D})`);
   if (bare[3]) card.area = valueOf(bare[3], d);
   reportExtra(bare.slice(4), 'value', d);
   return card;
 }
 
 function buildMosfet(raw: RawCard, span: Span, d: Diagnostics): MosfetCard {
-  const { bare, params, groups } = sortArgs(raw.args, d);
-  reportGroups(groups, 'a MOSFET card', d);
-  const card: MosfetCard = { kind: 'mosfet', name: nameOf(raw.head), nodes: nodes(bare, 4, d), params, span };
-  card.model = wordName(bare[4], 'a model name', d);
-  if (!bare[4]) reportShort(raw.head, raw.args, `${raw.head.image} needs drain, gate, source, bulk and a model (${ELEMENT_SYNTAX.M})`, d);
+  const { bare, card } = modelledCard(raw, span, d, 'mosfet', 4, `drain, gate, source, bulk and a model (${ELEMENT_SYNTAX.M})`);
   reportExtra(bare.slice(5), 'value', d);
   return card;
+}
+
+/** A device card whose nodes are followed by a model name: the part diodes and MOSFETs share. */
+function modelledCard<K extends 'diode' | 'mosfet'>(raw: RawCard, span: Span, d: Diagnostics, kind: K, nodeCount: number, needs: string) {
+  const { bare, params, groups } = sortArgs(raw.args, d);
+  reportGroups(groups, kind === 'diode' ? 'a diode card' : 'a MOSFET card', d);
+  const card = { kind, name: nameOf(raw.head), nodes: nodes(bare, nodeCount, d), params, span } as Extract<DiodeCard | MosfetCard, { kind: K }>;
+  card.model = wordName(bare[nodeCount], 'a model name', d);
+  if (!bare[nodeCount]) reportShort(raw.head, raw.args, `${raw.head.image} needs ${needs}`, d);
+  return { bare, card };
 }
 
 function buildSource(raw: RawCard, span: Span, letter: 'V' | 'I', d: Diagnostics): SourceCard {
