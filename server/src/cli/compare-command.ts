@@ -35,12 +35,17 @@ export function runCompare(argv: readonly string[], io: CommandIo): number {
 export function comparisonText(comparison: TopologyComparison): string[] {
   if (!comparison.applicable) return [`No comparison: ${comparison.reason ?? ''}.`];
   const hasCost = comparison.rows.some((r) => r.cost !== undefined);
-  const head = ['construction', 'efficiency', 'loss', 'hottest Tj', 'inrush peak', ...(hasCost ? ['cost'] : []), 'parts'];
+  const head = ['construction', 'verdict', 'efficiency', 'loss', 'hottest Tj', 'inrush peak', ...(hasCost ? ['cost'] : []), 'parts'];
   const rows = comparison.rows.map((r) => rowCells(r, hasCost));
   const widths = head.map((h, c) => Math.max(h.length, ...rows.filter((r) => r.length > 2).map((r) => (r[c] ?? '').length)));
   const fmt = (cells: string[]) => cells.map((cell, c) => (c === cells.length - 1 ? cell : cell.padEnd(widths[c]!))).join('  ').trimEnd();
   const lines = [fmt(head), widths.map((w) => '-'.repeat(w)).join('  ')];
   for (const cells of rows) lines.push(cells.length > 2 ? fmt(cells) : `${cells[0]!.padEnd(widths[0]!)}  ${cells[1]}`);
+  const judged = comparison.rows.flatMap((r) => [
+    ...(r.verdict?.failures ?? []).map((f) => `  - ${r.label}: ${f.code}: ${f.devices.join(', ')}: ${f.text}`),
+    ...(r.verdict?.unrated ?? []).map((u) => `  - ${r.label}: ${u.devices.join(', ')}: generic parts of the comparison's own; a part here needs ${u.needs}`),
+  ]);
+  if (judged.length) lines.push('', 'Verdicts under the file\'s policy:', ...judged);
   lines.push('', 'Assumptions:', ...comparison.assumptions.map((a) => `  - ${a}`));
   for (const r of comparison.rows) lines.push(...r.assumptions.map((a) => `  - ${r.label}: ${a}`));
   return lines;
@@ -51,6 +56,7 @@ function rowCells(r: ComparisonRow, hasCost: boolean): string[] {
   const at = (text: string, corner?: string) => (corner ? `${text} @${shortCornerName(corner)}` : text);
   return [
     r.label,
+    verdictWords(r),
     at(formatPercent(r.efficiency?.value), r.efficiency?.corner),
     at(formatSi(r.rectifierLossW?.value, 'W'), r.rectifierLossW?.corner),
     r.thermalRunaway ? 'runaway' : at(formatCelsius(r.hottestTjC?.value), r.hottestTjC?.corner),
@@ -58,4 +64,13 @@ function rowCells(r: ComparisonRow, hasCost: boolean): string[] {
     ...(hasCost ? [formatFixed(r.cost, 2)] : []),
     r.construction,
   ];
+}
+
+/** A row's verdict in a few words: passes, the rules it fails, or that its parts are not rated. */
+export function verdictWords(r: ComparisonRow): string {
+  const v = r.verdict;
+  if (!v) return '';
+  if (v.status === 'pass') return 'passes';
+  if (v.status === 'fail') return `fails ${[...new Set(v.failures.map((f) => f.code))].join(', ')}`;
+  return 'parts not rated';
 }

@@ -8,8 +8,10 @@
  */
 import type { DeviceAnalysis, RectifierAnalysis } from '../equivalent/index';
 import type { SolveFn } from '../solve/index';
-import type { DeratingPolicy } from '../ratings/index';
+import type { DeratingPolicy, MosfetRatings } from '../ratings/index';
 import type { RectifierSolution, WorstValue } from '../solve/index';
+import { deviceFiguresOf } from '../solve/index';
+import { judgeRow, type RowVerdict } from './row-verdict';
 import { planVariants, type VariantId, type VariantPlan } from './variants';
 
 export type { VariantId } from './variants';
@@ -32,6 +34,11 @@ export interface ComparisonRow {
   thermalRunaway: boolean;
   /** Sum of the parts' costs in the file's own currency, when the file gives them. */
   cost?: number;
+  /**
+   * Pass or fail under the file's own policy, with the rule each failure falls under; absent for a
+   * row not applicable. Only a passing row is a construction the comparison proposes.
+   */
+  verdict?: RowVerdict;
   assumptions: string[];
 }
 
@@ -64,28 +71,43 @@ export function compareTopologies(analysis: RectifierAnalysis, policy: DeratingP
     pivV: maxWorst(devices, 'pivV'),
     iavgA: maxWorst(devices, 'iavgA'),
     controllerVminV: circuit.controllerVminV ?? analysis.controller?.vminV?.value,
+    ...mosfetRatingsOf(devices),
   });
   const costs = partCosts(analysis);
   const asDrawn: ComparisonRow = {
     id: 'as-drawn', label: 'As drawn', construction: describeAsDrawn(analysis), applicable: true,
     ...figuresOf(solution), cost: costs.asDrawn, assumptions: asDrawnNotes(solution),
+    verdict: judgeRow(devices.map((d, k) => ({ name: d.ref.name, kind: circuit.devices[k]!.kind, figures: d.figures, ratings: d.ratings.ratings })), policy),
   };
-  const rows = [asDrawn, ...plans.map((plan) => solvePlan(plan, analysis, costs, solve))];
+  const rows = [asDrawn, ...plans.map((plan) => solvePlan(plan, analysis, policy, costs, solve))];
   const shared = plans.map((p) => p.assumptions).reduce((a, b) => a.filter((x) => b.includes(x)));
   for (const row of rows.slice(1)) row.assumptions = row.assumptions.filter((a) => !shared.includes(a));
   return { ...base, applicable: true, rows, assumptions: shared };
 }
 
-function solvePlan(plan: VariantPlan, analysis: RectifierAnalysis, costs: PartCosts, solve: SolveFn): ComparisonRow {
+function solvePlan(plan: VariantPlan, analysis: RectifierAnalysis, policy: DeratingPolicy, costs: PartCosts, solve: SolveFn): ComparisonRow {
   const row: ComparisonRow = {
     id: plan.id, label: plan.label, construction: plan.construction, applicable: !plan.notApplicable && !!plan.circuit,
     thermalRunaway: false, assumptions: plan.assumptions,
   };
   if (plan.notApplicable || !plan.circuit) return { ...row, reason: plan.notApplicable ?? 'not built' };
   // Waveforms are not drawn for variants; leaving them out keeps the comparison quick.
-  const solved = solve(plan.circuit, analysis.corners, { waveformPoints: 0 });
+  const { circuit } = plan;
+  const solved = solve(circuit, analysis.corners, { waveformPoints: 0 });
   const cost = costs.variant(plan.id);
-  return { ...row, ...figuresOf(solved), ...(cost !== undefined ? { cost } : {}) };
+  const verdict = judgeRow(circuit.devices.map((d, k) => ({
+    name: d.name, kind: d.kind, figures: deviceFiguresOf(circuit, solved, k), ratings: plan.ratings?.[k],
+  })), policy);
+  return { ...row, ...figuresOf(solved), ...(cost !== undefined ? { cost } : {}), verdict };
+}
+
+/** The file's own MOSFET ratings, when the bridge as drawn has a rated MOSFET: the MOSFET variants keep the part. */
+function mosfetRatingsOf(devices: readonly DeviceAnalysis[]): { mosfetRatings?: MosfetRatings } {
+  for (const d of devices) {
+    const r = d.ratings.ratings;
+    if (r.kind === 'mosfet' && (r.vdsV || r.idA)) return { mosfetRatings: r };
+  }
+  return {};
 }
 
 function figuresOf(solution: RectifierSolution): Pick<ComparisonRow, 'efficiency' | 'rectifierLossW' | 'hottestTjC' | 'inrushPeakA' | 'thermalRunaway'> {

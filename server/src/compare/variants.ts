@@ -8,7 +8,7 @@
 import { displayNumber as trim } from '../../../grammar/src/index';
 import {
   DIODE_CATALOG, SCHOTTKY_MAX_VRRM_V, stressVerdict,
-  type CatalogDiode, type CatalogSeriesId, type DeratingPolicy, type StressInputs, type StressKind,
+  type CatalogDiode, type CatalogSeriesId, type DeratingPolicy, type DiodeRatings, type MosfetRatings, type StressInputs, type StressKind,
 } from '../ratings/index';
 import { diodeParamsOfForwardModel } from '../equivalent/index';
 import {
@@ -29,6 +29,8 @@ export interface VariantBasis {
   iavgA: number;
   /** The controller's minimum voltage when the file has one. */
   controllerVminV?: number;
+  /** The file's own MOSFET ratings (an active or hybrid bridge as drawn), which the MOSFET variants keep. */
+  mosfetRatings?: MosfetRatings;
 }
 
 /** A variant's circuit, or the reason it is not offered. */
@@ -38,6 +40,8 @@ export interface VariantPlan {
   /** Its devices in words, e.g. "4 × 1N4004-class silicon (1 A)". */
   construction: string;
   circuit?: EquivalentCircuit;
+  /** The ratings of each device of `circuit`, in its order: a catalog part's, the file's MOSFET's, or none (a generic part). */
+  ratings?: (DiodeRatings | MosfetRatings | undefined)[];
   notApplicable?: string;
   assumptions: string[];
 }
@@ -73,15 +77,18 @@ export function planVariants(basis: VariantBasis): VariantPlan[] {
   const schottky = pickSeries(basis, 'schottky');
   const common = [...rth.assumptions];
   const sync: VariantPlan = planSynchronous(basis, rth.kPerW, rdson, common);
+  const fet = basis.mosfetRatings;
   return [
     {
       id: 'silicon', label: 'Silicon bridge', construction: `4 × ${silicon.label}`,
-      circuit: withDevices(basis.circuit, 'diode-bridge', () => diode(silicon.entry, rth.kPerW)), assumptions: [...common, silicon.why],
+      circuit: withDevices(basis.circuit, 'diode-bridge', () => diode(silicon.entry, rth.kPerW)), ratings: BRIDGE_ROLES.map(() => silicon.entry.ratings),
+      assumptions: [...common, silicon.why],
     },
     planSchottky(basis, schottky, rth.kPerW, common),
     {
       id: 'hybrid', label: 'Hybrid bridge', construction: `2 × ${silicon.label} + 2 self-driven MOSFETs (${milliOhm(rdson.ohm)})`,
       circuit: withDevices(basis.circuit, 'hybrid-bridge', (role) => (role.startsWith('upper') ? diode(silicon.entry, rth.kPerW) : mosfet(rdson.ohm, 'self-driven', rth.kPerW))),
+      ratings: BRIDGE_ROLES.map((role) => (role.startsWith('upper') ? silicon.entry.ratings : fet)),
       assumptions: [...common, silicon.why, ...rdson.assumptions],
     },
     sync,
@@ -95,6 +102,7 @@ function planSchottky(basis: VariantBasis, series: SeriesChoice, rthKPerW: numbe
     return plan;
   }
   plan.circuit = withDevices(basis.circuit, 'diode-bridge', () => diode(series.entry, rthKPerW));
+  plan.ratings = BRIDGE_ROLES.map(() => series.entry.ratings);
   if (basis.pivV > 40) plan.assumptions.push('forward law of the 40 V Schottky class; a Schottky rated for this voltage drops more, so this variant is optimistic');
   return plan;
 }
@@ -109,7 +117,7 @@ function planSynchronous(basis: VariantBasis, rthKPerW: number, rdson: { ohm: nu
   circuit.controllerVminV = vmin;
   return {
     id: 'synchronous', label: 'Synchronous bridge', construction: `4 MOSFETs (${milliOhm(rdson.ohm)}) + controller (vmin ${vmin} V)`,
-    circuit, assumptions,
+    circuit, ratings: BRIDGE_ROLES.map(() => basis.mosfetRatings), assumptions,
   };
 }
 

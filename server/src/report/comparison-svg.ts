@@ -65,20 +65,25 @@ function renderBarRow(row: ComparisonRow, top: number, x: (v: number) => number)
 /** The comparison as an HTML table (a fragment), with the shared and per-row assumptions under it. */
 export function renderComparisonTable(comparison: TopologyComparison): string {
   const hasCost = comparison.rows.some((r) => r.cost !== undefined);
-  const head = ['Construction', 'Parts', 'Efficiency (worst)', 'Rectifier loss (worst)', 'Hottest Tj', 'Inrush peak', ...(hasCost ? ['Cost'] : [])];
+  const head = ['Construction', 'Parts', 'Verdict', 'Efficiency (worst)', 'Rectifier loss (worst)', 'Hottest Tj', 'Inrush peak', ...(hasCost ? ['Cost'] : [])];
   const body = comparison.rows.map((row) => {
     const cells = row.applicable
       ? [
+        verdictCell(row),
         cornerCell(formatPercent(row.efficiency?.value), row.efficiency?.corner),
         cornerCell(formatSi(row.rectifierLossW?.value, 'W'), row.rectifierLossW?.corner),
         cornerCell(`${formatCelsius(row.hottestTjC?.value)}${row.thermalRunaway ? ' (runaway)' : ''}`, row.hottestTjC ? `${row.hottestTjC.device}, ${row.hottestTjC.corner}` : undefined),
         cornerCell(formatSi(row.inrushPeakA?.value, 'A'), row.inrushPeakA?.corner),
         ...(hasCost ? [`<td>${row.cost === undefined ? '—' : escapeMarkup(formatFixed(row.cost, 2))}</td>`] : []),
       ]
-      : [`<td colspan="${hasCost ? 5 : 4}" class="rl-na">not applicable: ${escapeMarkup(row.reason ?? '')}</td>`];
+      : [`<td colspan="${hasCost ? 6 : 5}" class="rl-na">not applicable: ${escapeMarkup(row.reason ?? '')}</td>`];
     return `<tr data-variant="${escapeMarkup(row.id)}"><th scope="row">${escapeMarkup(row.label)}</th><td>${escapeMarkup(row.construction)}</td>${cells.join('')}</tr>`;
   });
-  const notes = comparison.rows.flatMap((r) => r.assumptions.map((a) => `<li><b>${escapeMarkup(r.label)}:</b> ${escapeMarkup(a)}</li>`));
+  const notes = comparison.rows.flatMap((r) => [
+    ...(r.verdict?.failures ?? []).map((f) => `<li class="rl-fails"><b>${escapeMarkup(r.label)}:</b> ${escapeMarkup(`${f.code}: ${f.devices.join(', ')}: ${f.text}`)}</li>`),
+    ...(r.verdict?.unrated ?? []).map((u) => `<li><b>${escapeMarkup(r.label)}:</b> ${escapeMarkup(`${u.devices.join(', ')}: generic parts of the comparison's own; a part here needs ${u.needs}`)}</li>`),
+    ...r.assumptions.map((a) => `<li><b>${escapeMarkup(r.label)}:</b> ${escapeMarkup(a)}</li>`),
+  ]);
   const shared = comparison.assumptions.map((a) => `<li>${escapeMarkup(a)}</li>`);
   return [
     '<table class="rl-table rl-compare-table">',
@@ -103,3 +108,12 @@ const COMPARE_STYLE = `<style>
 .rc-note{font:italic 12px system-ui,sans-serif;fill:#7a756b}
 .rc-na{fill:none;stroke:#c9c4b8;stroke-dasharray:4 3}
 </style>`;
+
+/** Pass, the rules it fails, or that its parts are not rated: only a passing row is proposed. */
+function verdictCell(row: ComparisonRow): string {
+  const v = row.verdict;
+  if (!v) return '<td></td>';
+  if (v.status === 'pass') return '<td class="rl-pass">passes</td>';
+  if (v.status === 'fail') return `<td class="rl-fail">fails ${escapeMarkup([...new Set(v.failures.map((f) => f.code))].join(', '))}</td>`;
+  return '<td class="rl-unjudged">parts not rated</td>';
+}
