@@ -44,7 +44,8 @@ function createClient(context: vscode.ExtensionContext): LanguageClient {
     debug: { module, transport: TransportKind.ipc, options: { execArgv: ['--nolazy', '--inspect=6019'] } },
   };
   const clientOptions: LanguageClientOptions = {
-    documentSelector: [{ language: 'netlist' }],
+    // Files on disk and unsaved buffers only: a diff's 'git:' copy or a remote preview is not a design to check.
+    documentSelector: [{ scheme: 'file', language: 'netlist' }, { scheme: 'untitled', language: 'netlist' }],
     synchronize: { configurationSection: 'rectilens' },
     initializationOptions: { trusted: vscode.workspace.isTrusted },
   };

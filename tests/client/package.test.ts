@@ -26,6 +26,13 @@ describe('extension manifest', () => {
     }
   });
 
+  it('scopes every analysis setting per folder (resource) and declares the protocol trace the client reads', () => {
+    const props = manifest.contributes.configuration.properties;
+    for (const key of Object.keys(props).filter((k) => k !== 'rectilens.trace.server')) expect(props[key].scope, key).toBe('resource');
+    // vscode-languageclient reads `<client id>.trace.server`; the client id is 'rectilens' (client/src/extension.ts).
+    expect(props['rectilens.trace.server']).toMatchObject({ scope: 'window', enum: ['off', 'messages', 'verbose'], default: 'off' });
+  });
+
   it('leaves derating settings null by default, so the editor never sends an unset limit as 0', () => {
     const props = manifest.contributes.configuration.properties;
     for (const key of Object.keys(props).filter((k) => k.startsWith('rectilens.derating.'))) {

@@ -19,9 +19,10 @@ async function loadGrammar(): Promise<textmate.IGrammar> {
   return (await registry.loadGrammar('source.netlist'))!;
 }
 
-/** The scopes of the token that covers `needle` in `line`. */
+/** The scopes of the token that covers `needle` in `line`, a line after the title. */
 function scopesAt(grammar: textmate.IGrammar, line: string, needle: string): string[] {
-  const { tokens } = grammar.tokenizeLine(line, textmate.INITIAL);
+  const afterTitle = grammar.tokenizeLine('a title', textmate.INITIAL).ruleStack;
+  const { tokens } = grammar.tokenizeLine(line, afterTitle);
   const at = line.indexOf(needle);
   return tokens.find((t) => t.startIndex <= at && at < t.endIndex)!.scopes;
 }
@@ -40,6 +41,25 @@ describe('TextMate grammar (TextMate naming conventions)', () => {
     expect(scopesAt(g, 'C1 out 0 100uF', '100uF')).toContain('constant.numeric.netlist');
     expect(scopesAt(g, 'R1 out 0 {sqrt(2)*r0}', 'sqrt')).toContain('support.function.netlist');
     expect(scopesAt(g, '+ N=1.9', '+')).toContain('punctuation.separator.continuation.netlist');
+  });
+});
+
+describe('TextMate grammar: the title line and source functions', () => {
+  it('scopes the first line as the title, never as a card (SPICE reads line 1 as the title)', async () => {
+    const g = await loadGrammar();
+    const first = g.tokenizeLine('R1 bridge on the bench', textmate.INITIAL);
+    expect(first.tokens.flatMap((t) => t.scopes)).not.toContain('storage.type.element.netlist');
+    expect(first.tokens[0]!.scopes).toContain('markup.heading.title.netlist');
+    const second = g.tokenizeLine('R1 a b 10k', first.ruleStack);
+    expect(second.tokens.flatMap((t) => t.scopes)).toContain('storage.type.element.netlist');
+    expect(second.tokens.flatMap((t) => t.scopes)).not.toContain('markup.heading.title.netlist');
+  });
+  it('colours SIN, PULSE and PWL sources outside braces too', async () => {
+    const g = await loadGrammar();
+    expect(scopesAt(g, 'V1 a 0 SIN(0 325 50)', 'SIN')).toContain('support.function.source.netlist');
+    expect(scopesAt(g, 'V2 a 0 PULSE(0 5 0 1n 1n 1m 2m)', 'PULSE')).toContain('support.function.source.netlist');
+    expect(scopesAt(g, 'I1 a 0 pwl(0 0 1m 1)', 'pwl')).toContain('support.function.source.netlist');
+    expect(scopesAt(g, 'R1 sin 0 1k', 'sin')).not.toContain('support.function.source.netlist');
   });
 });
 

@@ -9,7 +9,7 @@ import { describe, expect, it } from 'vitest';
 import { DERATE_KEYS } from '../../grammar/src/index';
 import { analyze } from '../../server/src/analysis/analyze';
 import {
-  CORNER_SETTINGS, DERATING_SETTINGS, DIRECTIVE_ONLY_DERATE_KEYS, HINT_DETAILS, OTHER_SETTINGS, resolvePolicy, validateSettings,
+  CLIENT_SETTINGS, CORNER_SETTINGS, DERATING_SETTINGS, DIRECTIVE_ONLY_DERATE_KEYS, HINT_DETAILS, OTHER_SETTINGS, resolvePolicy, validateSettings,
   type CornerSettingValues, type DeratingSettingValues, type NumericSetting,
 } from '../../server/src/ratings/index';
 
@@ -20,7 +20,7 @@ describe('the settings table', () => {
   const numeric: [string, NumericSetting][] = [...Object.entries(DERATING_SETTINGS), ...Object.entries(CORNER_SETTINGS)];
 
   it('lists every manifest setting once, and nothing else', () => {
-    const keys = [...numeric.map(([, s]) => s.manifestKey), ...Object.values(OTHER_SETTINGS).map((s) => s.manifestKey)];
+    const keys = [...numeric.map(([, s]) => s.manifestKey), ...[...Object.values(OTHER_SETTINGS), ...Object.values(CLIENT_SETTINGS)].map((s) => s.manifestKey)];
     expect(new Set(keys).size).toBe(keys.length);
     expect([...keys].sort()).toEqual(Object.keys(properties).sort());
   });
@@ -36,6 +36,7 @@ describe('the settings table', () => {
       expect({ min: s.min, max: s.max }, s.manifestKey).toEqual({ min: properties[s.manifestKey]!.minimum, max: properties[s.manifestKey]!.maximum });
     }
     expect(properties[OTHER_SETTINGS.hintDetail.manifestKey]!.enum).toEqual([...HINT_DETAILS]);
+    expect(properties[CLIENT_SETTINGS.traceServer.manifestKey]!.enum).toEqual([...CLIENT_SETTINGS.traceServer.values]);
   });
 
   it('covers the fields of the settings type (the compiler makes these literals complete)', () => {

@@ -83,5 +83,13 @@ export const OTHER_SETTINGS = {
   partsFiles: { manifestKey: 'rectilens.partsFiles' },
 } as const;
 
+/**
+ * Settings the editor's language client reads itself and the analysis never sees: the protocol
+ * trace (`<client id>.trace.server`, read by vscode-languageclient).
+ */
+export const CLIENT_SETTINGS = {
+  traceServer: { manifestKey: 'rectilens.trace.server', values: ['off', 'messages', 'verbose'] },
+} as const;
+
 /** `*@ derate` keys no setting sets: they are given in the file or left at their default. */
 export const DIRECTIVE_ONLY_DERATE_KEYS: readonly DerateKey[] = ['ripple', 'id'];
