@@ -1,20 +1,17 @@
 /**
- * The VS Code side: starts the language server, shows a busy indicator, and hosts the waveform
- * and comparison views. It computes nothing; every figure comes from the server.
+ * The VS Code side: starts the language server and hosts the waveform and comparison views. It
+ * computes nothing; every figure comes from the server, and its busy item is the server's
+ * standard progress, which the language client shows in the status bar.
  */
 import * as vscode from 'vscode';
 import { LanguageClient, TransportKind, type LanguageClientOptions, type ServerOptions } from 'vscode-languageclient/node';
-import { BusyIndicator } from './busy-indicator';
-import { BUSY_NOTIFICATION, COMMANDS, type BusyParams, type ViewKind } from '../../server/src/protocol/custom-protocol';
+import { COMMANDS, type ViewKind } from '../../server/src/protocol/custom-protocol';
 import { showAnalysisView } from './analysis-view';
 
 let client: LanguageClient | undefined;
 
 export async function activate(context: vscode.ExtensionContext): Promise<void> {
   client = createClient(context);
-  const busy = new BusyIndicator();
-  context.subscriptions.push(busy);
-  client.onNotification(BUSY_NOTIFICATION, (params: BusyParams) => busy.update(params.busy, params.pending));
   const openView = (kind: ViewKind) => async (uri?: string, rectifierId?: string) => {
     const target = uri ?? vscode.window.activeTextEditor?.document.uri.toString();
     if (!target || !client) return;

@@ -28,11 +28,12 @@ afterEach(async () => {
 
 describe('the analysis worker', () => {
   it('answers a request on one file while another file is being analysed', async () => {
-    client = await startTestClient();
+    client = await startTestClient({ capabilities: { window: { workDoneProgress: true } }, env: { RECTILENS_PROGRESS_DELAY_MS: '1' } });
     await client.open('file:///w/small.cir', SMALL);
     const events: string[] = [];
+    client.connection.onRequest('window/workDoneProgress/create', () => null);
     const started = new Promise<void>((resolve) => {
-      client!.connection.onNotification('rectilens/busy', (p: { busy: boolean }) => { if (p.busy) resolve(); });
+      client!.connection.onNotification('$/progress', (p: { value: { kind: string } }) => { if (p.value.kind === 'begin') resolve(); });
     });
     // 40 bridges: seconds of solving, during which a single-threaded server could answer nothing.
     const heavy = client.open('file:///w/heavy.cir', generateNetlist(4000, 100)).then(() => events.push('heavy analysed'));

@@ -29,6 +29,7 @@ export function registerConfiguration(state: ServerState): void {
     state.trust = { trusted: options.trusted !== false, folders: (params.workspaceFolders ?? []).map((f) => f.uri) };
     if (options.settings) state.settings = { ...DEFAULT_SETTINGS, ...validateSettings(options.settings) };
     state.pullConfiguration = Boolean(params.capabilities.workspace?.configuration);
+    state.progressSupport = Boolean(params.capabilities.window?.workDoneProgress);
     state.refreshSupport = {
       inlayHints: Boolean(params.capabilities.workspace?.inlayHint?.refreshSupport),
       codeLenses: Boolean(params.capabilities.workspace?.codeLens?.refreshSupport),

@@ -12,8 +12,8 @@ import { LineIndex, lineIndexOf } from '../../../grammar/src/index';
 import { DEFAULT_SETTINGS, type AnalysisSettings } from '../analysis/settings';
 import type { FileText } from '../circuit/index';
 import type { FileSet } from '../editor/navigation';
-import { BUSY_NOTIFICATION, type BusyParams } from '../protocol/custom-protocol';
 import type { PartsFile } from '../ratings/index';
+import { AnalysisProgress } from './analysis-progress';
 import { AnalysisScheduler } from './analysis-scheduler';
 import { AnalysisWorkerHost, DEFAULT_WORKER_HEAP_MB, type AnalysisStop } from './analysis-worker-host';
 import { toDiagnostic } from './convert';
@@ -39,12 +39,15 @@ export class ServerState {
   pullConfiguration = false;
   /** Whether the editor can be asked to re-request its inlay hints and code lenses. */
   refreshSupport = { inlayHints: false, codeLenses: false };
+  /** Whether the editor shows server-created progress (`window.workDoneProgress`). */
+  progressSupport = false;
   partsFiles: PartsFile[] = [];
   /** Parts files with diagnostics published, so that fixed ones are cleared. */
   partsFilesWithFindings: ReadonlySet<string> = new Set();
   readonly readText: (uri: string) => FileText;
   readonly worker: AnalysisWorkerHost;
   readonly scheduler: AnalysisScheduler;
+  private readonly progress: AnalysisProgress;
 
   constructor(readonly connection: Connection, env: NodeJS.ProcessEnv = process.env) {
     this.readText = createWorkspaceReader({ openText: (uri) => this.documents.get(uri)?.getText(), trust: () => this.trust });
@@ -54,13 +57,15 @@ export class ServerState {
       heapMb: positiveNumber(env.RECTILENS_WORKER_HEAP_MB) ?? DEFAULT_WORKER_HEAP_MB,
       log: (message) => connection.console.error(message),
     });
+    // RECTILENS_PROGRESS_DELAY_MS (tests): how long a batch runs before progress is shown.
+    this.progress = new AnalysisProgress(connection, () => this.progressSupport, positiveNumber(env.RECTILENS_PROGRESS_DELAY_MS));
     this.scheduler = new AnalysisScheduler(this.worker, {
       openDocuments: () => this.documents.all().map((d) => ({ uri: d.uri, version: d.version, text: d.getText() })),
       settings: () => this.settings,
       partsFiles: () => this.partsFiles,
       onAnalysed: (file, version) => this.publish(file, version),
       onStopped: (uri, version, stop) => this.publishStopped(uri, version, stop),
-      onBusy: (busy, pending) => void connection.sendNotification(BUSY_NOTIFICATION, { busy, pending } satisfies BusyParams),
+      onBusy: (busy, pending) => this.progress.update(busy, pending),
     }, 10, positiveNumber(env.RECTILENS_EDITOR_PATIENCE_MS));
   }
 

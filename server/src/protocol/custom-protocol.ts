@@ -27,14 +27,5 @@ export interface ViewContent {
   body: string;
 }
 
-/** `rectilens/busy`: sent when a batch of analyses starts and ends. */
-export const BUSY_NOTIFICATION = 'rectilens/busy';
-
-export interface BusyParams {
-  busy: boolean;
-  /** Files still queued. */
-  pending: number;
-}
-
 /** `rectilens/documentText`: the server's copy of an open document (a test and diagnostic aid). */
 export const DOCUMENT_TEXT_REQUEST = 'rectilens/documentText';
