@@ -2,6 +2,7 @@ import { execFileSync, spawnSync } from 'node:child_process';
 import { readFileSync } from 'node:fs';
 import { resolve } from 'node:path';
 import { COMMANDS } from '../../server/src/protocol/custom-protocol';
+import { allCodes } from '../../server/src/rules/code-catalog';
 import { describe, expect, it } from 'vitest';
 
 const ROOT = resolve(__dirname, '../..');
@@ -48,7 +49,10 @@ describe('npm run package', () => {
     expect(result.status, result.stderr).toBe(0);
     const listing = execFileSync('unzip', ['-Z1', resolve(ROOT, 'rectilens.vsix')], { encoding: 'utf8' }).trim().split('\n');
     const files = listing.filter((f) => f.startsWith('extension/')).map((f) => f.slice('extension/'.length)).sort();
-    expect(files).toEqual([
+    // The rule pages the diagnostics link (docs/rules/<code>.md), one per finding code.
+    const pages = files.filter((f) => f.startsWith('docs/rules/'));
+    expect(pages.sort()).toEqual(allCodes().map((c) => `docs/rules/${c.code}.md`).sort());
+    expect(files.filter((f) => !f.startsWith('docs/rules/'))).toEqual([
       'LICENSE.txt',
       'client/snippets/netlist.json',
       'dist/analysis-worker.js',

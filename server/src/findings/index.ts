@@ -3,3 +3,4 @@ export * from './finding';
 export { withLazyFixes } from './lazy-fixes';
 export { FindingSet, withoutRepeats } from './finding-set';
 export { allowance, allowedRegions, filterAllowed, type AllowedRegion, type DirectiveInFile } from './allow';
+export { distinctFixes, type DistinctFix } from './distinct-fixes';

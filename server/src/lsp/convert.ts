@@ -7,6 +7,7 @@ import type { Span } from '../../../grammar/src/index';
 import type { Finding, TextEdit as CoreEdit } from '../findings/index';
 import { LineIndex } from '../../../grammar/src/index';
 import type { FoldRange, OutlineSymbol } from '../editor/outline';
+import { rulePageUri } from './rule-pages';
 
 const SEVERITY: Readonly<Record<Finding['severity'], DiagnosticSeverity>> = {
   error: DiagnosticSeverity.Error,
@@ -27,6 +28,8 @@ export function toDiagnostic(lines: LineIndex, finding: Finding, linesOf: (uri: 
     source: 'rectilens',
     message: finding.message,
   };
+  const page = rulePageUri(finding.code);
+  if (page) diagnostic.codeDescription = { href: page };
   const related = finding.related?.flatMap((r) => {
     const index = linesOf(r.uri);
     return index ? [{ location: { uri: r.uri, range: toRange(index, r.span) }, message: r.message }] : [];

@@ -1,6 +1,6 @@
 /** Hover, inlay hints, code lenses, quick fixes and the views: the features that show analysis results. */
 import { CodeActionKind, InlayHintKind, MarkupKind, type CodeAction, type CodeLens, type InlayHint } from 'vscode-languageserver/node';
-import { findingsInRange } from '../findings/index';
+import { distinctFixes, findingsInRange } from '../findings/index';
 import { codeLensesOf } from '../editor/code-lens';
 import { inlayHintsIn } from '../editor/inlay-hints';
 import { hoverInFile } from '../editor/stress-hover';
@@ -13,19 +13,24 @@ export function registerEditorFeatures(state: ServerState, guard: Guard): void {
   const { connection, scheduler } = state;
 
   connection.onCodeAction(guard([], async (params) => {
+    // Every action we offer is a quick fix; a request for other kinds only (source actions, refactors) gets none.
+    if (!wantsKind(params.context.only, CodeActionKind.QuickFix)) return [];
     const place = await state.freshPlaceIn(params.textDocument.uri, params.range.start);
     if (!place) return [];
     const { file, lines } = place;
     const inRange = findingsInRange(file.findings, file.uri, place.offset, lines.offsetAt(params.range.end));
     // The fixes run trial solves, so the worker computes them on its copy of this analysis.
     const fixes = await scheduler.fixesOf(file, inRange);
-    return inRange.flatMap((index, i) => (fixes[i] ?? []).map((fix): CodeAction => ({
-      title: fix.title,
-      kind: CodeActionKind.QuickFix,
-      isPreferred: fix.preferred,
-      diagnostics: params.context.diagnostics.filter((d) => d.code === file.findings[index]!.code),
-      edit: toWorkspaceEdit(fix.edits, state.linesOf),
-    })));
+    return distinctFixes(inRange, fixes).map(({ fix, offeredBy }): CodeAction => {
+      const codes = new Set(offeredBy.map((index) => file.findings[index]!.code));
+      return {
+        title: fix.title,
+        kind: CodeActionKind.QuickFix,
+        isPreferred: fix.preferred,
+        diagnostics: params.context.diagnostics.filter((d) => codes.has(String(d.code))),
+        edit: toWorkspaceEdit(fix.edits, state.linesOf),
+      };
+    });
   }));
 
   connection.onHover(guard(null, async (params) => {
@@ -51,4 +56,9 @@ export function registerEditorFeatures(state: ServerState, guard: Guard): void {
   }));
 
   connection.onRequest(VIEW_REQUEST, guard(null, (params: ViewRequest) => scheduler.viewOf(params)));
+}
+
+/** Whether a code-action request's `only` filter admits a kind (a requested kind covers its sub-kinds). */
+export function wantsKind(only: readonly string[] | undefined, kind: string): boolean {
+  return !only || only.some((k) => k === kind || kind.startsWith(`${k}.`));
 }
