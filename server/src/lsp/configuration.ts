@@ -5,7 +5,8 @@
  */
 import { CodeActionKind, TextDocumentSyncKind, type InitializeParams, type InitializeResult } from 'vscode-languageserver/node';
 import { DEFAULT_SETTINGS, validateSettings, type AnalysisSettings } from '../analysis/settings';
-import { publishPartsFiles, readPartsFiles } from './parts-files';
+import { askToWatchFiles, registerFileWatching } from './file-watching';
+import { reloadPartsFiles } from './parts-files';
 import type { ServerState } from './server-state';
 
 const CAPABILITIES: InitializeResult['capabilities'] = {
@@ -30,13 +31,19 @@ export function registerConfiguration(state: ServerState): void {
     if (options.settings) state.settings = { ...DEFAULT_SETTINGS, ...validateSettings(options.settings) };
     state.pullConfiguration = Boolean(params.capabilities.workspace?.configuration);
     state.progressSupport = Boolean(params.capabilities.window?.workDoneProgress);
+    state.watchSupport = Boolean(params.capabilities.workspace?.didChangeWatchedFiles?.dynamicRegistration);
     state.refreshSupport = {
       inlayHints: Boolean(params.capabilities.workspace?.inlayHint?.refreshSupport),
       codeLenses: Boolean(params.capabilities.workspace?.codeLens?.refreshSupport),
     };
     return { capabilities: CAPABILITIES, serverInfo: { name: 'rectilens' } };
   });
-  connection.onInitialized(() => void refreshConfiguration(state));
+  // One handler per notification: a second onInitialized would replace this one.
+  connection.onInitialized(() => {
+    void refreshConfiguration(state);
+    askToWatchFiles(state);
+  });
+  registerFileWatching(state);
   connection.onDidChangeConfiguration((change) => {
     const pushed = (change.settings as { rectilens?: AnalysisSettings } | undefined)?.rectilens;
     if (pushed) applySettings(state, pushed);
@@ -57,8 +64,7 @@ async function refreshConfiguration(state: ServerState): Promise<void> {
 function applySettings(state: ServerState, next: AnalysisSettings & { partsFiles?: unknown }): void {
   const { partsFiles: paths, ...rest } = validateSettings(next);
   state.settings = { ...DEFAULT_SETTINGS, ...rest };
-  const reading = readPartsFiles(Array.isArray(paths) ? paths.filter((p): p is string => typeof p === 'string') : [], state.trust, state.readText);
-  state.partsFiles = reading.files;
-  state.partsFilesWithFindings = publishPartsFiles(state.connection, reading, state.partsFilesWithFindings);
-  state.scheduler.schedule(state.documents.all().map((d) => d.uri));
+  state.partsFilePaths = Array.isArray(paths) ? paths.filter((p): p is string => typeof p === 'string') : [];
+  reloadPartsFiles(state);
 }
+

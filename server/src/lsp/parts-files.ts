@@ -11,6 +11,7 @@ import { LineIndex } from '../../../grammar/src/index';
 import { partsFileFindings, type PartsFileResult } from '../analysis/parts-file-findings';
 import type { PartsFile } from '../ratings/index';
 import { toDiagnostic } from './convert';
+import type { ServerState } from './server-state';
 import type { TrustPolicy } from './trust';
 
 export interface PartsFilesReading {
@@ -65,4 +66,13 @@ export function publishPartsFiles(connection: Connection, reading: PartsFilesRea
   for (const path of reading.unplaced) connection.console.warn(`rectilens: parts file '${path}' is relative and there is no workspace folder to find it in; not read`);
   for (const uri of previous) if (!now.has(uri) && !reading.results.some((r) => r.uri === uri)) void connection.sendDiagnostics({ uri, diagnostics: [] });
   return now;
+}
+
+/** Reads the parts files the settings name (again), publishes their findings and re-analyses the open documents. */
+export function reloadPartsFiles(state: ServerState): void {
+  const reading = readPartsFiles(state.partsFilePaths, state.trust, state.readText);
+  state.partsFiles = reading.files;
+  state.partsFileUris = new Set(reading.results.map((r) => r.uri));
+  state.partsFilesWithFindings = publishPartsFiles(state.connection, reading, state.partsFilesWithFindings);
+  state.scheduler.schedule(state.documents.all().map((d) => d.uri));
 }

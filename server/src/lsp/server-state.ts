@@ -41,6 +41,11 @@ export class ServerState {
   refreshSupport = { inlayHints: false, codeLenses: false };
   /** Whether the editor shows server-created progress (`window.workDoneProgress`). */
   progressSupport = false;
+  /** Whether the editor registers file watchers the server asks for. */
+  watchSupport = false;
+  /** The parts-file paths the settings name, and the URIs they were read from. */
+  partsFilePaths: string[] = [];
+  partsFileUris: ReadonlySet<string> = new Set();
   partsFiles: PartsFile[] = [];
   /** Parts files with diagnostics published, so that fixed ones are cleared. */
   partsFilesWithFindings: ReadonlySet<string> = new Set();
