@@ -1,8 +1,9 @@
 /**
  * `.include "file"` and `.lib "file" section` across files. Paths are relative to the including
- * file (posix joining; backslashes read as slashes). The core never reads a file: the adapter
- * supplies parsed files, and `listIncludeTargets` / `collectDependencies` tell it what to load.
+ * file; backslashes read as slashes. The core never reads a file: the adapter supplies parsed
+ * files, and `listIncludeTargets` / `collectDependencies` tell it what to load.
  */
+import { URI, Utils } from 'vscode-uri';
 import { key, type IncludeCard, type Item, type LibCard, type Netlist } from '../../../grammar/src/index';
 import type { FindingSet } from '../findings/index';
 import { isRefusal, refusalCode, REFUSAL_SEVERITY, type ReadRefusal } from './file-text';
@@ -26,14 +27,25 @@ export interface IncludeTarget {
   section?: string;
 }
 
-/** Joins a path written in a card onto the folder of the including file; absolute paths keep their scheme. */
+const WITH_SCHEME = /^[a-z][a-z0-9+.-]+:\/\//i;
+
+/**
+ * Joins a path written in a card onto the folder of the including file. Between URIs (the
+ * editor's) the join is vscode-uri's, so `#`, `?`, spaces and letters beyond ASCII in a file name
+ * are encoded as the editor encodes them; between plain paths (the command line's) it is a posix
+ * join. A path written as a URI is taken as it is.
+ */
 export function resolveIncludePath(fromUri: string, written: string): string {
   const path = written.replace(/\\/g, '/');
-  const scheme = /^[a-z][a-z0-9+.-]*:\/\/[^/]*/i.exec(fromUri)?.[0] ?? '';
-  if (/^[a-z][a-z0-9+.-]*:\/\//i.test(path)) return path;
-  const fromPath = fromUri.slice(scheme.length).replace(/\\/g, '/');
+  if (WITH_SCHEME.test(path)) return path;
+  if (WITH_SCHEME.test(fromUri)) {
+    const from = URI.parse(fromUri);
+    if (/^[a-z]:\//i.test(path)) return from.with({ path: `/${path}` }).toString();
+    return Utils.resolvePath(Utils.dirname(from), path).toString();
+  }
+  const fromPath = fromUri.replace(/\\/g, '/');
   const joined = path.startsWith('/') || /^[a-z]:\//i.test(path) ? path : fromPath.slice(0, fromPath.lastIndexOf('/') + 1) + path;
-  return scheme + normalizePosix(joined);
+  return normalizePosix(joined);
 }
 
 function normalizePosix(path: string): string {

@@ -4,7 +4,7 @@
  * as diagnostics on the parts file and as a log line.
  */
 import { isAbsolute, resolve } from 'node:path';
-import { fileURLToPath, pathToFileURL } from 'node:url';
+import { URI } from 'vscode-uri';
 import type { Connection } from 'vscode-languageserver/node';
 import type { FileText } from '../circuit/index';
 import { LineIndex } from '../../../grammar/src/index';
@@ -38,13 +38,16 @@ export function readPartsFiles(paths: readonly string[], trust: TrustPolicy, rea
   return reading;
 }
 
-/** A URI as given, else the path joined onto the folder (an absolute path stays itself; the gate judges it). */
+/**
+ * A URI as given, else the path joined onto the folder (an absolute path stays itself; the gate
+ * judges it), written as the editor writes URIs (vscode-uri), so a watched-file event names it alike.
+ */
 function partsFileUri(path: string, folder: string | undefined): string | undefined {
   if (/^[a-z][a-z0-9+.-]+:/i.test(path)) return path;
-  if (isAbsolute(path)) return pathToFileURL(path).href;
+  if (isAbsolute(path)) return URI.file(path).toString();
   if (!folder) return undefined;
   try {
-    return pathToFileURL(resolve(fileURLToPath(folder), path)).href;
+    return URI.file(resolve(URI.parse(folder).fsPath, path)).toString();
   } catch {
     return undefined;
   }
