@@ -20,6 +20,7 @@ const CAPABILITIES: InitializeResult['capabilities'] = {
   referencesProvider: true,
   renameProvider: { prepareProvider: true },
   foldingRangeProvider: true,
+  documentLinkProvider: { resolveProvider: false },
   completionProvider: { triggerCharacters: ['@', ' ', '='] },
 };
 

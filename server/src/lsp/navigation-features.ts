@@ -1,7 +1,7 @@
 /** Outline, folding, definition, references, rename and completion: the features that read the netlist's names. */
 import { CompletionItemKind, ErrorCodes, ResponseError } from 'vscode-languageserver/node';
 import { completeAt, modelsOf } from '../editor/completion';
-import { findDefinition, findReferences, prepareRename, rename } from '../editor/navigation';
+import { findDefinition, findReferences, includeLinksOf, prepareRename, rename } from '../editor/navigation';
 import { foldingRangesOf, outlineOf } from '../editor/outline';
 import { toDocumentSymbol, toFoldingRange, toRange, toWorkspaceEdit } from './convert';
 import type { Guard } from './request-guard';
@@ -48,11 +48,15 @@ export function registerNavigationFeatures(state: ServerState, guard: Guard): vo
     const edits = rename(state.fileSet(place.file.uri), place.offset, params.newName);
     return 'error' in edits ? new ResponseError(ErrorCodes.InvalidRequest, edits.error) : toWorkspaceEdit(edits, state.linesOf);
   }));
+  connection.onDocumentLinks(guard([], (params) => {
+    const place = state.placeIn(params.textDocument.uri);
+    return place ? includeLinksOf(place.file.uri, place.file.netlist).map((l) => ({ range: toRange(place.lines, l.span), target: l.target })) : [];
+  }));
   connection.onCompletion(guard([], (params) => {
     const current = state.currentParse(params.textDocument.uri);
     if (!current) return [];
-    // Models defined in included files come from the last analysis; everything else from the text as it is now.
-    const included = state.fileSet(params.textDocument.uri).flatMap((f) => [...f.parsed].filter(([uri]) => uri !== f.uri).map(([, n]) => n));
+    // Models defined in the other files of the netlist come from the last analyses; everything else from the text as it is now.
+    const included = state.fileSet(params.textDocument.uri).slice(1).map((f) => f.netlist);
     const models = [current.netlist, ...included].flatMap(modelsOf);
     return completeAt(current.netlist, current.document.offsetAt(params.position), models).map((item) => ({
       label: item.label, kind: COMPLETION_KIND[item.kind], detail: item.detail, insertText: item.insertText,

@@ -82,10 +82,22 @@ export class ServerState {
     return typeof text === 'string' ? new LineIndex(text) : undefined;
   };
 
-  /** The analysis of a root and of the files it includes, root first. */
+  /**
+   * The files of the netlist a file belongs to, it first: the files its analysis read and those of
+   * every root that reads it. For the file itself its parse as an include is preferred when the text
+   * is the same (an include's first line is a card, not a title).
+   */
   fileSet(uri: string): FileSet {
-    const root = this.scheduler.get(uri);
-    return root ? [root] : [];
+    const own = this.scheduler.get(uri);
+    const analyses = [own, ...this.scheduler.dependentsOf(uri).filter((u) => u !== uri).map((u) => this.scheduler.get(u))]
+      .filter((a): a is FileAnalysis => a !== undefined);
+    const files = new Map<string, Netlist>();
+    const asInclude = analyses.slice(1).map((a) => a.parsed.get(uri)).find((n) => n && (!own || n.text === own.text));
+    const self = asInclude ?? own?.netlist;
+    if (!self) return [];
+    files.set(uri, self);
+    for (const a of analyses) for (const [u, n] of a.parsed) if (!files.has(u)) files.set(u, n);
+    return [...files].map(([u, netlist]) => ({ uri: u, netlist }));
   }
 
   /** A file's last analysis with its line index, and the offset of a position in it (0 without one). */
