@@ -9,7 +9,7 @@ import { resolvePolicy, type DeratingPolicy, type PartsFile } from '../ratings/i
 import { recognizeRectifiers, type NearMiss } from '../recognize/index';
 import { applyRules } from '../rules/registry';
 import { allowance, boundMessages, compareFindings, withoutRepeats, type Finding } from '../findings/index';
-import { includedErrorFindings } from './included-errors';
+import { includedErrorFindings, withIncludingPlace } from './included-errors';
 import { analyseRectifiers, type RectifierAnalysis } from '../equivalent/index';
 import { memoisedSolver, type SolutionCache, type SolveFn } from '../solve/index';
 import type { AnalysisSettings } from './settings';
@@ -114,7 +114,7 @@ function analyzeRoot(uri: string, input: AnalysisInput, cache: Map<string, Netli
   const judged = [...recognition.diagnostics, ...assumptions, ...limitFindings, ...ruleFindings].filter((f) => !allowed(f));
   const own = withoutRepeats([...syntax, ...flat.diagnostics, ...judged]);
   const included = includedErrorFindings(uri, parsed, own).filter((f) => !allowed(f));
-  const findings = boundMessages([...own, ...included]).sort(compareFindings);
+  const findings = boundMessages(withIncludingPlace(uri, parsed, [...own, ...included])).sort(compareFindings);
   return {
     uri, text: netlist.text, netlist, findings, dependencies: flat.dependencies.filter((d) => d !== uri), parsed, flat, policy,
     rectifiers: analyses, nearMisses: recognition.nearMisses,

@@ -43,6 +43,21 @@ export function includedErrorFindings(rootUri: string, parsed: ReadonlyMap<strin
   });
 }
 
+/**
+ * Findings about an included file keep their own file and gain the root's card that leads to it
+ * as a related place, so a reader of either file finds the other.
+ */
+export function withIncludingPlace(rootUri: string, parsed: ReadonlyMap<string, Netlist>, findings: Finding[]): Finding[] {
+  if (!findings.some((f) => f.uri !== rootUri)) return findings;
+  const entries = entryCards(rootUri, parsed);
+  for (const f of findings) {
+    const entry = f.uri === rootUri ? undefined : entries.get(f.uri);
+    // In place: copying would read `fixes`, which some findings compute on first read.
+    if (entry) f.related = [...(f.related ?? []), { uri: rootUri, span: entry.span, message: `${f.uri} is included from here` }];
+  }
+  return findings;
+}
+
 /** For every file reached from the root, the root's card it is reached through first (breadth first, each file once). */
 function entryCards(rootUri: string, parsed: ReadonlyMap<string, Netlist>): Map<string, { span: Span; written: string }> {
   const entries = new Map<string, { span: Span; written: string }>();

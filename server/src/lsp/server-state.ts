@@ -8,6 +8,7 @@ import { TextDocuments, type Connection } from 'vscode-languageserver/node';
 import { TextDocument } from 'vscode-languageserver-textdocument';
 import { parseNetlist, type Netlist } from '../../../grammar/src/index';
 import type { FileAnalysis } from '../analysis/analyze';
+import { withoutRepeats, type Finding } from '../findings/index';
 import { LineIndex, lineIndexOf } from '../../../grammar/src/index';
 import { DEFAULT_SETTINGS, type AnalysisSettings } from '../analysis/settings';
 import type { FileText } from '../circuit/index';
@@ -131,13 +132,57 @@ export class ServerState {
     return { netlist: parseNetlist(document.getText(), { previous: file?.netlist }), document };
   }
 
+  /**
+   * Each root's findings by the file they are about: a file's diagnostics are the union over the
+   * roots that read it, so an include's own errors show on the include, open or not.
+   */
+  private readonly findingsByFile = new Map<string, Map<string, Finding[]>>();
+
   private publish(file: FileAnalysis, version: number | undefined): void {
-    const lines = lineIndexOf(file);
-    const diagnostics = file.findings.filter((f) => f.uri === file.uri).map((f) => toDiagnostic(lines, f, this.linesOf));
-    void this.connection.sendDiagnostics({ uri: file.uri, version, diagnostics });
+    const touched = this.dropContributions(file.uri);
+    touched.add(file.uri);
+    const byUri = new Map<string, Finding[]>();
+    for (const f of file.findings) byUri.set(f.uri, [...(byUri.get(f.uri) ?? []), f]);
+    for (const [uri, list] of byUri) {
+      let roots = this.findingsByFile.get(uri);
+      if (!roots) this.findingsByFile.set(uri, (roots = new Map()));
+      roots.set(file.uri, list);
+      touched.add(uri);
+    }
+    for (const uri of touched) this.publishFile(uri, uri === file.uri ? version : undefined);
     // An editor that asked for hints or lenses before this analysis asks again.
     if (this.refreshSupport.inlayHints) void this.connection.languages.inlayHint.refresh().catch(() => undefined);
     if (this.refreshSupport.codeLenses) void this.connection.sendRequest('workspace/codeLens/refresh').catch(() => undefined);
+  }
+
+  /** A closed root's findings leave the files they were about; what other roots say of them stays published. */
+  forgetRoot(uri: string): void {
+    this.scheduler.forget(uri);
+    for (const touched of this.dropContributions(uri)) this.publishFile(touched, undefined);
+  }
+
+  private dropContributions(root: string): Set<string> {
+    const touched = new Set<string>();
+    for (const [uri, roots] of this.findingsByFile) {
+      if (roots.delete(root)) touched.add(uri);
+      if (roots.size === 0) this.findingsByFile.delete(uri);
+    }
+    return touched;
+  }
+
+  /**
+   * The diagnostics of one file from every root that read it. A file that another root includes is
+   * shown as that root reads it (an include's first line is a card): its own analysis as a root,
+   * which reads the first line as a title, is left out then.
+   */
+  private publishFile(uri: string, version: number | undefined): void {
+    const roots = this.findingsByFile.get(uri) ?? new Map<string, Finding[]>();
+    const included = [...roots.keys()].some((root) => root !== uri);
+    const findings = withoutRepeats([...roots].filter(([root]) => !included || root !== uri).flatMap(([, list]) => list));
+    const lines = findings.length ? this.linesOf(uri) : undefined;
+    if (findings.length && !lines) return;
+    const diagnostics = lines ? findings.map((f) => toDiagnostic(lines, f, this.linesOf)) : [];
+    void this.connection.sendDiagnostics(version === undefined ? { uri, diagnostics } : { uri, version, diagnostics });
   }
 
   private publishStopped(uri: string, version: number | undefined, stop: AnalysisStop): void {

@@ -19,10 +19,7 @@ export function startServer(connection: Connection): void {
 
   registerConfiguration(state);
   documents.onDidChangeContent((change) => scheduler.schedule(scheduler.dependentsOf(change.document.uri).concat(change.document.uri)));
-  documents.onDidClose((event) => {
-    scheduler.forget(event.document.uri);
-    void connection.sendDiagnostics({ uri: event.document.uri, diagnostics: [] });
-  });
+  documents.onDidClose((event) => state.forgetRoot(event.document.uri));
   registerNavigationFeatures(state, guard);
   registerEditorFeatures(state, guard);
   registerDocumentTextRequest(connection, documents);
