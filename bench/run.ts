@@ -4,11 +4,13 @@ import type { BenchFigure } from './measure';
 import { runLspBench } from './lsp-bench';
 import { runParseBench } from './parse-bench';
 import { runSolveBench } from './solve-bench';
+import { runRectifierBench } from './rectifier-bench';
 
 async function main(): Promise<void> {
   const sections: [string, BenchFigure[]][] = [
     ['parse', runParseBench()],
     ['steady state', (await runSolveBench()).map(withVerdict)],
+    ['one rectifier', runRectifierBench()],
     ['language server', await runLspBench()],
   ];
   for (const [section, figures] of sections) {

@@ -10,9 +10,10 @@ import { displayNumber, displayPercent } from './display';
 /** At −100 % or below, low line is 0 V or a negative voltage: no line falls that far. */
 export function lowLineProblem(written: string, mains: MainsDirective): string | undefined {
   if (mains.tolLow === undefined || mains.tolLow > -1) return undefined;
-  const lowV = mains.vrms === undefined
+  const lowest = mains.vrmsRange?.[0] ?? mains.vrms;
+  const lowV = lowest === undefined
     ? ''
-    : ` puts low line at ${displayNumber(mains.vrms * (1 + mains.tolLow))} V (${displayNumber(mains.vrms)} V × (1 − ${displayPercent(-mains.tolLow)}))`;
+    : ` puts low line at ${displayNumber(lowest * (1 + mains.tolLow))} V (${displayNumber(lowest)} V × (1 − ${displayPercent(-mains.tolLow)}))`;
   return `tol=${written}${lowV}; the low side must stay above −100 %; the tolerance is ignored`;
 }
 

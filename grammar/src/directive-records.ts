@@ -7,9 +7,13 @@ import type { Name, Span } from './syntax-tree';
 export interface MainsDirective {
   keyword: 'mains';
   span: Span;
-  /** RMS volts: line-to-neutral for one phase, line-to-line when `phases` is 3. */
+  /** RMS volts: line-to-neutral for one phase, line-to-line when `phases` is 3. The highest of a range. */
   vrms?: number;
+  /** A universal input `100V..240V`: the lowest and highest nominal; `vrms` is the highest. */
+  vrmsRange?: [number, number];
+  /** The first frequency written; with several (`50Hz,60Hz`), `freqsHz` lists them all, ascending. */
   freqHz?: number;
+  freqsHz?: number[];
   /** Line tolerance as fractions, e.g. −0.15 and +0.10. */
   tolLow?: number;
   tolHigh?: number;
@@ -32,6 +36,8 @@ export interface LoadDirective {
   keyword: 'load';
   span: Span;
   load?: LoadSpec;
+  /** A range `0.2W..12W`: `load` is the full end (most power or current, least resistance), this the light end. */
+  lightLoad?: LoadSpec;
   /** Lowest output voltage the load works down to (for hold-up time). */
   vminV?: number;
 }
@@ -43,6 +49,8 @@ export const RATING_KEYS = [
   'vrated', 'iripple', 'esr',
   'vmin', 'iq',
   'cost',
+  'tol', 'life', 'esrlife', 'vfspread',
+  'hot', 'endurance', 'rth',
 ] as const;
 export type RatingKey = (typeof RATING_KEYS)[number];
 
@@ -60,6 +68,10 @@ export interface RatingEntry {
   points?: ForwardPoint[];
   /** `ifsm=30A@10ms`: the surge duration the rating is given for. */
   durationS?: number;
+  /** `endurance=5000h@105C`: the temperature the rated life is given at. */
+  atC?: number;
+  /** A two-sided spread, low then high (`tol=-20%,+20%` as fractions, `vfspread=-0.05V,+0.1V`); `value` is absent. */
+  range?: [number, number];
 }
 
 export interface RateDirective {
@@ -70,13 +82,13 @@ export interface RateDirective {
   entries: RatingEntry[];
 }
 
-export const DERATE_KEYS = ['vr', 'if', 'ifsm', 'tj', 'cap', 'ripple', 'vds', 'id'] as const;
+export const DERATE_KEYS = ['vr', 'if', 'ifsm', 'tj', 'cap', 'ripple', 'vds', 'id', 'life'] as const;
 export type DerateKey = (typeof DERATE_KEYS)[number];
 
 export interface DerateEntry {
   key: DerateKey;
   span: Span;
-  /** A fraction of the rating (`vr=80%` → 0.8) or, for `tj`, a temperature in °C. */
+  /** A fraction of the rating (`vr=80%` → 0.8); for `tj` a temperature in °C; for `life` hours. */
   value: number;
 }
 

@@ -6,7 +6,7 @@
 import {
   DERATE_KEYS, DIRECTIVE_KEYWORDS, RATING_KEYS,
   type AllowDirective, type AmbientDirective, type DerateDirective, type DerateKey, type Directive,
-  type ForwardPoint, type LoadDirective, type MainsDirective, type RateDirective, type RatingEntry, type RatingKey,
+  type ForwardPoint, type LoadDirective, type LoadSpec, type MainsDirective, type RateDirective, type RatingEntry, type RatingKey,
 } from './directive-records';
 import type { Span, SyntaxDiagnostic } from './syntax-tree';
 import { loadProblem, lowLineProblem, surgeDurationProblem } from './directive-checks';
@@ -67,12 +67,12 @@ function splitKeyValue(word: Word): { key: string; value?: Word } {
 const UNIT_NAMES: Readonly<Record<string, string>> = {
   V: 'a voltage such as 230V', Hz: 'a frequency such as 50Hz', C: 'a temperature such as 60C', '%': 'a percentage such as 80%',
   A: 'a current such as 1A', W: 'a power such as 45W', ohm: 'a resistance such as 33ohm', s: 'a time such as 10ms',
-  'K/W': 'a thermal resistance such as 60 (K/W)', '': 'a number',
+  'K/W': 'a thermal resistance such as 60 (K/W)', h: 'a time in hours such as 5000h', '': 'a number',
 };
 
 const UNIT_SPELLINGS: Readonly<Record<string, readonly string[]>> = {
   V: ['v', 'volt', 'volts'], Hz: ['hz'], C: ['c', '°c', '°'], '%': ['%'], A: ['a', 'amp', 'amps'], W: ['w', 'watt', 'watts'],
-  ohm: ['ohm', 'ohms', 'Ω', 'r'], s: ['s', 'sec'], 'K/W': ['k/w', 'c/w', '°c/w'], '': [],
+  ohm: ['ohm', 'ohms', 'Ω', 'r'], s: ['s', 'sec'], 'K/W': ['k/w', 'c/w', '°c/w'], h: ['h', 'hr', 'hrs', 'hour', 'hours'], '': [],
 };
 
 /** Reads a number in the expected unit (written or omitted); reports and returns undefined otherwise. */
@@ -114,15 +114,57 @@ function readMains(words: Word[], span: Span, report: Report): MainsDirective {
       if (phases === 1 || phases === 3) record.phases = phases;
       else if (phases !== undefined) report(value, `phases must be 1 or 3, got '${value.text}'`);
     } else if (value) report(word, `unknown mains key '${key}'; expected tol or phases`);
-    else if (unitOf(word) === 'Hz') record.freqHz = readPositive(word, 'Hz', 'a mains frequency', report);
+    else if (pieces(word, ',').every((w) => unitOf(w) === 'Hz')) readFrequencies(word, record, report);
     else if (!voltage) {
       voltage = word;
-      record.vrms = readPositive(word, 'V', 'a mains voltage', report);
-    } else report(word, `unexpected '${word.text}'; mains takes a voltage, a frequency, tol= and phases=`);
+      readMainsVoltage(word, record, report);
+    } else report(word, `unexpected '${word.text}'; mains takes a voltage (or a range such as 100V..240V), frequencies, tol= and phases=`);
   }
   if (!voltage) report(span, 'mains needs a voltage such as 230V');
   if (tolerance) checkLowLine(tolerance, record, report);
   return record;
+}
+
+/** The pieces of a word between separators, each keeping its offset. */
+function pieces(word: Word, separator: string): Word[] {
+  const out: Word[] = [];
+  let start = word.start;
+  for (const text of word.text.split(separator)) {
+    out.push({ text, start, end: start + text.length });
+    start += text.length + separator.length;
+  }
+  return out;
+}
+
+/** `230V`, or a universal input `100V..240V` (lowest first): `vrms` is then the highest. */
+function readMainsVoltage(word: Word, record: MainsDirective, report: Report): void {
+  const ends = pieces(word, '..');
+  if (ends.length === 1) {
+    record.vrms = readPositive(word, 'V', 'a mains voltage', report);
+    return;
+  }
+  if (ends.length !== 2) {
+    report(word, `a mains range is written lowest..highest, e.g. 100V..240V; got '${word.text}'`);
+    return;
+  }
+  const low = readPositive(ends[0]!, 'V', 'a mains voltage', report);
+  const high = readPositive(ends[1]!, 'V', 'a mains voltage', report);
+  if (low === undefined || high === undefined) return;
+  if (low > high) report(word, 'a mains range is written lowest..highest, e.g. 100V..240V');
+  else {
+    record.vrms = high;
+    if (low < high) record.vrmsRange = [low, high];
+  }
+}
+
+/** `50Hz` or several, `50Hz,60Hz`: `freqHz` is the first written, `freqsHz` all of them ascending. */
+function readFrequencies(word: Word, record: MainsDirective, report: Report): void {
+  const read = pieces(word, ',').map((w) => readPositive(w, 'Hz', 'a mains frequency', report));
+  const freqs = read.filter((f): f is number => f !== undefined);
+  if (freqs.length === 0) return;
+  record.freqHz = freqs[0];
+  const distinct = [...new Set(freqs)].sort((a, b) => a - b);
+  if (distinct.length > 1) record.freqsHz = distinct;
 }
 
 /** A quantity that must be above zero (a line of 0 Hz has no period, one of 0 V no figures). */
@@ -197,27 +239,58 @@ function readLoad(words: Word[], span: Span, report: Report): LoadDirective {
       if (vminV !== undefined && vminV < 0) report(value, `vmin must not be negative, got '${value.text}'; it is ignored`);
       else record.vminV = vminV;
     } else if (value) report(word, `unknown load key '${key}'; expected vmin`);
-    else if (record.load) report(word, `unexpected '${word.text}'; load takes one of W, A or ohm`);
-    else {
-      const unit = unitOf(word);
-      const kind = unit === 'W' ? 'power' : unit === 'A' ? 'current' : unit === 'ohm' ? 'resistance' : undefined;
-      if (!kind) report(word, `load needs a unit: 45W (constant power), 0.8A (constant current) or 33ohm, got '${word.text}'`);
-      else {
-        const amount = readQuantity(word, unit!, report, span);
-        const problem = amount === undefined ? undefined : loadProblem(kind, amount);
-        if (problem) report(word, problem);
-        else if (amount !== undefined) record.load = kind === 'power' ? { kind, w: amount } : kind === 'current' ? { kind, a: amount } : { kind, ohm: amount };
-      }
-    }
+    else if (record.load) report(word, `unexpected '${word.text}'; load takes one of W, A or ohm, or a range such as 0.2W..12W`);
+    else readLoadAmounts(word, record, report, span);
   }
   if (!record.load && words.length === 0) report(span, 'load needs a value such as 45W, 0.8A or 33ohm');
   return record;
 }
 
+/** One load (`12W`) or a range of one unit (`0.2W..12W`, `5mA..150mA`, `1kohm..100ohm`), either order. */
+function readLoadAmounts(word: Word, record: LoadDirective, report: Report, span: Span): void {
+  const ends = pieces(word, '..');
+  if (ends.length > 2) {
+    report(word, `a load range has two ends, e.g. 0.2W..12W; got '${word.text}'`);
+    return;
+  }
+  const specs: LoadSpec[] = [];
+  for (const end of ends) {
+    const unit = unitOf(end);
+    const kind = unit === 'W' ? 'power' : unit === 'A' ? 'current' : unit === 'ohm' ? 'resistance' : undefined;
+    if (!kind) {
+      report(end, `load needs a unit: 45W (constant power), 0.8A (constant current) or 33ohm, got '${end.text}'`);
+      return;
+    }
+    const amount = readQuantity(end, unit!, report, span);
+    const problem = amount === undefined ? undefined : loadProblem(kind, amount);
+    if (problem) report(end, problem);
+    if (problem || amount === undefined) return;
+    specs.push(kind === 'power' ? { kind, w: amount } : kind === 'current' ? { kind, a: amount } : { kind, ohm: amount });
+  }
+  if (specs.length === 2 && specs[0]!.kind !== specs[1]!.kind) {
+    report(word, `both ends of a load range take one unit (W, A or ohm), e.g. 0.2W..12W; got '${word.text}'`);
+    return;
+  }
+  // The full end draws the most: the larger power or current, the smaller resistance.
+  let [full, light] = [specs[0]!, specs[1]];
+  if (light && (full.kind === 'resistance' ? loadAmount(light) < loadAmount(full) : loadAmount(light) > loadAmount(full))) [full, light] = [light, full];
+  record.load = full;
+  if (light && loadAmount(light) !== loadAmount(full)) record.lightLoad = light;
+}
+
+function loadAmount(spec: LoadSpec): number {
+  return spec.kind === 'power' ? spec.w : spec.kind === 'current' ? spec.a : spec.ohm;
+}
+
 const RATING_UNITS: Readonly<Record<RatingKey, string>> = {
   vrrm: 'V', ifav: 'A', ifsm: 'A', tjmax: 'C', rthja: 'K/W', vf: 'V', vds: 'V', id: 'A', rdson: 'ohm', vsd: 'V',
   vrated: 'V', iripple: 'A', esr: 'ohm', vmin: 'V', iq: 'A', cost: '',
+  tol: '%', life: '%', esrlife: '', vfspread: 'V',
+  hot: 'ohm', endurance: 'h', rth: 'K/W',
 };
+
+/** Keys whose value is a spread `low,high` (or one magnitude for ±). */
+const RANGE_RATINGS: ReadonlySet<RatingKey> = new Set(['tol', 'vfspread']);
 
 function readRate(words: Word[], span: Span, report: Report): RateDirective {
   const target = words.shift();
@@ -251,10 +324,22 @@ function readRatingEntry(word: Word, report: Report): RatingEntry | undefined {
     const points = readForwardPoints(value, report);
     return points ? { key: ratingKey, span, points } : undefined;
   }
+  if (RANGE_RATINGS.has(ratingKey)) {
+    const range = readSpread(value, RATING_UNITS[ratingKey], key, report);
+    return range ? { key: ratingKey, span, range } : undefined;
+  }
   const [amount, duration] = splitAt(value);
   const entry: RatingEntry = { key: ratingKey, span, value: readQuantity(amount, RATING_UNITS[ratingKey], report, word) };
-  if (duration) {
-    if (ratingKey !== 'ifsm') report(duration, `only ifsm takes a duration after '@'`);
+  if (!duration && ratingKey === 'endurance') {
+    report(word, `endurance is the rated life at a temperature, hours@temperature, e.g. endurance=5000h@105C`);
+    return undefined;
+  }
+  if (duration && ratingKey === 'endurance') {
+    const atC = readQuantity(duration, 'C', report, duration);
+    if (atC === undefined) return undefined;
+    entry.atC = atC;
+  } else if (duration) {
+    if (ratingKey !== 'ifsm') report(duration, `only ifsm takes a duration after '@' (and endurance a temperature)`);
     else {
       const durationS = readSurgeDuration(duration, report);
       if (durationS === undefined) return undefined;
@@ -266,7 +351,33 @@ function readRatingEntry(word: Word, report: Report): RatingEntry | undefined {
     report(word, `rating '${key}' must be above zero`);
     return undefined;
   }
+  // Ageing only loses capacitance and only raises ESR.
+  if (entry.value !== undefined && ratingKey === 'life' && !(entry.value <= 0 && entry.value > -1)) {
+    report(word, `life is the capacitance lost over life, from 0 % down to above −100 %, e.g. life=-20%`);
+    return undefined;
+  }
+  if (entry.value !== undefined && ratingKey === 'esrlife' && !(entry.value >= 1)) {
+    report(word, `esrlife is the factor ESR rises by at end of life, 1 or more, e.g. esrlife=2`);
+    return undefined;
+  }
   return entry.value === undefined ? undefined : entry;
+}
+
+/** `low,high` with low ≤ 0 ≤ high, or one magnitude read as ±; percentages as fractions (a tolerance stays above −100 %). */
+function readSpread(value: Word, unit: string, key: string, report: Report): [number, number] | undefined {
+  const parts = pieces(value, ',');
+  if (parts.length > 2) {
+    report(value, `${key} is written low,high, e.g. ${key}=${unit === '%' ? '-20%,+20%' : '-0.05V,+0.1V'}`);
+    return undefined;
+  }
+  const read = parts.map((p) => readQuantity(p, unit, report, value));
+  if (read.some((v) => v === undefined)) return undefined;
+  const range: [number, number] = read.length === 1 ? [-Math.abs(read[0]!), Math.abs(read[0]!)] : [read[0]!, read[1]!];
+  if (range[0] > 0 || range[1] < 0 || (unit === '%' && range[0] <= -1)) {
+    report(value, `${key} is written low,high around zero, e.g. ${key}=${unit === '%' ? '-20%,+20%' : '-0.05V,+0.1V'}${unit === '%' ? ', the low side above −100 %' : ''}`);
+    return undefined;
+  }
+  return range;
 }
 
 function readSurgeDuration(duration: Word, report: Report): number | undefined {
@@ -276,7 +387,7 @@ function readSurgeDuration(duration: Word, report: Report): number | undefined {
   return problem ? undefined : durationS;
 }
 
-const POSITIVE_RATINGS: ReadonlySet<RatingKey> = new Set(['vrrm', 'ifav', 'ifsm', 'vds', 'id', 'vrated', 'iripple']);
+const POSITIVE_RATINGS: ReadonlySet<RatingKey> = new Set(['vrrm', 'ifav', 'ifsm', 'vds', 'id', 'vrated', 'iripple', 'hot', 'endurance', 'rth']);
 
 function splitAt(word: Word): [Word, Word | undefined] {
   const at = word.text.indexOf('@');
@@ -315,9 +426,10 @@ function readDerate(words: Word[], span: Span, report: Report): DerateDirective 
       report(word, `expected key=value with a key among ${DERATE_KEYS.join(', ')}, got '${word.text}'`);
       continue;
     }
-    const amount = readQuantity(value, key === 'tj' ? 'C' : '%', report, word);
+    const amount = readQuantity(value, key === 'tj' ? 'C' : key === 'life' ? 'h' : '%', report, word);
     if (amount === undefined) continue;
-    if (key !== 'tj' && (amount <= 0 || amount > 1)) report(value, `a derating fraction lies between 0 and 100 %, got '${value.text}'`);
+    if (key === 'life' && !(amount > 0)) report(value, `life is the capacitor life asked for, in hours above zero, e.g. life=50000h; got '${value.text}'`);
+    else if (key !== 'tj' && key !== 'life' && (amount <= 0 || amount > 1)) report(value, `a derating fraction lies between 0 and 100 %, got '${value.text}'`);
     else record.entries.push({ key: key as DerateKey, span: { start: word.start, end: word.end }, value: amount });
   }
   return record;

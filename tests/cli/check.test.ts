@@ -1,5 +1,5 @@
 import { execFileSync, spawnSync } from 'node:child_process';
-import { mkdtempSync, writeFileSync } from 'node:fs';
+import { mkdirSync, mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
@@ -81,5 +81,56 @@ describe('rectilens check', () => {
     expect(result.status).toBe(1);
     expect(result.stdout).toMatch(/error syntax-error/);
     expect(execFileSync('node', ['dist/cli.js', 'help'], { encoding: 'utf8' })).toMatch(/usage:/);
+  });
+});
+
+// No silent pass (issue 16, item 4): a typo that removes a rectifier, or an AC source with diodes in no
+// recognised rectifier, exits 1; a folder or pattern with no netlist exits 2 with a message. Our own fixtures.
+/** A 24 V rms bridge packaged in a subcircuit, with the instance naming `subckt`. */
+function packaged(subckt: string): string {
+  return [
+    'packaged 24 V bridge', '*@ mains 24V 50Hz', '*@ load 10W',
+    '*@ rate DR vrrm=100V ifav=1A ifsm=30A tjmax=150C rthja=80', '*@ rate CB vrated=50V iripple=2A',
+    'V1 L N SIN(0 33.9 50)', 'RS L A 1', `XB A N P 0 ${subckt}`, 'CB P 0 2200u',
+    '.subckt BRIDGE4 ac1 ac2 pos neg', 'D1 ac1 pos DR', 'D2 ac2 pos DR', 'D3 neg ac1 DR', 'D4 neg ac2 DR', '.ends BRIDGE4',
+    '.model DR D(IS=5n N=1.8 RS=0.05)', '.end', '',
+  ].join('\n');
+}
+
+describe('rectilens check: no silent pass', () => {
+  it('exits 0 on the bridge as meant, 1 when its subcircuit name is mistyped', () => {
+    const dir = folderWith({ 'good.cir': packaged('BRIDGE4'), 'typo.cir': packaged('BRDIGE4') });
+    expect(run('check', join(dir, 'good.cir')).code).toBe(0);
+    const typo = run('check', join(dir, 'typo.cir'));
+    expect(typo.code).toBe(1);
+    expect(typo.stdout).toContain("error unknown-subckt: no .subckt 'BRDIGE4' is defined");
+    expect(typo.stdout).toContain("did you mean 'BRIDGE4'?");
+  });
+
+  it('exits 1 on an AC source with diodes in no recognised rectifier, 0 once the designer allows it', () => {
+    const clamp = 'clamp\nV1 a 0 SIN(0 10 50)\nR1 a b 1k\nD1 b 0 DC\nD2 0 b DC\n.model DC D\n.end\n';
+    const dir = folderWith({ 'clamp.cir': clamp, 'allowed.cir': clamp.replace('clamp\n', 'clamp\n*@ allow no-rectifier\n') });
+    const result = run('check', join(dir, 'clamp.cir'));
+    expect(result.code).toBe(1);
+    expect(result.stdout).toContain('error no-rectifier:');
+    expect(run('check', join(dir, 'allowed.cir')).code).toBe(0);
+  });
+
+  it('exits 2 with a message for a folder holding no netlist, even beside one that does', () => {
+    const dir = folderWith({ 'notes.txt': 'not a netlist\n' });
+    mkdirSync(join(dir, 'node_modules'));
+    writeFileSync(join(dir, 'node_modules', 'x.cir'), 'skipped\n');
+    const empty = run('check', dir);
+    expect(empty.code).toBe(2);
+    expect(empty.stderr).toBe(`rectilens: no netlist in ${dir} (looked for .cir, .net, .sp, .spi, .ckt files, skipping node_modules, .git, dist, out and hidden folders)\n`);
+    const withOther = run('check', dir, folderWith({ 'ok.cir': packaged('BRIDGE4') }));
+    expect(withOther.code).toBe(2);
+  });
+
+  it('exits 2 for a pattern the shell left unexpanded, saying no file matches it', () => {
+    const dir = folderWith({});
+    const result = run('check', join(dir, '*.cir'));
+    expect(result.code).toBe(2);
+    expect(result.stderr).toContain('no file matches this pattern');
   });
 });

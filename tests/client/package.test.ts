@@ -63,6 +63,7 @@ describe('npm run package', () => {
       'package.json',
       'readme.md',
       'server/src/ratings/parts-file.schema.json',
+      'server/src/ratings/project-config.schema.json',
     ]);
   });
 });

@@ -35,6 +35,14 @@ const EXPECTED: Record<string, Expectation> = {
     present: { 'reversed-device': ['D3'], 'piv-margin': ['D5', 'D6', 'D7', 'D8'], 'cap-voltage': ['CSMALL'] },
     absent: ['surge-rating'], mains: true,
   },
+  'universal-adapter-90-264v.cir': {
+    kinds: ['diode-bridge'], present: { 'cap-voltage': ['CBULK'], 'hazardous-voltage': ['VMAINS'] },
+    absent: ['piv-margin', 'surge-rating', 'current-rating', 'junction-temp', 'cap-ripple'], mains: true,
+  },
+  'ntc-restart-65w.cir': {
+    kinds: ['diode-bridge'], present: { 'surge-rating': ['D1', 'D2', 'D3', 'D4'], 'cap-life': ['CBULK'], 'hazardous-voltage': ['VMAINS'] },
+    absent: ['piv-margin', 'current-rating', 'cap-voltage', 'cap-ripple', 'junction-temp'], mains: true,
+  },
   'motor-drive-3ph-400v.cir': {
     kinds: ['three-phase-bridge'], present: { 'surge-rating': [], 'harmonic-limit': [] }, absent: ['piv-margin', 'cap-voltage', 'junction-temp'], mains: true,
   },
@@ -94,6 +102,22 @@ describe('examples', () => {
     const piv = Math.max(...analyseExample('motor-drive-3ph-400v.cir').rectifiers[0]!.solution.devices.map((d) => d.pivV!.value));
     expect(piv).toBeLessThanOrEqual(vllPeakV);
     expect(piv).toBeGreaterThan(vllPeakV * 0.97);
+  });
+
+  it('universal adapter: PIV and capacitor voltage at 264 V in standby, hold-up at 90 V 50 Hz with the smallest capacitor', () => {
+    const r = analyseExample('universal-adapter-90-264v.cir').rectifiers[0]!;
+    const byName = new Map(r.solution.corners.map((c) => [c.name, c]));
+    const piv = r.solution.devices[0]!.pivV!;
+    // REFERENCES.md §1: bridge PIV = Vm, here the crest of 240 V + 10 %, less the drops.
+    expect(byName.get(piv.corner)!.lineVrms).toBeCloseTo(264, 9);
+    expect(piv.value).toBeLessThanOrEqual(264 * Math.SQRT2);
+    expect(piv.value).toBeGreaterThan(264 * Math.SQRT2 * 0.99);
+    expect(r.solution.worst.vOutMaxV!.corner).toBe('high-line hot light-load');
+    const hold = byName.get(r.solution.worst.holdUpS!.corner)!;
+    expect([hold.lineVrms, hold.freqHz]).toEqual([expect.closeTo(90, 9), 50]);
+    expect(hold.parts).toEqual({ capacitance: 'min', esr: 'aged', vf: 'high' });
+    // The smallest capacitance: 47 µF × (1 − 20 %) × (1 − 20 %) (tol= and life=).
+    expect(r.circuit.capacitors[0]!.cMinF).toBeCloseTo(47e-6 * 0.8 * 0.8, 15);
   });
 
   it('every example in examples/ has an expectation here', () => {

@@ -65,6 +65,23 @@ describe('directives', () => {
     expect(derate.entries.map((e) => [e.key, e.value])).toEqual([['vr', 0.8], ['if', 0.7], ['tj', 125], ['cap', 0.8]]);
   });
 
+  it('rate: an NTC limiter’s hot resistance, a capacitor’s endurance at a temperature and its thermal resistance', () => {
+    const ntc = one('*@ rate RNTC hot=1.5ohm', 'rate');
+    expect(ntc.entries.map((e) => [e.key, e.value])).toEqual([['hot', 1.5]]);
+    const cap = one('*@ rate CB endurance=5kh@105C rth=25', 'rate');
+    expect(cap.entries.map((e) => [e.key, e.value, e.atC])).toEqual([['endurance', 5000, 105], ['rth', 25, undefined]]);
+  });
+
+  it('derate: a capacitor life in hours', () => {
+    expect(one('*@ derate life=50000h', 'derate').entries.map((e) => [e.key, e.value])).toEqual([['life', 50000]]);
+  });
+
+  it('reports an endurance without its temperature, a non-positive hot value and a life that is no number of hours', () => {
+    const { diagnostics, text } = directives('*@ rate CB endurance=5000h\n*@ rate RNTC hot=0\n*@ derate life=80%\n*@ rate CB endurance=5000h@hot');
+    expect(diagnostics.map((d) => text.slice(d.span.start, d.span.end))).toEqual(['endurance=5000h', 'hot=0', '80%', 'hot']);
+    expect(diagnostics[0]!.message).toContain('endurance=5000h@105C');
+  });
+
   it('allow: one or more finding codes', () => {
     expect(one('*@ allow piv-margin surge-rating', 'allow').codes.map((c) => c.text)).toEqual(['piv-margin', 'surge-rating']);
   });

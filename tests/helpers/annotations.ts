@@ -5,7 +5,12 @@
  *     *        ^^^ warning value-notation: RKM
  *
  * A comment line made of `*`, blanks and carets, then `severity code: message fragment`, points
- * at the columns of the nearest line above it that is not itself an annotation.
+ * at the columns of the nearest line above it that is not itself an annotation. Carets that
+ * touch the `*` start in column 0, the `*` standing for the first caret, so that a card's name
+ * can be underlined whole:
+ *
+ *     D1 A P DR
+ *     *^ warning piv-margin: of VRRM 440 V
  */
 export interface ExpectedFinding {
   start: number;
@@ -33,9 +38,12 @@ export function readAnnotations(text: string): ExpectedFinding[] {
       target = index;
       return;
     }
-    const column = 1 + match[1]!.length;
+    // `*^^` underlines columns 0–2: with no blank between them, the `*` is a caret too.
+    const touching = match[1]!.length === 0;
+    const column = touching ? 0 : 1 + match[1]!.length;
     const start = lineStarts[target]! + column;
-    found.push({ start, end: start + match[2]!.length, severity: match[3]!, code: match[4]!, fragment: (match[5] ?? '').trim() });
+    const width = match[2]!.length + (touching ? 1 : 0);
+    found.push({ start, end: start + width, severity: match[3]!, code: match[4]!, fragment: (match[5] ?? '').trim() });
   });
   return found;
 }
@@ -45,4 +53,9 @@ export function isAnnotationLine(text: string, at: number): boolean {
   const start = text.lastIndexOf('\n', at - 1) + 1;
   const end = text.indexOf('\n', at);
   return ANNOTATION.test(text.slice(start, end < 0 ? undefined : end));
+}
+
+/** The text with its annotation lines taken out: the same netlist expecting no findings. */
+export function withoutAnnotations(text: string): string {
+  return text.split('\n').filter((line) => !ANNOTATION.test(line)).join('\n');
 }

@@ -72,7 +72,7 @@ describe('analysis features over the protocol', () => {
   it('puts a code lens above the rectifier with its kind, efficiency, ripple and power factor, and the two view commands', async () => {
     const lenses = await client.connection.sendRequest(CodeLensRequest.type, { textDocument: { uri: URI } });
     const titles = lenses!.map((l) => l.command!.title);
-    expect(titles[0]).toMatch(/^diode bridge · η [\d.]+ % · ripple [\d.]+ V p-p · PF 0\.\d+$/);
+    expect(titles[0]).toMatch(/^diode bridge · η [\d.]+ % · ripple [\d.]+ V p-p · PF 0\.\d+ · inrush [\d.]+ A$/);
     expect(lenses!.map((l) => l.command!.command)).toEqual(['', 'rectilens.showWaveforms', 'rectilens.compareTopologies']);
     expect(lenses![1]!.range.start.line).toBe(4);
   });

@@ -42,16 +42,25 @@ describe('ratio stresses: error beyond the rating, warning beyond the policy fra
   });
 });
 
-describe('surge at equal I²t (REFERENCES.md §5, D)', () => {
-  // IFSM 30 A for 8.3 ms over a 10 ms half-cycle: 30·√(8.3/10) = 27.33 A; its I²t 30²·0.0083/2 = 3.735 A²s.
-  const over10ms = (figureA: number, i2tA2s: number) => stressVerdict('surge', { worst: {}, surge: { figureA, i2tA2s, durationS: 0.01 } }, diode, DEFAULT_DERATING)!;
-  it('passes within the converted IFSM and errs beyond its I²t', () => {
-    expect(over10ms(27.3, 3.7)).toMatchObject({ status: 'pass', ratedI2tA2s: 3.735 });
-    expect(over10ms(27.3, 3.7).rating).toBeCloseTo(27.33, 2);
-    expect(over10ms(28, 3.8).status).toBe('error');
+describe('surge: peak against IFSM, I²t against IFSM²·t_rated/2 (REFERENCES.md §5, D)', () => {
+  // IFSM 30 A for 8.3 ms: its I²t 30²·0.0083/2 = 3.735 A²s (D).
+  const surge = (peakA: number, i2tA2s: number) => stressVerdict('surge', { worst: {}, surge: { figureA: peakA, peakA, i2tA2s, durationS: 0.01 } }, diode, DEFAULT_DERATING)!;
+  it('passes with both inside and errs beyond the rated I²t', () => {
+    expect(surge(29.9, 3.7)).toMatchObject({ status: 'pass', ratedI2tA2s: 3.735, rating: 30 });
+    expect(surge(20, 3.8).status).toBe('error');
   });
-  it('warns on a short spike above the converted IFSM whose I²t stays within the rating', () => {
-    expect(over10ms(40, 1).status).toBe('warning');
+  it('warns on a short spike above IFSM whose I²t stays within the rating, and names the peak as binding', () => {
+    const v = surge(40, 1);
+    expect(v.status).toBe('warning');
+    expect(v.surge).toMatchObject({ binding: 'peak', peakShare: 40 / 30 });
+    expect(v.surge!.i2tShare).toBeCloseTo(1 / 3.735, 9);
+  });
+  it('names the I²t as binding when √(I²t share) exceeds the peak share, and its figure is √(2·I²t/t_rated)', () => {
+    // 3.0 A²s over 8.3 ms is the half-sine of √(2·3/0.0083) = 26.9 A, above a 25 A peak (D).
+    const v = surge(25, 3);
+    expect(v.surge!.binding).toBe('i2t');
+    expect(v.figure).toBeCloseTo(Math.sqrt((2 * 3) / 0.0083), 9);
+    expect(v.status).toBe('pass');
   });
 });
 

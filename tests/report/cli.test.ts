@@ -100,9 +100,9 @@ describe('rectilens compare', () => {
     const lines = result.stdout.split('\n');
     expect(lines[0]).toBe(`== ${LED}`);
     expect(lines).toContain('-- diode bridge D1, D2, D3, D4 [diode-bridge:d1]');
-    expect(lines.find((l) => l.startsWith('construction'))).toMatch(/^construction +efficiency +loss +hottest Tj +inrush peak +cost +parts$/);
+    expect(lines.find((l) => l.startsWith('construction'))).toMatch(/^construction +verdict +efficiency +loss +hottest Tj +inrush peak +cost +parts$/);
     for (const label of ['As drawn', 'Silicon bridge', 'Hybrid bridge', 'Synchronous bridge']) {
-      expect(lines.find((l) => l.startsWith(label)), label).toMatch(/[\d.]+ % @\w+ \w+ +[\d.]+ m?W @/);
+      expect(lines.find((l) => l.startsWith(label)), label).toMatch(/ (passes|fails [a-z-, ]+|parts not rated) +[\d.]+ % @\w+ \w+ +[\d.]+ m?W @/);
     }
     expect(lines.find((l) => l.startsWith('Schottky bridge'))).toMatch(/not applicable: reverse voltage \d+ V is beyond the silicon Schottky class/);
     expect(result.stdout).toMatch(/^Assumptions:$/m);

@@ -40,7 +40,10 @@ function page(info: CodeInfo): string {
     '',
     ...(info.help ? ['## What to do', '', info.help, ''] : []),
     ...(header ? ['## How the rule decides', '', header, ''] : []),
-    `Accept it where it is intended with \`*@ allow ${info.code}\` on the line before the card (or in the file's leading directives for the whole file).`,
+    // `*@ allow` covers judgements about the design (analysis/analyze.ts), not faults of the text itself.
+    info.stage === 'analysis' || info.code === 'include-error'
+      ? `Accept it where it is intended with \`*@ allow ${info.code}\` on the line before the card (or in the file's leading directives for the whole file).`
+      : 'It concerns the netlist text itself, so `*@ allow` does not hide it: correct the text.',
     '',
   ].join('\n');
 }

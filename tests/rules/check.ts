@@ -2,8 +2,9 @@
  * Test helpers for the rules: analyse an inline fixture, compare its findings of some codes with
  * the caret annotations written in it, and apply a quick fix to the text.
  *
- * Findings land on a card's name, which starts in column 0 where an annotation's `*` sits, so a
- * caret matches a finding whose span contains the caret's column (`*^` points into `D1`).
+ * `checkAnnotated` is the lenient form: an annotation matches a finding whose span contains its
+ * first column (`*^` starts in column 0, so it points at `D1`). The strict form, the findings'
+ * spans exactly the carets, is tests/rules/annotated/check.ts `expectAnnotated`.
  */
 import { expect } from 'vitest';
 import { analyze, type FileAnalysis } from '../../server/src/analysis/analyze';

@@ -77,7 +77,7 @@ describe('harmonic-limit (IEC 61000-3-2:2018)', () => {
 
 describe('missing-rating', () => {
   it('warns on a diode without VRRM and a capacitor without a rated voltage; informs when only others lack', () => {
-    checkAnnotated(bridge({ diode: '', cap: '', notes: { ...underDiodes('*^ warning missing-rating: (model DR) has no vrrm, ifav, ifsm, tjmax rating'), CB: '*^ warning missing-rating: CB has no vrated, iripple' } }), ['missing-rating']);
+    checkAnnotated(bridge({ diode: '', cap: '', notes: { ...underDiodes('*^ warning missing-rating: (model DR) has no vrrm, ifav, ifsm, tjmax, rthja rating'), CB: '*^ warning missing-rating: CB has no vrated, iripple' } }), ['missing-rating']);
     checkAnnotated(bridge({ diode: 'vrrm=600V ifav=1A rthja=80', cap: 'vrated=450V', notes: { ...underDiodes('*^ info missing-rating: has no ifsm, tjmax'), CB: '*^ info missing-rating: has no iripple' } }), ['missing-rating']);
   });
   it('is silent when every checked rating is given', () => {
@@ -161,7 +161,8 @@ describe('registry', () => {
   it('has one rule per code of DESIGN.md §6 except those recognition and elaboration give', () => {
     // limit-exceeded and figure-omitted come from the analysis's limits (analysis/limits.ts), not from a rule;
     // parts-file from reading a parts file (analysis/parts-file-findings.ts).
-    const fromElsewhere = ['reversed-device', 'default-model', 'assumed-condition', 'limit-exceeded', 'figure-omitted', 'parts-file'];
+    // no-rectifier from recognition (recognize/no-rectifier.ts), unsolved-rectifier with the solver's findings (analysis/).
+    const fromElsewhere = ['reversed-device', 'default-model', 'assumed-condition', 'limit-exceeded', 'figure-omitted', 'parts-file', 'project-config', 'no-rectifier', 'unsolved-rectifier'];
     expect(RULES.map((r) => r.code).sort()).toEqual(Object.keys(FINDING_CODES).filter((c) => !fromElsewhere.includes(c)).sort());
   });
   it('turns a throwing rule into one internal-error finding', () => {

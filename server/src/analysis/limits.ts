@@ -32,6 +32,7 @@ import { DEFAULT_RECOGNITION_STEPS } from '../recognize/index';
 import { NON_FINITE_NOTE } from '../solve/index';
 import type { Finding } from '../findings/index';
 import type { RectifierAnalysis } from '../equivalent/index';
+import { unsolvedRectifierFindings } from './unsolved-rectifier';
 
 export interface AnalysisLimits {
   /**
@@ -122,25 +123,28 @@ export function unsolvedFinding(skipped: readonly { anchor: { uri: string; span:
 
 /**
  * Findings about the solver's own bounds: a steady state not reached within its iterations or
- * step budget, and figures dropped because they were not finite. One finding of each per rectifier.
+ * step budget, and figures dropped because they were not finite. One finding of each per rectifier,
+ * and `unsolved-rectifier` for corners not solved at all (unsolved-rectifier.ts).
  */
 export function solverFindings(analyses: readonly RectifierAnalysis[]): Finding[] {
-  return analyses.flatMap(({ rectifier, solution }) => {
-    const place = { uri: rectifier.anchor.uri, span: rectifier.anchor.span };
-    const out: Finding[] = [];
-    // A corner with output figures but no convergence ran out of iterations or steps (a corner
-    // whose network could not be built has no figures and says why in its notes).
-    const unsettled = solution.corners.filter((c) => !c.converged && c.vOutAvgV !== undefined);
-    if (unsettled.length) {
-      out.push({
-        ...place, severity: 'warning', code: LIMIT_CODE,
-        message: `the steady state was not reached within the solver's iteration and step limits at ${unsettled.map((c) => c.name).join(', ')}; figures there are from the last period computed`,
-      });
-    }
-    const omitted = solution.notes.filter((n) => n.startsWith(NON_FINITE_NOTE));
-    if (omitted.length) {
-      out.push({ ...place, severity: 'warning', code: 'figure-omitted', message: `${omitted.join('; ')} (an input is out of range)` });
-    }
-    return out;
-  });
+  return analyses.flatMap((analysis) => [...solverBoundFindings(analysis), ...unsolvedRectifierFindings(analysis)]);
+}
+
+function solverBoundFindings({ rectifier, solution }: RectifierAnalysis): Finding[] {
+  const place = { uri: rectifier.anchor.uri, span: rectifier.anchor.span };
+  const out: Finding[] = [];
+  // A corner with output figures but no convergence ran out of iterations or steps (a corner
+  // whose network could not be built has no figures: unsolved-rectifier.ts reports it).
+  const unsettled = solution.corners.filter((c) => !c.converged && c.vOutAvgV !== undefined);
+  if (unsettled.length) {
+    out.push({
+      ...place, severity: 'warning', code: LIMIT_CODE,
+      message: `the steady state was not reached within the solver's iteration and step limits at ${unsettled.map((c) => c.name).join(', ')}; figures there are from the last period computed`,
+    });
+  }
+  const omitted = solution.notes.filter((n) => n.startsWith(NON_FINITE_NOTE));
+  if (omitted.length) {
+    out.push({ ...place, severity: 'warning', code: 'figure-omitted', message: `${omitted.join('; ')} (an input is out of range)` });
+  }
+  return out;
 }

@@ -9,6 +9,7 @@ import { key, type InstanceCard, type Item, type Lookup, type ModelCard, type Ne
 import { FindingSet } from '../findings/index';
 import { buildElement, terminalsOf, type Frame } from './elements';
 import type { FileSource, FlatCircuit, FlatElement, FlatInstance, FlatModel, PlacedDirective } from './flat-circuit';
+import { didYouMean } from './did-you-mean';
 import { ExpansionSizer, lookupDef, type Defs, type SubcktDef } from './expansion-size';
 import { IncludeExpander, type PlacedItem } from './includes';
 import { evaluateParams, instanceScope, resolvePlaced, type PlacedParam } from './scope';
@@ -68,7 +69,7 @@ class Elaborator {
     const defs: Defs = { own: this.defineSubckts(top) };
     const frame: Frame = {
       uri: this.rootUri, namePrefix: '', keyPrefix: '', ports: new Map(), lookup: globalLookup, chain: [],
-      modelKey: this.defineModels(top, '', globalLookup, () => undefined),
+      ...this.defineModels(top, '', globalLookup, { modelKey: () => undefined, modelNames: () => [] }),
     };
     this.flatten({ items: top, next: 0, frame, defs, path: [] }, globalLookup);
     return {
@@ -112,7 +113,14 @@ class Elaborator {
     if (work.path.length === 0) this.charge(1, frame.uri, card.span);
     if (!card.subckt) return undefined;
     if (!def) {
-      this.sink.add({ uri: frame.uri, span: card.subckt.span, severity: 'warning', code: 'unknown-subckt', message: `no .subckt '${card.subckt.text}' is defined; ${card.name.text} is kept as a black box` });
+      // An error: nothing inside the instance is analysed, so a typo here would hide a rectifier.
+      const place = { uri: frame.uri, span: card.subckt.span };
+      const { clause, fixes } = didYouMean(card.subckt.text, visibleSubckts(work.defs), place);
+      this.sink.add({
+        ...place, severity: 'error', code: 'unknown-subckt',
+        message: `no .subckt '${card.subckt.text}' is defined: ${card.name.text} is kept as a black box and nothing inside it is analysed${clause}`,
+        ...(fixes.length ? { fixes } : {}),
+      });
       return undefined;
     }
     if (!this.canExpand(card, frame, work, subckt) || !this.fits(card, frame, work, def, subckt)) return undefined;
@@ -179,7 +187,7 @@ class Elaborator {
     const keyPrefix = `${frame.keyPrefix}${key(card.name)}.`;
     const child: Frame = {
       uri: def.uri, namePrefix: `${frame.namePrefix}${card.name.text}.`, keyPrefix, ports, lookup, chain: [...frame.chain, step],
-      modelKey: this.defineModels(body, keyPrefix, lookup, frame.modelKey),
+      ...this.defineModels(body, keyPrefix, lookup, frame),
     };
     this.collectDirectives(body);
     return { items: body, next: 0, frame: child, defs: { own: this.subcktsOf(def), outer: work.defs }, path: [...work.path, step.subckt] };
@@ -197,15 +205,22 @@ class Elaborator {
   }
 
   /** Evaluates the models of a scope; local ones get keys under the instance (`x1.dmod`). */
-  private defineModels(items: readonly PlacedItem[], keyPrefix: string, lookup: Lookup, outer: (name: string) => string | undefined) {
-    const own = new Set<string>();
+  private defineModels(items: readonly PlacedItem[], keyPrefix: string, lookup: Lookup, outer: Pick<Frame, 'modelKey' | 'modelNames'>): Pick<Frame, 'modelKey' | 'modelNames'> {
+    const own = new Map<string, string>();
     for (const { item, uri } of items) {
       if (item.kind !== 'model' || !item.name) continue;
       const name = key(item.name);
-      own.add(name);
+      own.set(name, item.name.text);
       this.models.set(keyPrefix + name, modelOf(item, uri, lookup, this.sink));
     }
-    return (name: string): string | undefined => (own.has(name) ? keyPrefix + name : outer(name));
+    return {
+      modelKey: (name) => (own.has(name) ? keyPrefix + name : outer.modelKey(name)),
+      // Only asked for when a model is not found, so the names are listed then, innermost first.
+      modelNames: function* () {
+        yield* own.values();
+        yield* outer.modelNames();
+      },
+    };
   }
 
   private collectDirectives(items: readonly PlacedItem[]): void {
@@ -224,6 +239,13 @@ class Elaborator {
     if (this.charged <= this.maxElements || this.stopped) return;
     this.stopped = true;
     this.sink.add({ uri, span, severity: 'error', code: 'circuit-too-large', message: `the flattened circuit passes ${this.maxElements} elements; elaboration stops here` });
+  }
+}
+
+/** The names of the subcircuits visible in a scope, as written, innermost first. */
+function* visibleSubckts(defs: Defs | undefined): Generator<string> {
+  for (let d = defs; d; d = d.outer) {
+    for (const def of d.own.values()) if (def.block.header.name) yield def.block.header.name.text;
   }
 }
 

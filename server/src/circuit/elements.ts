@@ -4,6 +4,7 @@
  */
 import { key, type ElementCard, type Lookup, type Name, type SourceCard } from '../../../grammar/src/index';
 import type { FindingSet } from '../findings/index';
+import { didYouMean } from './did-you-mean';
 import { GROUND, isGroundName, type FlatElement, type InstanceStep, type Origin, type SineWave, type Terminal } from './flat-circuit';
 import { evaluateIn, evaluateParams } from './scope';
 
@@ -18,6 +19,8 @@ export interface Frame {
   lookup: Lookup;
   /** Lowercase model name → key in the flat model table, or undefined when not visible here. */
   modelKey: (name: string) => string | undefined;
+  /** The names of the models visible here, as written, innermost scope first (for "did you mean"). */
+  modelNames: () => Iterable<string>;
   chain: InstanceStep[];
 }
 
@@ -70,7 +73,15 @@ function modelOf(model: Name | undefined, frame: Frame, sink: FindingSet): strin
   if (!model) return undefined;
   const found = frame.modelKey(key(model));
   if (found === undefined) {
-    sink.add({ uri: frame.uri, span: model.span, severity: 'warning', code: 'unknown-model', message: `no .model '${model.text}' is visible here` });
+    // An error, as in any simulator: the device's ratings and forward law come from its model, so
+    // a typo would otherwise pass it with defaults and no ratings.
+    const place = { uri: frame.uri, span: model.span };
+    const { clause, fixes } = didYouMean(model.text, frame.modelNames(), place);
+    sink.add({
+      ...place, severity: 'error', code: 'unknown-model',
+      message: `no .model '${model.text}' is visible here: the device is analysed with default parameters and no ratings from its model${clause}`,
+      ...(fixes.length ? { fixes } : {}),
+    });
   }
   return found;
 }

@@ -3,7 +3,7 @@ import { isAbsolute, relative as relativePath, sep } from 'node:path';
 import { analyze, type FileAnalysis, type Snapshot } from '../analysis/analyze';
 import { reaches } from '../findings/index';
 import { parseArgs, UsageError } from './args';
-import { cachedReader, collectNetlistFiles, unreadReason } from './netlist-files';
+import { cachedReader, collectNetlistFiles, emptyFolderMessage, unreadReason } from './netlist-files';
 import { toJsonReport } from './report-json';
 import { toSarif } from './report-sarif';
 import { toTextReport } from './report-text';
@@ -13,23 +13,24 @@ import { TOOL_VERSION } from './tool-version';
 
 export const CHECK_USAGE = 'rectilens check <files or folders…> [--format text|json|sarif] [--fail-on error|warning|never]';
 
-/** Runs the check and returns the exit code: 0 clean, 1 a finding reached --fail-on, 2 usage or unreadable input. */
+/** Runs the check and returns the exit code: 0 clean, 1 a finding reached --fail-on, 2 usage, unreadable input or a folder with no netlist. */
 export function runCheck(argv: readonly string[], io: CommandIo): number {
   const args = parseArgs(argv, { format: { values: ['text', 'json', 'sarif'] }, 'fail-on': { values: ['error', 'warning', 'never'] } });
   if (args.positional.length === 0) throw new UsageError(`check needs at least one file or folder\nusage: ${CHECK_USAGE}`);
-  const { files, problems } = collectNetlistFiles(args.positional);
+  const { files, problems, empty } = collectNetlistFiles(args.positional);
   const read = cachedReader();
   const snapshot = files.length >= PROGRESS_MIN_FILES && io.stderrIsTty
     ? analyzeWithProgress(files, read, io)
     : analyze({ roots: files, readText: read });
   for (const problem of problems) io.stderr(`rectilens: cannot read ${problem.path}: ${problem.reason}\n`);
+  for (const folder of empty) io.stderr(emptyFolderMessage(folder));
   for (const path of snapshot.unreadable) io.stderr(`rectilens: cannot read ${path}: ${unreadReason(read, path)}\n`);
   const report = toJsonReport(snapshot);
   const format = args.flags.get('format') ?? 'text';
   if (format === 'json') io.stdout(JSON.stringify(report, null, 2) + '\n');
   else if (format === 'sarif') io.stdout(JSON.stringify(toSarif(report, TOOL_VERSION, toRelativeUri), null, 2) + '\n');
   else io.stdout(toTextReport(report));
-  if (problems.length || snapshot.unreadable.length) return 2;
+  if (problems.length || empty.length || snapshot.unreadable.length) return 2;
   const failOn = (args.flags.get('fail-on') as string | undefined) ?? 'error';
   if (failOn === 'never') return 0;
   const failing = report.files.some((f) => f.diagnostics.some((d) => reaches(d.severity as 'error', failOn as 'error')));

@@ -11,21 +11,32 @@ export interface FileList {
   files: string[];
   /** Paths that do not exist or cannot be listed, with the reason. */
   problems: { path: string; reason: string }[];
+  /** Folders named on the command line that hold no netlist file (a wrong folder must not pass as clean). */
+  empty: string[];
 }
 
 /** Expands folders to the netlist files in them (sorted); files named explicitly are kept whatever their extension. */
 export function collectNetlistFiles(paths: readonly string[]): FileList {
   const files: string[] = [];
   const problems: FileList['problems'] = [];
+  const empty: string[] = [];
   for (const path of paths) {
     try {
-      if (statSync(path).isDirectory()) walk(path, files);
-      else files.push(path);
+      if (statSync(path).isDirectory()) {
+        const before = files.length;
+        walk(path, files);
+        if (files.length === before) empty.push(path);
+      } else files.push(path);
     } catch (error) {
-      problems.push({ path, reason: describeError(error) });
+      problems.push({ path, reason: describeError(error, path) });
     }
   }
-  return { files, problems };
+  return { files, problems, empty };
+}
+
+/** The stderr line for a folder with no netlist in it. */
+export function emptyFolderMessage(path: string): string {
+  return `rectilens: no netlist in ${path} (looked for ${NETLIST_EXTENSIONS.join(', ')} files, skipping ${[...SKIPPED_FOLDERS].join(', ')} and hidden folders)\n`;
 }
 
 function walk(folder: string, into: string[]): void {
@@ -56,8 +67,10 @@ export function unreadReason(read: (path: string) => FileText, path: string): st
   return typeof text === 'object' ? text.reason : 'it could not be read';
 }
 
-export function describeError(error: unknown): string {
+export function describeError(error: unknown, path = ''): string {
   const code = (error as NodeJS.ErrnoException)?.code;
+  // A pattern reaches us unexpanded when the shell matched nothing (or it was quoted).
+  if (code === 'ENOENT' && /[*?[]/.test(path)) return 'no file matches this pattern (patterns are expanded by the shell, not by rectilens)';
   if (code === 'ENOENT') return 'no such file or folder';
   if (code === 'EACCES') return 'permission denied';
   return error instanceof Error ? error.message : String(error);

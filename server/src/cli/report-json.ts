@@ -1,8 +1,8 @@
 /** The JSON report of `check --format json` (DESIGN.md §8): stable names, SI units in the names, 1-based lines. */
 import type { FileAnalysis, Snapshot } from '../analysis/analyze';
 import { LineIndex } from '../../../grammar/src/index';
-import type { RectifierAnalysis } from '../equivalent/index';
-import type { DeviceSolution } from '../solve/index';
+import type { CapacitorStress, RectifierAnalysis } from '../equivalent/index';
+import type { DeviceSolution, Load, PartVertex } from '../solve/index';
 
 export interface JsonDiagnostic {
   line: number;
@@ -14,12 +14,32 @@ export interface JsonDiagnostic {
   message: string;
 }
 
-export type JsonDevice = Pick<DeviceSolution, 'name' | 'pivV' | 'ipkA' | 'iavgA' | 'irmsA' | 'lossW' | 'tjC'>;
+/** A device's figures at one corner; `inrush…` are its own surge in its worst inrush case (`inrushCase`). */
+export type JsonDevice = Pick<DeviceSolution, 'name' | 'pivV' | 'ipkA' | 'iavgA' | 'irmsA' | 'lossW' | 'tjC' | 'inrushPeakA' | 'inrushI2tA2s' | 'inrushCase'>;
+
+/** A filter capacitor's stress: ripple loss, core temperature and life estimate, worst and per corner. */
+export interface JsonCapacitor {
+  name: string;
+  esrOhm?: number;
+  /** How the core's rise was found: `thermal-resistance`, `rated-ripple` or `none`. */
+  coreRiseModel: string;
+  worst: { lossW?: number; coreC?: number; lifeH?: number };
+  worstCorner: { lossW?: string; coreC?: string; lifeH?: string };
+  corners: { name: string; irmsA: number; lossW?: number; coreC: number; lifeH?: number }[];
+}
 
 export interface JsonCorner {
   name: string;
   lineVrms: number;
   ambientC: number;
+  /** Line frequency solved at this corner. */
+  freqHz?: number;
+  /** The load solved at this corner (the directive's, or the drawn parts'); the rectifier's `load.fixed` draws beside it. */
+  load?: Load;
+  /** The end of a load range: "full" or "light"; absent for a single load. */
+  loadLevel?: 'full' | 'light';
+  /** The part-tolerance vertex solved; absent: nominal parts. */
+  parts?: PartVertex;
   vOutAvgV?: number;
   rippleVpp?: number;
   capRippleIrmsA?: number;
@@ -29,6 +49,8 @@ export interface JsonCorner {
   thd?: number;
   harmonicsA?: number[];
   inrushPeakA?: number;
+  /** The inrush case of the peak ("hot restart at the negative crest"). */
+  inrushCase?: string;
   inrushI2tA2s?: number;
   holdUpS?: number;
   devices: JsonDevice[];
@@ -41,7 +63,20 @@ export interface JsonRectifier {
   line: number;
   worst: Record<string, number | undefined>;
   worstCorner: Record<string, string | undefined>;
+  /** What the load is made of: the directive's (or drawn) load, a range's light end, and the parts drawn beside it. */
+  load: JsonLoad;
+  /** NTC inrush limiters in the source loop: cold (card) and hot resistance, referred to the rectifier side. */
+  inrushLimiter?: { names: string[]; coldROhm: number; hotROhm: number };
+  capacitors: JsonCapacitor[];
   corners: JsonCorner[];
+}
+
+export interface JsonLoad {
+  full: Load;
+  light?: Load;
+  fromDirective: boolean;
+  /** Resistors and current sources across the output that draw beside a directive's load. */
+  fixed?: { ohm?: number; a?: number; elements: string[] };
 }
 
 export interface JsonFile {
@@ -74,7 +109,7 @@ function toJsonFile(file: FileAnalysis): JsonFile {
   return { path: file.uri, rectifiers: file.rectifiers.map((r) => toJsonRectifier(r, lines)), diagnostics };
 }
 
-const WORST_FIGURES = ['vOutAvgV', 'rippleVpp', 'efficiency', 'powerFactor', 'inrushPeakA', 'capRippleIrmsA', 'thd', 'inrushI2tA2s', 'holdUpS'] as const;
+const WORST_FIGURES = ['vOutAvgV', 'vOutMaxV', 'rippleVpp', 'efficiency', 'powerFactor', 'inrushPeakA', 'capRippleIrmsA', 'thd', 'inrushI2tA2s', 'holdUpS'] as const;
 
 function toJsonRectifier(analysis: RectifierAnalysis, lines: LineIndex): JsonRectifier {
   const { rectifier, solution } = analysis;
@@ -91,11 +126,34 @@ function toJsonRectifier(analysis: RectifierAnalysis, lines: LineIndex): JsonRec
     line: lines.positionAt(rectifier.anchor.span.start).line + 1,
     worst,
     worstCorner,
+    load: jsonLoad(analysis),
+    ...(analysis.circuit.inrushLimiter ? { inrushLimiter: analysis.circuit.inrushLimiter } : {}),
+    capacitors: analysis.capacitors.flatMap((c) => (c.stress ? [jsonCapacitor(c.name, c.stress)] : [])),
     corners: solution.corners.map((c) => ({
-      name: c.name, lineVrms: c.lineVrms, ambientC: c.ambientC, vOutAvgV: c.vOutAvgV, rippleVpp: c.rippleVpp,
+      name: c.name, lineVrms: c.lineVrms, ambientC: c.ambientC, freqHz: c.freqHz, load: c.load, loadLevel: c.loadLevel, parts: c.parts, vOutAvgV: c.vOutAvgV, rippleVpp: c.rippleVpp,
       capRippleIrmsA: c.capRippleIrmsA, efficiency: c.efficiency, sourceIrmsA: c.sourceIrmsA, powerFactor: c.powerFactor, thd: c.thd,
-      harmonicsA: c.harmonicsA, inrushPeakA: c.inrushPeakA, inrushI2tA2s: c.inrushI2tA2s, holdUpS: c.holdUpS,
-      devices: c.devices.map((d) => ({ name: d.name, pivV: d.pivV, ipkA: d.ipkA, iavgA: d.iavgA, irmsA: d.irmsA, lossW: d.lossW, tjC: d.tjC })),
+      harmonicsA: c.harmonicsA, inrushPeakA: c.inrushPeakA, inrushCase: c.inrushCase, inrushI2tA2s: c.inrushI2tA2s, holdUpS: c.holdUpS,
+      devices: c.devices.map((d) => ({
+        name: d.name, pivV: d.pivV, ipkA: d.ipkA, iavgA: d.iavgA, irmsA: d.irmsA, lossW: d.lossW, tjC: d.tjC,
+        inrushPeakA: d.inrushPeakA, inrushI2tA2s: d.inrushI2tA2s, inrushCase: d.inrushCase,
+      })),
     })),
   };
+}
+
+function jsonCapacitor(name: string, s: CapacitorStress): JsonCapacitor {
+  return {
+    name, esrOhm: s.esr?.ohm, coreRiseModel: s.riseModel,
+    worst: { lossW: s.lossW?.value, coreC: s.coreC?.value, lifeH: s.lifeH?.value },
+    worstCorner: { lossW: s.lossW?.corner, coreC: s.coreC?.corner, lifeH: s.lifeH?.corner },
+    corners: s.corners.map((c) => ({ name: c.corner, irmsA: c.irmsA, lossW: c.lossW, coreC: c.coreC, lifeH: c.lifeH })),
+  };
+}
+
+function jsonLoad(analysis: RectifierAnalysis): JsonLoad {
+  const { kind, elements: _elements, fromDirective, light, fixed, ...amounts } = analysis.rectifier.surroundings.load;
+  const out: JsonLoad = { full: { kind, ...amounts } as Load, fromDirective };
+  if (light) out.light = light;
+  if (fixed) out.fixed = fixed;
+  return out;
 }

@@ -2,6 +2,7 @@
 import { DERATE_KEYS, DIRECTIVE_KEYWORDS, RATING_KEYS, key, type Netlist } from '../../../grammar/src/index';
 import { FINDING_CODES } from '../rules/codes';
 import { indexNames } from './name-index';
+import { DEFAULT_ESR_LIFE_FACTOR } from '../equivalent/part-spreads';
 
 export interface CompletionItem {
   label: string;
@@ -11,12 +12,23 @@ export interface CompletionItem {
 }
 
 const DIRECTIVE_DETAILS: Readonly<Record<string, string>> = {
-  mains: 'line voltage, frequency and tolerance: mains 230V 50Hz tol=-15%,+10%',
+  mains: 'line voltage (or a universal-input range), frequencies and tolerance: mains 230V 50Hz tol=-15%,+10% | mains 100V..240V 50Hz,60Hz tol=-10%,+10%',
   ambient: 'nominal and maximum ambient: ambient 25C..60C',
-  load: 'load at the rectifier output: load 45W | 0.8A | 33ohm [vmin=…]',
+  load: 'load at the rectifier output, one value or a light..full range; parts drawn across the output add to it: load 45W | 0.8A | 33ohm | 0.2W..12W [vmin=…]',
   rate: 'ratings for a model or instance: rate NAME vrrm=600V ifsm=30A …',
   derate: 'derating policy: derate vr=80% if=70% tj=125C cap=80%',
   allow: 'accept a finding on the next card: allow CODE',
+};
+
+/** What the part-spread rating keys mean (the spreads the corners' part vertices pick from: solve/corners.ts). */
+const RATING_DETAILS: Readonly<Partial<Record<string, string>>> = {
+  tol: 'capacitor: capacitance tolerance low,high, e.g. tol=-20%,+20%',
+  life: 'capacitor: capacitance lost over life, e.g. life=-20% (smallest C = nominal × (1 + tol low) × (1 + life))',
+  esrlife: `capacitor: factor the rated esr= rises by at end of life or cold, e.g. esrlife=2 (default ${DEFAULT_ESR_LIFE_FACTOR}, common practice)`,
+  vfspread: 'diode: forward-voltage spread low,high, e.g. vfspread=-0.05V,+0.1V',
+  hot: 'resistor: an NTC inrush limiter; its hot resistance (the card value is its cold one), e.g. hot=1ohm',
+  endurance: 'capacitor: rated life at a core temperature, e.g. endurance=5000h@105C (for the life estimate)',
+  rth: 'capacitor: core-to-ambient thermal resistance in K/W (ripple self-heating), e.g. rth=20',
 };
 
 /** Suggestions for the cursor at `offset` of `netlist`; `models` lists every model known to the file (with includes). */
@@ -40,7 +52,7 @@ export function completeAt(netlist: Netlist, offset: number, models: { name: str
 function completeDirective(words: string[], position: number): CompletionItem[] {
   const keyword = words[1]?.toLowerCase();
   if (position <= 1) return DIRECTIVE_KEYWORDS.map((k) => ({ label: k, kind: 'keyword', detail: DIRECTIVE_DETAILS[k] }));
-  if (keyword === 'rate' && position >= 3) return RATING_KEYS.map((k) => ({ label: k, kind: 'property', insertText: `${k}=` }));
+  if (keyword === 'rate' && position >= 3) return RATING_KEYS.map((k) => ({ label: k, kind: 'property', insertText: `${k}=`, ...(RATING_DETAILS[k] ? { detail: RATING_DETAILS[k] } : {}) }));
   if (keyword === 'derate') return DERATE_KEYS.map((k) => ({ label: k, kind: 'property', insertText: `${k}=` }));
   if (keyword === 'allow') return Object.entries(FINDING_CODES).map(([code, detail]) => ({ label: code, kind: 'code', detail }));
   if (keyword === 'load') return [{ label: 'vmin', kind: 'property', insertText: 'vmin=' }];

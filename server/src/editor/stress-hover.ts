@@ -5,14 +5,16 @@
  */
 import type { FileAnalysis } from '../analysis/analyze';
 import type { RectifierAnalysis } from '../equivalent/index';
-import { describeOrigin, isAboveExtraLowVoltage, MAINS_CAUTION, type Rated } from '../ratings/index';
-import type { DeviceAtCorner, WorstValue } from '../solve/index';
-import { formatCelsius, formatPercent, formatSi, KIND_NAMES } from '../presentation/format';
+import { describeOrigin, isAboveExtraLowVoltage, MAINS_CAUTION, stressVerdict, type DeratingPolicy, type Rated } from '../ratings/index';
+import { isNominalCorner, type DeviceAtCorner, type WorstValue } from '../solve/index';
+import { formatCelsius, formatPercent, formatSi, KIND_NAMES, trim } from '../presentation/format';
 import { escapeMarkdown as md, markdownCode as code } from '../presentation/markup';
+import { conditionSpanText, cornerConditionsText, loadCompositionText } from '../presentation/operating-conditions';
 import { hoverAt, type HoverResult } from './hover';
+import { capacitorHover } from './capacitor-hover';
+import { surgeComparison, surgeWhen } from '../rules/surge-rating';
 import { devicesAtCard, type DeviceHit } from './rectifier-lookup';
 
-const NOMINAL_CORNER = 'nominal-line nominal';
 
 /** Where a device sits, in words (DeviceRole in solve/equivalent-circuit.ts). */
 const ROLE_WORDS: Readonly<Record<string, string>> = {
@@ -40,7 +42,7 @@ const ROWS: Row[] = [
 
 /** Markdown for the devices under a card (one device, or every device of a packaged bridge). */
 export function stressHover(file: FileAnalysis, hits: readonly DeviceHit[]): string {
-  const sections = hits.map((hit) => deviceSection(hit));
+  const sections = hits.map((hit) => deviceSection(hit, file.policy));
   const analysis = hits[0]?.analysis;
   if (!analysis) return '';
   sections.unshift(rectifierSummary(analysis));
@@ -57,15 +59,28 @@ function rectifierSummary(analysis: RectifierAnalysis): string {
     `output ${formatSi(worst.vOutAvgV?.value, 'V')}`,
     `ripple ${formatSi(worst.rippleVpp?.value, 'V')} p-p`,
     `efficiency ${formatPercent(worst.efficiency?.value)}`,
-    `inrush ${formatSi(worst.inrushPeakA?.value, 'A')}`,
+    `inrush ${formatSi(worst.inrushPeakA?.value, 'A')}${inrushCaseOf(analysis) ? ` (${inrushCaseOf(analysis)})` : ''}`,
   ];
-  return `**${kind}** (${analysis.rectifier.devices.map((d) => md(d.name)).join(', ')}): ${parts.join(' · ')}`;
+  const span = conditionSpanText(analysis.solution.corners, analysis.rectifier.surroundings.source.mains, analysis.rectifier.surroundings.load);
+  return [
+    `**${kind}** (${analysis.rectifier.devices.map((d) => md(d.name)).join(', ')}): ${parts.join(' · ')}`,
+    `Load: ${md(loadCompositionText(analysis.rectifier.surroundings.load), Infinity)}${span ? ` · corners over ${md(span, Infinity)}` : ''}`,
+  ].join('\n\n');
 }
 
-function deviceSection(hit: DeviceHit): string {
+/** The conditions of the corners named in a device's worst column, each once. */
+function worstCornerLines(analysis: RectifierAnalysis, names: readonly (string | undefined)[]): string[] {
+  const seen = [...new Set(names.filter((n): n is string => n !== undefined))];
+  return seen.flatMap((name) => {
+    const corner = analysis.solution.corners.find((c) => c.name === name);
+    return corner ? [`- ${md(name)}: ${md(cornerConditionsText(corner), Infinity)}`] : [];
+  });
+}
+
+function deviceSection(hit: DeviceHit, policy: DeratingPolicy): string {
   const { device } = hit;
   const name = device.ref.name;
-  const nominal = device.figures.corners.find((c) => c.corner === NOMINAL_CORNER) ?? device.figures.corners[0];
+  const nominal = device.figures.corners.find((c) => isNominalCorner(c.corner)) ?? device.figures.corners[0];
   const worst = device.figures.worst;
   const lines = [
     `**${md(name)}** (${device.ref.type}${device.model ? ` ${code(device.model.name)}` : ''}) — ${ROLE_WORDS[device.ref.role] ?? device.ref.role}`,
@@ -74,9 +89,11 @@ function deviceSection(hit: DeviceHit): string {
     '|---|---|---|---|---|---|',
   ];
   const origins: string[] = [];
+  const worstCorners: (string | undefined)[] = [];
   for (const row of ROWS) {
     const nominalValue = deviceValue(nominal, row.key);
     const worstValue = worst?.[row.key] as WorstValue | undefined;
+    worstCorners.push(worstValue?.corner);
     const rating = row.rating?.(hit);
     const ratedText = rating?.rated ? `${rating.symbol} ${row.unit === '°C' ? formatCelsius(rating.rated.value) : formatSi(rating.rated.value, row.unit)}` : rating ? `${rating.symbol} not rated` : '';
     const used = rating?.rated && worstValue && row.unit !== '°C' ? formatPercent(worstValue.value / rating.rated.value) : '';
@@ -84,9 +101,32 @@ function deviceSection(hit: DeviceHit): string {
     const show = (v: number | undefined) => (row.unit === '°C' ? formatCelsius(v) : formatSi(v, row.unit));
     lines.push(`| ${row.label} | ${show(nominalValue)} | ${show(worstValue?.value)} | ${worstValue?.corner ?? ''} | ${ratedText} | ${used} |`);
   }
+  const surge = surgeLine(hit, policy);
+  if (surge) lines.push('', surge);
+  const conditions = worstCornerLines(hit.analysis, worstCorners);
+  if (conditions.length) lines.push('', '**Worst corners:**', ...conditions);
   if (worst?.thermalRunaway) lines.push('', '**Thermal runaway:** the junction temperature does not settle at the hottest corner.');
+  const rth = device.ratings.ratings.rthjaKPerW;
+  if (rth) origins.push(`RθJA ${formatSi(rth.value, 'K/W')}: ${describeOrigin(rth.origin)}`);
+  else lines.push('', '**No RθJA:** the junction temperature is taken as the ambient and was not checked.');
   if (origins.length) lines.push('', `Ratings from ${origins.map((o) => md(o, Infinity)).join('; ')}.`);
   return lines.join('\n');
+}
+
+/** The device's own switch-on surge, its case and, when rated, which of peak and I²t binds (rules/surge-rating.ts words it). */
+function surgeLine(hit: DeviceHit, policy: DeratingPolicy): string | undefined {
+  const surge = hit.device.figures.surge;
+  if (!surge) return undefined;
+  const verdict = stressVerdict('surge', hit.device.figures, hit.device.ratings.ratings, policy);
+  const judged = verdict?.surge ? surgeComparison(verdict.surge) : `peak ${formatSi(surge.peakA, 'A')}, I²t ${trim(surge.i2tA2s)} A²s (no IFSM rated)`;
+  // Our own sentences, whose one netlist name (an NTC's) surgeWhen already clips.
+  return `**Surge:** ${md(surgeWhen(surge, hit.analysis), Infinity)}: ${md(judged, Infinity)}.`;
+}
+
+/** The case of the rectifier's largest inrush peak, at its worst corner. */
+function inrushCaseOf(analysis: RectifierAnalysis): string | undefined {
+  const corner = analysis.solution.worst.inrushPeakA?.corner;
+  return analysis.solution.corners.find((c) => c.name === corner)?.inrushCase;
 }
 
 function deviceValue(corner: DeviceAtCorner | undefined, key: Row['key']): number | undefined {
@@ -98,6 +138,6 @@ function deviceValue(corner: DeviceAtCorner | undefined, key: Row['key']): numbe
 export function hoverInFile(file: FileAnalysis, offset: number): HoverResult | undefined {
   return hoverAt(file.netlist, offset, (card) => {
     const hits = devicesAtCard(file, card.span);
-    return hits.length ? stressHover(file, hits) : undefined;
+    return hits.length ? stressHover(file, hits) : capacitorHover(file, card.span);
   });
 }

@@ -4,4 +4,5 @@
  */
 export { analyseRectifiers, rateRectifier, solverPeriods, type CapacitorAnalysis, type DeviceAnalysis, type RectifierAnalysis } from './rectifier-analysis';
 export { toEquivalentCircuit, controllersOf, DEFAULT_RDSON_OHM, type RatedParts } from './to-equivalent-circuit';
-export { diodeParamsOfForwardModel, diodeParamsOfModel } from './diode-params';
+export { capacitorStressOf, type CapacitorAtCorner, type CapacitorStress } from './capacitor-stress';
+export { bodyDiodeParams, diodeParamsOfForwardModel, diodeParamsOfModel, VSD_DEFAULT_CURRENT_A } from './diode-params';

@@ -4,10 +4,11 @@
  */
 import type { FlatCircuit, FlatModel } from '../circuit/index';
 import type { Finding } from '../findings/index';
-import { createRatingResolver, type AnalysisSettings, type PartsFile, type RatingsOf, type ResolvedRatings } from '../ratings/index';
+import { createRatingResolver, limiterHotResistances, type AnalysisSettings, type PartsFile, type RatingsOf, type ResolvedRatings } from '../ratings/index';
 import type { Rectifier, RectifierDeviceRef } from '../recognize/index';
-import { defaultCorners, deviceFiguresOf, type Corner, type DeviceFigures, type EquivalentCircuit, type RectifierSolution, type SolveFn } from '../solve/index';
+import { defaultCorners, deviceFiguresOf, hasPartSpread, type Corner, type DeviceFigures, type EquivalentCircuit, type RectifierSolution, type SolveFn } from '../solve/index';
 import { controllersOf, toEquivalentCircuit, type RatedParts } from './to-equivalent-circuit';
+import { capacitorStressOf, type CapacitorStress } from './capacitor-stress';
 
 export interface DeviceAnalysis {
   ref: RectifierDeviceRef;
@@ -20,6 +21,8 @@ export interface DeviceAnalysis {
 export interface CapacitorAnalysis {
   name: string;
   ratings: RatingsOf<'capacitor'>;
+  /** Ripple loss, core temperature and life estimate over the corners (capacitor-stress.ts). */
+  stress?: CapacitorStress;
 }
 
 export interface RectifierAnalysis {
@@ -53,13 +56,14 @@ export function analyseRectifiers(
     const { controllers } = parts;
     const { circuit, findings: assumed } = toEquivalentCircuit(rectifier, flat.models, parts);
     findings.push(...assumed);
-    const corners = cornersFor(rectifier, flat, settings);
+    const corners = cornersFor(rectifier, circuit, flat, settings);
     const solution = solve(circuit, corners);
     periods += solverPeriods(solution);
     const devices = rated.map((d, k): DeviceAnalysis => ({ ...d, figures: deviceFiguresOf(circuit, solution, k) }));
-    const capacitors = rectifier.surroundings.capacitors.flatMap((c) => c.names).map((name) => ({
-      name, ratings: resolve({ kind: 'capacitor', instanceName: name }).ratings,
-    }));
+    const capacitors = [...(parts.capacitors ?? [])].map(([name, ratings]): CapacitorAnalysis => {
+      const stress = capacitorStressOf(rectifier, flat, solution, name, ratings);
+      return stress ? { name, ratings, stress } : { name, ratings };
+    });
     const analysis: RectifierAnalysis = { rectifier, circuit, corners, solution, devices, capacitors };
     // The controller whose vmin the circuit took, else the first.
     const controller = controllers.find((c) => c.vminV) ?? controllers[0];
@@ -80,7 +84,8 @@ type Resolver = ReturnType<typeof createRatingResolver>;
 export function rateRectifier(rectifier: Rectifier, flat: FlatCircuit, resolve: Resolver): { rated: Omit<DeviceAnalysis, 'figures'>[]; parts: RatedParts } {
   const rated = rectifier.devices.map((ref) => resolveDevice(ref, flat, resolve));
   const controllers = controllersOf(rectifier).map((c) => resolve({ kind: 'controller', instanceName: c.name, modelName: c.subckt }).ratings);
-  return { rated, parts: { devices: rated.map((d) => d.ratings), controllers } };
+  const capacitors = new Map(rectifier.surroundings.capacitors.flatMap((c) => c.names).map((name) => [name, resolve({ kind: 'capacitor', instanceName: name }).ratings] as const));
+  return { rated, parts: { devices: rated.map((d) => d.ratings), controllers, limiterHotOhm: limiterHotResistances(flat.directives), capacitors } };
 }
 
 function resolveDevice(ref: RectifierDeviceRef, flat: FlatCircuit, resolve: Resolver): Omit<DeviceAnalysis, 'figures'> {
@@ -90,8 +95,12 @@ function resolveDevice(ref: RectifierDeviceRef, flat: FlatCircuit, resolve: Reso
   return model ? { ref, model, ratings } : { ref, ratings };
 }
 
-/** Line tolerance from the mains directive, then settings, then the solver's defaults; ambient likewise. */
-function cornersFor(rectifier: Rectifier, flat: FlatCircuit, settings: AnalysisSettings): Corner[] {
+/**
+ * Line tolerance from the mains directive, then settings, then the solver's defaults; ambient
+ * likewise. A universal input's range and frequencies from the mains directive, a load range's
+ * light end from the load directive, and the part vertices when any part carries a spread.
+ */
+function cornersFor(rectifier: Rectifier, circuit: EquivalentCircuit, flat: FlatCircuit, settings: AnalysisSettings): Corner[] {
   const mains = rectifier.surroundings.source.mains;
   const ambient = flat.directives.find((d) => d.directive.keyword === 'ambient')?.directive;
   const fromAmbient = ambient && ambient.keyword === 'ambient' ? ambient : undefined;
@@ -100,5 +109,9 @@ function cornersFor(rectifier: Rectifier, flat: FlatCircuit, settings: AnalysisS
     lineTolHigh: mains?.tolHigh ?? settings.corners?.lineHigh,
     ambientNominalC: fromAmbient?.nominalC ?? settings.corners?.ambientNominalC,
     ambientMaxC: fromAmbient?.maxC ?? settings.corners?.ambientMaxC,
+    ...(mains?.vrmsRange && mains.vrms ? { lineRange: [mains.vrmsRange[0] / mains.vrms, mains.vrmsRange[1] / mains.vrms] as [number, number] } : {}),
+    ...(mains?.freqsHz ? { freqsHz: mains.freqsHz } : {}),
+    ...(rectifier.surroundings.load.light ? { lightLoad: rectifier.surroundings.load.light } : {}),
+    partSpread: hasPartSpread(circuit),
   });
 }

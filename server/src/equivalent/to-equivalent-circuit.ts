@@ -7,15 +7,17 @@
  * (`*@ rate <instance or subckt> vmin=`), else the solver's common-practice default. Every default
  * taken is said in a finding.
  */
+import { displayNumber } from '../../../grammar/src/index';
 import type { FlatModel } from '../circuit/index';
 import type { Finding } from '../findings/index';
-import type { RatingsOf, ResolvedRatings } from '../ratings/index';
+import type { Rated, RatingsOf, ResolvedRatings } from '../ratings/index';
 import type { Rectifier, RectifierDeviceRef } from '../recognize/index';
 import {
   DEFAULT_CONTROLLER_VMIN_V, DEFAULT_RDSON_TEMP_EXPONENT, SPICE_DIODE_DEFAULTS,
-  type EquivalentCircuit, type FilterCapacitor, type Load, type RectifierDevice,
+  type EquivalentCircuit, type InrushLimiter, type Load, type RectifierDevice,
 } from '../solve/index';
-import { diodeParamsOfForwardModel, diodeParamsOfModel } from './diode-params';
+import { bodyDiodeParams, diodeParamsOfForwardModel, diodeParamsOfModel, VSD_DEFAULT_CURRENT_A } from './diode-params';
+import { filterCapacitorOf, withVfSpread } from './part-spreads';
 
 /** The resolved ratings a rectifier's equivalent circuit is built from. */
 export interface RatedParts {
@@ -23,6 +25,10 @@ export interface RatedParts {
   devices: readonly (ResolvedRatings<'diode'> | ResolvedRatings<'mosfet'>)[];
   /** One per controller of the rectifier's active devices, in order of first appearance. */
   controllers: readonly RatingsOf<'controller'>[];
+  /** Hot resistances of NTC inrush limiters by lowercase instance name (`*@ rate R… hot=`). */
+  limiterHotOhm?: ReadonlyMap<string, Rated<number>>;
+  /** Each filter capacitor's ratings by instance name (rated ESR, tolerance, loss over life: part-spreads.ts). */
+  capacitors?: ReadonlyMap<string, RatingsOf<'capacitor'>>;
 }
 
 /**
@@ -39,7 +45,7 @@ export function toEquivalentCircuit(
 ): { circuit: EquivalentCircuit; findings: Finding[] } {
   const findings: Finding[] = [];
   const say = (message: string, code = 'default-model') => findings.push({ ...rectifier.anchor, severity: 'info', code, message });
-  const devices = rectifier.devices.map((d, k) => toDevice(d, models, rated.devices[k], say));
+  const devices = rectifier.devices.map((d, k) => withVfSpread(toDevice(d, models, rated.devices[k], say), rated.devices[k]));
   const { source } = rectifier.surroundings;
   const circuit: EquivalentCircuit = {
     kind: rectifier.kind,
@@ -48,12 +54,38 @@ export function toEquivalentCircuit(
       mainsVrms: source.mainsVrms, turnsRatio: source.turnsRatio,
     },
     devices,
-    capacitors: rectifier.surroundings.capacitors.map((c): FilterCapacitor => ({ name: c.names.join('+'), cF: c.cF, esrOhm: c.esrOhm })),
+    capacitors: rectifier.surroundings.capacitors.map((c) => filterCapacitorOf(c, rated.capacitors)),
     load: toLoad(rectifier),
   };
+  const fixed = rectifier.surroundings.load.fixed;
+  if (fixed) circuit.fixedLoad = { ...(fixed.ohm !== undefined ? { ohm: fixed.ohm } : {}), ...(fixed.a !== undefined ? { a: fixed.a } : {}) };
+  const limiter = inrushLimiterOf(rectifier, rated.limiterHotOhm, say);
+  if (limiter) {
+    circuit.inrushLimiter = limiter;
+    // The steady state runs with the limiter hot.
+    circuit.source.seriesROhm += limiter.hotROhm - limiter.coldROhm;
+  }
   if (rectifier.doubler) circuit.doubler = rectifier.doubler;
   if (devices.some((d) => d.kind === 'mosfet' && d.gate === 'controller')) circuit.controllerVminV = controllerVmin(rectifier, rated.controllers, say);
   return { circuit, findings };
+}
+
+/** The NTC limiters in the source loop, cold (card) and hot values summed and referred to the rectifier side. */
+function inrushLimiterOf(rectifier: Rectifier, hot: RatedParts['limiterHotOhm'], say: Say): InrushLimiter | undefined {
+  const found = (rectifier.surroundings.source.seriesResistors ?? []).flatMap((r) => {
+    const rated = hot?.get(r.name.toLowerCase());
+    return rated ? [{ ...r, hotOhm: rated.value }] : [];
+  });
+  // An NTC's resistance falls as it warms; a hot value at or above the card's is likely a slip.
+  for (const r of found) {
+    if (r.hotOhm >= r.ohm) say(`${r.name}: its hot resistance ${displayNumber(r.hotOhm)} Ω is not below its card (cold) value ${displayNumber(r.ohm)} Ω; an NTC limiter's falls as it warms. Taken as written`, 'assumed-condition');
+  }
+  if (found.length === 0) return undefined;
+  return {
+    names: found.map((r) => r.name),
+    coldROhm: found.reduce((s, r) => s + r.ohm * r.referral, 0),
+    hotROhm: found.reduce((s, r) => s + r.hotOhm * r.referral, 0),
+  };
 }
 
 /** The controllers of a rectifier's active devices, each once, in order of first appearance. */
@@ -91,11 +123,23 @@ function toDevice(
   const fromModel = RDSON_KEYS.map((k) => model?.params[k]).find((v) => v !== undefined && v > 0);
   const rdson = fromModel ?? (ratings?.kind === 'mosfet' ? ratings.rdsonOhm?.value : undefined);
   if (rdson === undefined) say(`${ref.name} has no on-resistance (model rdson= or *@ rate ${ref.name} rdson=); assuming ${DEFAULT_RDSON_OHM * 1000} mΩ at 25 °C`);
-  // The body diode keeps the SPICE3 diode defaults: a level-1 model's IS describes the bulk junctions, not the body diode.
   return {
     kind: 'mosfet', name: ref.name, role: ref.role, rdsOn25Ohm: rdson ?? DEFAULT_RDSON_OHM, rdsOnTempExponent: DEFAULT_RDSON_TEMP_EXPONENT,
-    body: { ...SPICE_DIODE_DEFAULTS }, gate: ref.gate ?? 'undriven', ...rth,
+    body: bodyDiode(ratings?.kind === 'mosfet' ? ratings : undefined), gate: ref.gate ?? 'undriven', ...rth,
   };
+}
+
+/**
+ * The body diode from the rated `vsd` (at the rated `id`, else a stated current), else the SPICE3
+ * diode defaults (IS 1e-14 A, N 1: about 0.83 V at 1 A). A level-1 model's IS describes the bulk
+ * junctions, not the body diode, so the `.model` card is not read for it. The default is not a
+ * finding of its own: the body diode carries current only while the channel is off, and the
+ * rules that judge that state (controller-undervoltage) say so.
+ */
+function bodyDiode(ratings: RatingsOf<'mosfet'> | undefined) {
+  const vsd = ratings?.vsdV?.value;
+  if (vsd === undefined || !(vsd > 0)) return { ...SPICE_DIODE_DEFAULTS };
+  return bodyDiodeParams(vsd, ratings?.idA?.value ?? VSD_DEFAULT_CURRENT_A);
 }
 
 function controllerVmin(rectifier: Rectifier, controllers: RatedParts['controllers'], say: Say): number {

@@ -4,9 +4,9 @@
  * change of settings re-reads the parts files and re-analyses the open documents.
  */
 import { CodeActionKind, TextDocumentSyncKind, type InitializeParams, type InitializeResult } from 'vscode-languageserver/node';
-import { DEFAULT_SETTINGS, validateSettings, type AnalysisSettings } from '../analysis/settings';
+import type { AnalysisSettings } from '../analysis/settings';
 import { askToWatchFiles, registerFileWatching } from './file-watching';
-import { reloadPartsFiles } from './parts-files';
+import { applySettings } from './project-settings';
 import type { ServerState } from './server-state';
 
 const CAPABILITIES: InitializeResult['capabilities'] = {
@@ -29,7 +29,7 @@ export function registerConfiguration(state: ServerState): void {
   connection.onInitialize((params: InitializeParams): InitializeResult => {
     const options = (params.initializationOptions ?? {}) as { trusted?: boolean; settings?: AnalysisSettings };
     state.trust = { trusted: options.trusted !== false, folders: (params.workspaceFolders ?? []).map((f) => f.uri) };
-    if (options.settings) state.settings = { ...DEFAULT_SETTINGS, ...validateSettings(options.settings) };
+    state.editorSettings = options.settings ?? {};
     state.pullConfiguration = Boolean(params.capabilities.workspace?.configuration);
     state.progressSupport = Boolean(params.capabilities.window?.workDoneProgress);
     state.watchSupport = Boolean(params.capabilities.workspace?.didChangeWatchedFiles?.dynamicRegistration);
@@ -41,6 +41,8 @@ export function registerConfiguration(state: ServerState): void {
   });
   // One handler per notification: a second onInitialized would replace this one.
   connection.onInitialized(() => {
+    // The project configuration applies from the start, with the settings given up front on top.
+    applySettings(state, state.editorSettings);
     void refreshConfiguration(state);
     askToWatchFiles(state);
   });
@@ -61,11 +63,3 @@ async function refreshConfiguration(state: ServerState): Promise<void> {
     state.connection.console.error(`rectilens: could not read settings: ${String(error)}`);
   }
 }
-
-function applySettings(state: ServerState, next: AnalysisSettings & { partsFiles?: unknown }): void {
-  const { partsFiles: paths, ...rest } = validateSettings(next);
-  state.settings = { ...DEFAULT_SETTINGS, ...rest };
-  state.partsFilePaths = Array.isArray(paths) ? paths.filter((p): p is string => typeof p === 'string') : [];
-  reloadPartsFiles(state);
-}
-

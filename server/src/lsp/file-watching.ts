@@ -1,12 +1,13 @@
 /**
  * Files that change on disk behind the editor's back: a parts file, or an include or library that
  * is not open. The server asks the editor to watch them (`workspace/didChangeWatchedFiles`,
- * registered dynamically) and, on a change, re-reads the parts files or re-analyses the roots that
+ * registered dynamically) and, on a change, re-reads the project configuration or the parts files, or re-analyses the roots that
  * read the file; an open document is the editor's business and is left alone.
  */
 import { DidChangeWatchedFilesNotification, WatchKind } from 'vscode-languageserver/node';
 import type { ServerState } from './server-state';
 import { reloadPartsFiles } from './parts-files';
+import { applySettings } from './project-settings';
 
 /**
  * What is watched: netlists, includes and libraries by the usual extensions, and JSON (parts
@@ -28,6 +29,10 @@ export function registerFileWatching(state: ServerState): void {
   const { connection } = state;
   connection.onDidChangeWatchedFiles(({ changes }) => {
     const changed = changes.map((c) => c.uri);
+    if (state.configUri && changed.includes(state.configUri)) {
+      applySettings(state, state.editorSettings);
+      return;
+    }
     if (changed.some((uri) => state.partsFileUris.has(uri))) {
       reloadPartsFiles(state);
       return;

@@ -44,6 +44,10 @@ export class ServerState {
   progressSupport = false;
   /** Whether the editor registers file watchers the server asks for. */
   watchSupport = false;
+  /** The settings the editor gave (before the project configuration is layered under them). */
+  editorSettings: AnalysisSettings & { partsFiles?: unknown } = {};
+  /** The project configuration's URI, for watching it. */
+  configUri: string | undefined;
   /** The parts-file paths the settings name, and the URIs they were read from. */
   partsFilePaths: string[] = [];
   partsFileUris: ReadonlySet<string> = new Set();

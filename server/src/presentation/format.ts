@@ -31,6 +31,11 @@ export function formatFixed(value: number | undefined, decimals: number): string
   return Math.abs(value) < 1e6 ? value.toFixed(decimals) : displayNumber(value);
 }
 
+/** Hours as a plain number ("89400 h"): a capacitor life is read in hours, not kilo-hours. */
+export function formatHours(value: number | undefined): string {
+  return value === undefined || !Number.isFinite(value) ? NO_NUMBER : `${displayNumber(value)} h`;
+}
+
 /** Human names of the rectifier kinds. */
 export const KIND_NAMES: Readonly<Record<string, string>> = {
   'diode-bridge': 'diode bridge',

@@ -30,9 +30,13 @@ export interface PolicyEntry<T> {
  * Fractions of the rating that the worst corner may reach, by the `derate` keys of DESIGN.md §3:
  * `vr` diode reverse voltage (PIV / VRRM), `if` diode average current, `ifsm` surge current,
  * `tj` junction limit, `cap` capacitor voltage, `ripple` capacitor ripple current, `vds` MOSFET
- * drain-source voltage, `id` MOSFET drain current.
+ * drain-source voltage, `id` MOSFET drain current. `life` is no fraction: the capacitor life in
+ * hours the file asks for; it has no default, so without it no life is judged.
  */
-export type DeratingPolicy = { [K in Exclude<DerateKey, 'tj'>]: PolicyEntry<number> } & { tj: PolicyEntry<JunctionLimit> };
+export type DeratingPolicy = { [K in Exclude<DerateKey, 'tj' | 'life'>]: PolicyEntry<number> } & {
+  tj: PolicyEntry<JunctionLimit>;
+  life?: PolicyEntry<number>;
+};
 
 /** Settings as the adapter passes them: fractions (0.8 for 80 %) and `tj` in °C. */
 export type DeratingSettings = Partial<Record<DerateKey, number>>;
@@ -57,7 +61,7 @@ export const DEFAULT_DERATING: DeratingPolicy = {
   ),
   ifsm: fallback(
     1,
-    'common practice: IFSM is already a single-event limit at stated conditions, compared at equal I²t ' +
+    'common practice: IFSM is already a single-event limit at stated conditions; the peak is held to it and the I²t to IFSM²·t/2 ' +
       '(NASA EEE-INST-002 would allow 50 %, from memory)',
     'common-practice',
   ),
@@ -125,7 +129,7 @@ function resolveEntries(
     else if (key === 'tj') policy.tj = { value: { kind: 'absolute', tjC: value }, origin };
     else policy[key] = { value, origin };
   };
-  for (const entry of settings) if (entry.key in defaults) apply(entry.key, entry.value, entry.origin);
+  for (const entry of settings) if (entry.key in defaults || entry.key === 'life') apply(entry.key, entry.value, entry.origin);
   for (const placed of directives ?? []) {
     if (placed.directive.keyword !== 'derate') continue;
     for (const entry of placed.directive.entries) apply(entry.key, entry.value, { kind: 'directive', uri: placed.uri, span: entry.span });
@@ -162,5 +166,6 @@ function fallback(value: number, source: string, basis: DefaultBasis): PolicyEnt
 function rangeProblem(key: DerateKey, value: number): string | undefined {
   if (!Number.isFinite(value)) return 'not a number';
   if (key === 'tj') return value < -55 || value > 400 ? 'a junction limit lies between −55 °C and 400 °C' : undefined;
+  if (key === 'life') return value > 0 ? undefined : 'a capacitor life is a number of hours above zero';
   return value <= 0 || value > 1 ? 'a derating fraction lies between 0 and 100 %' : undefined;
 }

@@ -2,8 +2,9 @@
  * The built-in catalog: JEDEC-registered generic rectifier diodes, each value with its source.
  *
  * Only the VRRM ladders and the average-current classes are sourced (REFERENCES.md §7). No
- * non-manufacturer source exists for IFSM, VF or Tjmax, and makers disagree with one another, so
- * those are typical class values from memory, marked as such, never check values. The forward
+ * non-manufacturer source exists for IFSM, VF, Tjmax or the package's thermal resistance, and
+ * makers disagree with one another, so those are typical class values from memory, marked as
+ * such, never check values. The forward
  * points are generic class values of our own choosing, and the SPICE model is our own fit to them.
  * No manufacturer's datasheet or model was used.
  */
@@ -14,7 +15,7 @@ import type { Confidence, DiodePart, DiodeRatings, DiodeTechnology, ForwardPoint
 export interface CatalogDiode extends DiodePart {
   series: CatalogSeriesId;
   /** Package outline named with the series in the source. */
-  packageName: string;
+  packageName: CatalogPackage;
 }
 
 export type CatalogSeriesId = '1n4001' | '1n5400' | '1n5817' | '1n5820';
@@ -35,10 +36,25 @@ export const SOURCE_TYPICAL = 'typical class value, from memory, not a check val
 /** The forward points of every entry. */
 export const SOURCE_CLASS_POINTS = 'generic forward points of our own choosing for the class, not measured';
 
+/** The packages of the catalog. */
+export type CatalogPackage = 'DO-41' | 'DO-201AD';
+
+/**
+ * Default junction-to-ambient thermal resistance per package, K/W: typical values, from memory
+ * (no published source found), for a part on a circuit board with leads of about 10 mm in still
+ * air. A `*@ rate … rthja=` line or a parts file overrides it, as for any catalog value.
+ */
+export const PACKAGE_RTHJA_K_PER_W: Readonly<Record<CatalogPackage, number>> = { 'DO-41': 50, 'DO-201AD': 20 };
+
+/** The source of {@link PACKAGE_RTHJA_K_PER_W}, as hovers and messages show it. */
+export function packageRthjaSource(packageName: CatalogPackage): string {
+  return `typical RθJA of the ${packageName} package on a board with about 10 mm leads, from memory, not a check value`;
+}
+
 interface SeriesSpec {
   id: CatalogSeriesId;
   technology: DiodeTechnology;
-  packageName: string;
+  packageName: CatalogPackage;
   ladder: readonly (readonly [partNumber: string, vrrmV: number])[];
   ladderSource: string;
   ladderConfidence: Confidence;
@@ -130,6 +146,7 @@ function buildEntry(spec: SeriesSpec, name: string, vrrmV: number): CatalogDiode
     // parts are rated on it is recalled, not sourced.
     ifsmDurationS: cite(0.0083, `${SOURCE_TYPICAL}; 8.3 ms is the half-sine of the "JEDEC method" that makers' sheets name`, 'from-memory'),
     tjmaxC: cite(spec.tjmaxC, SOURCE_TYPICAL, 'from-memory'),
+    rthjaKPerW: cite(PACKAGE_RTHJA_K_PER_W[spec.packageName], packageRthjaSource(spec.packageName), 'from-memory'),
     vfPoints: { value: spec.vfPoints, origin: { kind: 'catalog', partName: name, source: SOURCE_CLASS_POINTS, confidence: 'chosen' } },
     technology: {
       value: spec.technology,

@@ -23,3 +23,6 @@ export * from './surge-rating';
 export * from './stress-checks';
 export * from './select-part';
 export * from './voltage-safety';
+export * from './inrush-limiter';
+export * from './capacitor-life';
+export * from './project-config';

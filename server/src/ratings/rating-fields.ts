@@ -7,9 +7,9 @@ import type { PartKind } from './rating-records';
 
 /** Rating keys by part kind, mapped to the record field they fill. */
 export const RATING_FIELDS: Readonly<Record<PartKind, Readonly<Partial<Record<RatingKey, string>>>>> = {
-  diode: { vrrm: 'vrrmV', ifav: 'ifavA', ifsm: 'ifsmA', tjmax: 'tjmaxC', rthja: 'rthjaKPerW', vf: 'vfPoints', cost: 'cost' },
+  diode: { vrrm: 'vrrmV', ifav: 'ifavA', ifsm: 'ifsmA', tjmax: 'tjmaxC', rthja: 'rthjaKPerW', vf: 'vfPoints', vfspread: 'vfSpreadV', cost: 'cost' },
   mosfet: { vds: 'vdsV', id: 'idA', rdson: 'rdsonOhm', tjmax: 'tjmaxC', rthja: 'rthjaKPerW', vsd: 'vsdV', cost: 'cost' },
-  capacitor: { vrated: 'vratedV', iripple: 'iRippleA', esr: 'esrOhm', cost: 'cost' },
+  capacitor: { vrated: 'vratedV', iripple: 'iRippleA', esr: 'esrOhm', tol: 'capTolerance', life: 'capLifeLoss', esrlife: 'esrLifeFactor', endurance: 'endurance', rth: 'rthKPerW', cost: 'cost' },
   controller: { vmin: 'vminV', iq: 'iqA', cost: 'cost' },
 };
 

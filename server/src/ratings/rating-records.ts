@@ -95,6 +95,8 @@ export interface DiodeRatings {
   /** Forward points from which a model is fitted when the `.model` has no parameters. */
   vfPoints?: Rated<readonly ForwardPoint[]>;
   technology?: Rated<DiodeTechnology>;
+  /** Part-to-part spread of the forward voltage, low and high shift in volts (`vfspread=`, a key of our own). */
+  vfSpreadV?: Rated<readonly [number, number]>;
   cost?: Rated<number>;
 }
 
@@ -118,7 +120,23 @@ export interface CapacitorRatings {
   /** Rated ripple current (RMS). */
   iRippleA?: Rated<number>;
   esrOhm?: Rated<number>;
+  /** Capacitance tolerance as fractions, low and high (`tol=-20%,+20%`). */
+  capTolerance?: Rated<readonly [number, number]>;
+  /** Capacitance lost over life as a fraction ≤ 0 (`life=-20%`). */
+  capLifeLoss?: Rated<number>;
+  /** Factor the rated ESR rises by at end of life or cold (`esrlife=2`). */
+  esrLifeFactor?: Rated<number>;
+  /** Rated life at a core temperature (`endurance=5000h@105C`): the endurance the part is rated for. */
+  endurance?: Rated<CapacitorEndurance>;
+  /** Thermal resistance from the capacitor's core to the ambient (`rth=`), K/W. */
+  rthKPerW?: Rated<number>;
   cost?: Rated<number>;
+}
+
+/** A capacitor's rated life: hours at a core temperature. */
+export interface CapacitorEndurance {
+  hours: number;
+  atC: number;
 }
 
 /** Ratings of a synchronous-rectifier controller. */

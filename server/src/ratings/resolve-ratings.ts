@@ -123,6 +123,8 @@ function directiveLayer(kind: PartKind, uri: string, d: RateDirective, target: '
 
 function entryValue(entry: RatingEntry): unknown {
   if (entry.key === 'vf') return entry.points && entry.points.length > 0 ? entry.points : undefined;
+  if (entry.range) return entry.range;
+  if (entry.key === 'endurance') return entry.value === undefined || entry.atC === undefined ? undefined : { hours: entry.value, atC: entry.atC };
   return entry.value;
 }
 

@@ -14,17 +14,18 @@ import { halfSineSurge, leastPassingRatings, stressVerdicts, surgeCapability, ty
  */
 export const SCHOTTKY_MAX_VRRM_V = 200;
 
-/** A half-sine current pulse: its peak and its length. */
+/** A current pulse: its peak, its length and its I²t (a half-sine's, Ip²·t/2, when absent). */
 export interface SurgePulse {
   peakA: number;
   durationS: number;
+  i2tA2s?: number;
 }
 
 /** What a diode must be rated for. All limits are minimum ratings, after derating. */
 export interface DiodeRequirement {
   minVrrmV?: number;
   minIfavA?: number;
-  /** The pulse the IFSM rating must cover, compared at equal I²t. */
+  /** The pulse the IFSM rating must cover, by its peak and by its I²t. */
   surge?: SurgePulse;
   minTjmaxC?: number;
   /** Allowed constructions; absent means any. Pass the current part's to keep the designer's choice. */
@@ -61,7 +62,7 @@ const AT_RATING: DeratingPolicy = (() => {
 const CHECKED: readonly { stress: StressKind; label: string; unit: string }[] = [
   { stress: 'reverse-voltage', label: 'VRRM', unit: 'V' },
   { stress: 'average-current', label: 'IF(AV)', unit: 'A' },
-  { stress: 'surge', label: 'IFSM (equal I²t)', unit: 'A' },
+  { stress: 'surge', label: 'IFSM (peak and I²t)', unit: 'A' },
 ];
 
 /**
@@ -123,7 +124,7 @@ function stressInputs(pivV: number | undefined, iavgA: number | undefined, surge
   const worst: NonNullable<StressInputs['worst']> = {};
   if (pivV !== undefined) worst.pivV = { value: pivV };
   if (iavgA !== undefined) worst.iavgA = { value: iavgA };
-  return surge ? { worst, surge: halfSineSurge(surge.peakA, surge.durationS) } : { worst };
+  return surge ? { worst, surge: halfSineSurge(surge.peakA, surge.durationS, surge.i2tA2s) } : { worst };
 }
 
 function compareKeys(a: readonly number[], b: readonly number[]): number {

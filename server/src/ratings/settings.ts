@@ -92,4 +92,4 @@ export const CLIENT_SETTINGS = {
 } as const;
 
 /** `*@ derate` keys no setting sets: they are given in the file or left at their default. */
-export const DIRECTIVE_ONLY_DERATE_KEYS: readonly DerateKey[] = ['ripple', 'id'];
+export const DIRECTIVE_ONLY_DERATE_KEYS: readonly DerateKey[] = ['ripple', 'id', 'life'];

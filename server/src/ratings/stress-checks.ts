@@ -7,9 +7,13 @@
  *
  * Severity: beyond the rating itself the part is outside what its maker guarantees (error);
  * beyond only the policy's fraction it lacks the margin the policy asks for (warning). The surge
- * is compared at equal I²t over the surge's half-cycle (REFERENCES.md §5, D): an I²t beyond the
- * rating's is an error, a surge figure beyond the derated converted IFSM a warning (a short spike:
- * holding its peak to IFSM is the conservative common practice). The junction is held to
+ * is judged twice (REFERENCES.md §5, D): its peak against IFSM, and its ∫i²dt against the
+ * rating's I²t over the rated pulse, IFSM²·t_rated/2 (a half-sine of t_rated, 8.3 ms unless the
+ * part says otherwise). The policy's `ifsm` fraction applies to the current, so to the I²t
+ * squared. Whichever uses more of its rating, compared as currents (the peak, and the half-sine
+ * peak √(2·I²t/t_rated) of the same I²t), binds. An I²t beyond the rating's is an error (energy
+ * the part is not rated to absorb); a peak beyond IFSM with the I²t inside is a warning (a short
+ * spike: holding its peak to IFSM is the conservative common practice). The junction is held to
  * `junctionLimitC` of the policy; beyond Tjmax itself is an error.
  */
 import { junctionLimitC, type DeratingPolicy } from './derating-policy';
@@ -33,8 +37,11 @@ export interface StressInputs {
     tjC?: StressFigure;
     thermalRunaway?: boolean;
   };
-  /** The switch-on surge: its I²t over the half-cycle and the figure held against IFSM. */
-  surge?: { i2tA2s: number; figureA: number; durationS: number };
+  /**
+   * The switch-on surge: its I²t over the half-cycle `durationS`, its peak (`figureA` when no
+   * `peakA` is given: a half-sine pulse) and the figure that picked its worst case.
+   */
+  surge?: { i2tA2s: number; figureA: number; durationS: number; peakA?: number };
   /** Without a thermal resistance the junction is only the ambient and is not judged. */
   rthjaKPerW?: number;
 }
@@ -56,8 +63,26 @@ export interface StressVerdict {
   limit?: number;
   /** `limit − figure`: the room left, negative beyond the policy. */
   margin?: number;
-  /** Surges only: the I²t the rating allows over the surge's half-cycle. */
+  /** Surges only: the I²t the rating allows, IFSM²·t_rated/2. */
   ratedI2tA2s?: number;
+  /** Surges only: the two comparisons and which binds. */
+  surge?: SurgeJudgement;
+}
+
+/** A surge held against IFSM by its peak and against the rated I²t by its ∫i²dt. */
+export interface SurgeJudgement {
+  peakA: number;
+  ifsmA: number;
+  /** The pulse length IFSM is rated for. */
+  ratedS: number;
+  i2tA2s: number;
+  ratedI2tA2s: number;
+  /** peak / IFSM. */
+  peakShare: number;
+  /** I²t / rated I²t. */
+  i2tShare: number;
+  /** The comparison that uses more of its rating, as currents (peak/IFSM against √(I²t share)). */
+  binding: 'peak' | 'i2t';
 }
 
 type Ratings = DiodeRatings | MosfetRatings;
@@ -116,7 +141,7 @@ export function ratioSeverity(figure: number, rating: number, fraction: number):
  * cover: the same table inverted (figure / fraction). Keys are the rating fields.
  */
 export function leastPassingRatings(inputs: StressInputs, policy: DeratingPolicy): {
-  vrrmV?: number; vdsV?: number; ifavA?: number; idA?: number; surge?: { peakA: number; durationS: number };
+  vrrmV?: number; vdsV?: number; ifavA?: number; idA?: number; surge?: { peakA: number; i2tA2s: number; durationS: number };
 } {
   const worst = inputs.worst ?? {};
   const out: ReturnType<typeof leastPassingRatings> = {};
@@ -126,13 +151,19 @@ export function leastPassingRatings(inputs: StressInputs, policy: DeratingPolicy
     const field = fields[s.stress as keyof typeof fields];
     if (figure !== undefined) out[field] = figure / s.fraction(policy);
   }
-  if (inputs.surge) out.surge = { peakA: inputs.surge.figureA / policy.ifsm.value, durationS: inputs.surge.durationS };
+  const f = policy.ifsm.value;
+  if (inputs.surge) out.surge = { peakA: surgePeakA(inputs.surge) / f, i2tA2s: inputs.surge.i2tA2s / (f * f), durationS: inputs.surge.durationS };
   return out;
 }
 
-/** A half-sine pulse as surge inputs: its figure is its peak, its I²t Ip²·t/2. */
-export function halfSineSurge(peakA: number, durationS: number): NonNullable<StressInputs['surge']> {
-  return { figureA: peakA, i2tA2s: halfSineI2tA2s(peakA, durationS), durationS };
+/** A half-sine pulse as surge inputs: its figure is its peak, its I²t Ip²·t/2 (or `i2tA2s` when given). */
+export function halfSineSurge(peakA: number, durationS: number, i2tA2s = halfSineI2tA2s(peakA, durationS)): NonNullable<StressInputs['surge']> {
+  return { figureA: peakA, peakA, i2tA2s, durationS };
+}
+
+/** The least IFSM, rated for `ratedS`, whose peak and I²t both cover a surge: max(peak, √(2·I²t/t_rated)). */
+export function leastIfsmA(surge: { peakA: number; i2tA2s: number }, ratedS: number): number {
+  return Math.max(surge.peakA, Math.sqrt((2 * surge.i2tA2s) / ratedS));
 }
 
 /** The IFSM rating converted to a pulse length at equal I²t, with the I²t it allows; undefined without an IFSM. */
@@ -149,12 +180,30 @@ function ratioVerdict(stress: StressKind, figure: number, rating: number | undef
   return { stress, status: ratioSeverity(figure, rating, fraction) ?? 'pass', figure, rating, limit, margin: limit - figure };
 }
 
+function surgePeakA(surge: NonNullable<StressInputs['surge']>): number {
+  return surge.peakA ?? surge.figureA;
+}
+
+/**
+ * The surge's verdict. Its figure is the binding comparison as a current, max(peak, √(2·I²t/t_rated)),
+ * held to IFSM times the policy's fraction.
+ */
 function surgeVerdict(surge: NonNullable<StressInputs['surge']>, ratings: DiodeRatings, policy: DeratingPolicy): StressVerdict {
   const capability = surgeCapability(ratings, surge.durationS);
-  if (!capability) return { stress: 'surge', status: 'unrated', figure: surge.figureA };
-  const limit = capability.equivalentA * policy.ifsm.value;
-  const status = surge.i2tA2s > capability.i2tA2s ? 'error' : surge.figureA > limit ? 'warning' : 'pass';
-  return { stress: 'surge', status, figure: surge.figureA, rating: capability.equivalentA, limit, margin: limit - surge.figureA, ratedI2tA2s: capability.i2tA2s };
+  const peakA = surgePeakA(surge);
+  if (!capability) return { stress: 'surge', status: 'unrated', figure: peakA };
+  const { ifsmA, ratedS, i2tA2s: ratedI2tA2s } = capability;
+  const peakShare = peakA / ifsmA;
+  // The I²t's share as a current first (√(2·I²t/t_rated)/IFSM), so a tiny IFSM's squared rating cannot underflow the comparison.
+  const equivalentShare = Math.sqrt((2 * surge.i2tA2s) / ratedS) / ifsmA;
+  const i2tShare = equivalentShare ** 2;
+  const figure = leastIfsmA({ peakA, i2tA2s: surge.i2tA2s }, ratedS);
+  const limit = ifsmA * policy.ifsm.value;
+  const status = surge.i2tA2s > ratedI2tA2s ? 'error' : figure > limit ? 'warning' : 'pass';
+  const judgement: SurgeJudgement = {
+    peakA, ifsmA, ratedS, i2tA2s: surge.i2tA2s, ratedI2tA2s, peakShare, i2tShare, binding: peakShare >= equivalentShare ? 'peak' : 'i2t',
+  };
+  return { stress: 'surge', status, figure, rating: ifsmA, limit, margin: limit - figure, ratedI2tA2s, surge: judgement };
 }
 
 function junctionVerdict(inputs: StressInputs, ratings: Ratings, policy: DeratingPolicy): StressVerdict | undefined {

@@ -15,6 +15,7 @@ import { classifyGate } from './gates';
 import { matchHalfWaves } from './half-wave';
 import type { Match } from './match';
 import { matchNearMisses } from './near-miss';
+import { noRectifierFinding } from './no-rectifier';
 import type { Recognition, Rectifier } from './rectifier';
 import { findSurroundings, type SurroundingDirectives } from './surroundings';
 import { matchThreePhase } from './three-phase';
@@ -38,7 +39,7 @@ export function recognizeRectifiers(
     if (!ctx.exhausted) for (const match of matcher(ctx)) matches.push(match);
   }
   const fill = pickDirectives(directives, flat.rootUri);
-  const diagnostics: Finding[] = [...near.diagnostics, ...budgetFinding(ctx)];
+  const diagnostics: Finding[] = [...near.diagnostics, ...budgetFinding(ctx), ...noRectifierFinding(ctx, matches.length + near.nearMisses.length)];
   const rectifiers = matches.map((match) => {
     const built = buildRectifier(ctx, match, fill);
     diagnostics.push(...built.diagnostics);

@@ -55,6 +55,8 @@ export interface SourceFinding extends AcSource {
   mains?: MainsDirective;
   /** True when no source was found and one was assumed. */
   assumed: boolean;
+  /** The resistors in the loop, each with the factor that refers it to the rectifier side (1, or the turns ratio squared). */
+  seriesResistors?: { name: string; ohm: number; referral: number }[];
 }
 
 /** Filter capacitors across the output (parallel ones merged). */
@@ -64,9 +66,23 @@ export interface CapacitorFinding {
   esrOhm: number;
   /** Resistors taken as series ESR. */
   esrResistors: string[];
+  /** The capacitors merged here, each with its own series resistor (ESR) when drawn. */
+  members?: CapacitorMember[];
 }
 
-export type LoadFinding = Load & { elements: string[]; fromDirective: boolean };
+export interface CapacitorMember {
+  name: string;
+  cF: number;
+  esrOhm: number;
+  /** The resistor drawn in series, taken as ESR. */
+  esr?: string;
+}
+
+/**
+ * The load. With a `*@ load` directive, `elements` are the parts drawn across the output beside
+ * it, summed in `fixed`, and `light` is the light end of a load range.
+ */
+export type LoadFinding = Load & { elements: string[]; fromDirective: boolean; light?: Load; fixed?: { ohm?: number; a?: number; elements: string[] } };
 
 export interface Surroundings {
   source: SourceFinding;

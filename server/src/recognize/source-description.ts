@@ -30,6 +30,7 @@ interface LoopReading {
   rOhm: number;
   lH: number;
   elements: string[];
+  resistors: { name: string; ohm: number; referral: number }[];
   transformer?: TransformerFinding;
   notes: string[];
 }
@@ -50,7 +51,7 @@ export function describeSource(ctx: RecognizeContext, match: Match, mains: Mains
   const source: SourceFinding = {
     vrms: peakV / Math.SQRT2, freqHz, seriesROhm: reading.rOhm, seriesLH: reading.lH,
     mainsVrms: (magnitude(reading.lineEmf) * lineScale) / Math.SQRT2, turnsRatio: reading.ratio,
-    elements: reading.elements, transformer: reading.transformer, mains, assumed: false,
+    elements: reading.elements, transformer: reading.transformer, mains, assumed: false, seriesResistors: reading.resistors,
   };
   return { source, notes };
 }
@@ -75,18 +76,24 @@ function assumedSource(match: Match, mains: MainsDirective | undefined): { sourc
 
 /** Sums a loop: sources, windings (through their transformer), resistors and inductors. */
 function readLoop(ctx: RecognizeContext, steps: readonly Step[], mains: MainsDirective | undefined): LoopReading {
-  const r: LoopReading = { emf: zero(), lineEmf: zero(), ratio: 1, rOhm: 0, lH: 0, elements: [], notes: [] };
+  const r: LoopReading = { emf: zero(), lineEmf: zero(), ratio: 1, rOhm: 0, lH: 0, elements: [], resistors: [], notes: [] };
   for (const step of steps) {
     const e = step.element;
     r.elements.push(e.name);
     const sign = e.terminals[0]!.node === step.from ? 1 : -1;
-    if (e.kind === 'resistor') r.rOhm += e.value ?? 0;
+    if (e.kind === 'resistor') addResistor(r, e, 1);
     else if (e.kind === 'vsource') addSine(r, e, sign, 1);
     else if (e.kind === 'inductor' && ctx.couplings.has(e.key)) addWinding(ctx, r, e, sign, mains);
     else if (e.kind === 'inductor') r.lH += e.value ?? 0;
   }
   if (magnitude(r.lineEmf) === 0 && magnitude(r.emf) === 0 && !mains) r.notes.push('the source on the loop has no amplitude');
   return r;
+}
+
+function addResistor(r: LoopReading, e: FlatElement, referral: number): void {
+  const ohm = e.kind === 'resistor' ? (e.value ?? 0) : 0;
+  r.rOhm += ohm * referral;
+  r.resistors.push({ name: e.name, ohm, referral });
 }
 
 function addSine(r: LoopReading, e: FlatElement, sign: number, ratio: number): void {
@@ -125,7 +132,7 @@ function addWinding(ctx: RecognizeContext, r: LoopReading, winding: FlatElement,
   for (const step of drive.primaryLoop) {
     const e = step.element;
     r.elements.push(e.name);
-    if (e.kind === 'resistor') r.rOhm += (e.value ?? 0) * referred;
+    if (e.kind === 'resistor') addResistor(r, e, referred);
     else if (e.kind === 'inductor' && !ctx.couplings.has(e.key)) r.lH += (e.value ?? 0) * referred;
     else if (e.kind === 'vsource') addSine(r, e, sign * (e.terminals[0]!.node === step.from ? 1 : -1), t.voltageRatio);
   }

@@ -1,15 +1,17 @@
 /**
  * Around each rectifier: the filter capacitors across its output (a resistor in series with a
- * capacitor is its ESR; parallel capacitors are merged), the load (resistors and DC current sources
- * across the output, else the `*@ load` directive), and the AC source (source-description.ts).
+ * capacitor is its ESR; parallel capacitors are merged), the load (the `*@ load` directive with any
+ * resistors and DC current sources across the output drawing beside it, else those parts alone),
+ * and the AC source (source-description.ts).
  * Whatever is missing is assumed and said in an `assumed-condition` info finding.
  */
-import type { LoadDirective, MainsDirective } from '../../../grammar/src/index';
+import type { LoadDirective, LoadSpec, MainsDirective } from '../../../grammar/src/index';
+import type { Load } from '../solve/equivalent-circuit';
 import type { FlatElement, Place } from '../circuit/index';
 import type { Finding } from '../findings/index';
 import type { RecognizeContext } from './context';
 import type { Match } from './match';
-import type { CapacitorFinding, LoadFinding, Surroundings } from './rectifier';
+import type { CapacitorFinding, CapacitorMember, LoadFinding, Surroundings } from './rectifier';
 import { describeSource } from './source-description';
 
 /** The directives that fill gaps in the circuit. */
@@ -36,7 +38,7 @@ export function findSurroundings(ctx: RecognizeContext, match: Match, directives
 
 /** Capacitors across x–y, directly or through one series resistor (taken as ESR), merged. */
 export function findCapacitor(ctx: RecognizeContext, x: string, y: string): CapacitorFinding | undefined {
-  const parts: { name: string; cF: number; esrOhm: number; esr?: string }[] = [];
+  const parts: CapacitorMember[] = [];
   for (const c of ctx.between('capacitor', x, y)) if (c.kind === 'capacitor' && c.value) parts.push({ name: c.name, cF: c.value, esrOhm: 0 });
   for (const { element: c, terminal } of [...ctx.graph.at(x), ...ctx.graph.at(y)]) {
     if (c.kind !== 'capacitor' || !c.value || c.terminals.length !== 2) continue;
@@ -50,7 +52,7 @@ export function findCapacitor(ctx: RecognizeContext, x: string, y: string): Capa
   // Parallel branches: capacitances add; the ESRs combine in parallel (exact when the time constants match).
   const cF = parts.reduce((s, p) => s + p.cF, 0);
   const esrOhm = parts.some((p) => p.esrOhm === 0) ? 0 : 1 / parts.reduce((s, p) => s + 1 / p.esrOhm, 0);
-  return { names: parts.map((p) => p.name), cF, esrOhm, esrResistors: parts.flatMap((p) => (p.esr ? [p.esr] : [])) };
+  return { names: parts.map((p) => p.name), cF, esrOhm, esrResistors: parts.flatMap((p) => (p.esr ? [p.esr] : [])), members: parts };
 }
 
 /** The one resistor from `mid` to `far`, when `mid` holds nothing but it and the capacitor. */
@@ -61,7 +63,11 @@ function seriesResistor(ctx: RecognizeContext, mid: string, far: string, cap: Fl
   return r.kind === 'resistor' && r.terminals.length === 2 && r.terminals[1 - others[0]!.terminal]!.node === far ? r : undefined;
 }
 
-/** Resistors and DC current sources across the output, else the directive, else no load (said). */
+/**
+ * The load: the `*@ load` directive (its range's light end as `light`) with the resistors and DC
+ * current sources across the output drawing beside it (`fixed`: a bleeder adds to the load, it
+ * never replaces it); without a directive those parts alone; else no load (said).
+ */
 export function findLoad(ctx: RecognizeContext, p: string, n: string, directive: LoadDirective | undefined, notes: string[]): LoadFinding {
   const resistors = ctx.between('resistor', p, n).filter((r) => r.kind === 'resistor' && r.value !== undefined && r.value > 0);
   const currents = ctx.between('isource', p, n);
@@ -69,13 +75,25 @@ export function findLoad(ctx: RecognizeContext, p: string, n: string, directive:
   // SPICE current flows from n+ through the source to n−: a source from DC+ to DC− draws from the output.
   const drawnA = currents.reduce((s, i) => s + (i.kind === 'isource' ? (i.terminals[0]!.node === p ? i.dc : -i.dc) : 0), 0);
   const names = [...resistors, ...currents].map((e) => e.name);
+  const spec = directive?.load;
+  if (spec) {
+    const found: LoadFinding = { ...loadOfSpec(spec, directive.vminV), elements: names, fromDirective: true };
+    if (directive.lightLoad) found.light = loadOfSpec(directive.lightLoad, directive.vminV);
+    if (names.length) {
+      found.fixed = { elements: names };
+      if (resistors.length) found.fixed.ohm = resistors.length === 1 ? (resistors[0] as { value: number }).value : 1 / conductanceS;
+      if (currents.length) found.fixed.a = drawnA;
+    }
+    return found;
+  }
   if (resistors.length && currents.length) notes.push(`both resistors and current sources load ${p}/${n}; the current sources are left out`);
   if (resistors.length) return { kind: 'resistance', ohm: 1 / conductanceS, elements: names, fromDirective: false };
   if (currents.length) return { kind: 'current', a: drawnA, elements: names, fromDirective: false };
-  const spec = directive?.load;
-  if (spec?.kind === 'power') return { kind: 'power', w: spec.w, vminV: directive?.vminV, elements: [], fromDirective: true };
-  if (spec?.kind === 'current') return { kind: 'current', a: spec.a, elements: [], fromDirective: true };
-  if (spec?.kind === 'resistance') return { kind: 'resistance', ohm: spec.ohm, elements: [], fromDirective: true };
   notes.push(`no load found across ${p}/${n}; assuming no load`);
   return { kind: 'none', elements: [], fromDirective: false };
+}
+
+function loadOfSpec(spec: LoadSpec, vminV: number | undefined): Load {
+  if (spec.kind === 'power') return vminV === undefined ? { kind: 'power', w: spec.w } : { kind: 'power', w: spec.w, vminV };
+  return spec.kind === 'current' ? { kind: 'current', a: spec.a } : { kind: 'resistance', ohm: spec.ohm };
 }

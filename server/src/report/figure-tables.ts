@@ -4,7 +4,9 @@
  */
 import type { DeviceAnalysis, RectifierAnalysis } from '../equivalent/index';
 import type { CornerSolution, DeviceSolution, WorstFigures, WorstValue } from '../solve/index';
-import { formatCelsius, formatFixed, formatPercent, formatSi } from '../presentation/format';
+import { formatCelsius, formatFixed, formatPercent, formatSi, trim } from '../presentation/format';
+import { halfSineI2tA2s } from '../ratings/index';
+import { loadAmountText, namesText, partVertexShort } from '../presentation/operating-conditions';
 
 export interface FigureRow {
   label: string;
@@ -38,9 +40,26 @@ const RECTIFIER_FIGURES: readonly CornerFigure[] = [
   { label: 'Power factor', key: 'powerFactor', get: (c) => c.powerFactor, show: (v) => formatFixed(v, 3) },
   { label: 'Current THD (orders 2–40)', key: 'thd', get: (c) => c.thd, show: formatPercent },
   { label: 'Inrush peak', key: 'inrushPeakA', get: (c) => c.inrushPeakA, show: (v) => formatSi(v, 'A') },
-  { label: 'Inrush I²t, first half-cycle', key: 'inrushI2tA2s', get: (c) => c.inrushI2tA2s, show: (v) => formatSi(v, 'A²s') },
+  { label: 'Inrush I²t, first half-cycle (largest device)', key: 'inrushI2tA2s', get: (c) => c.inrushI2tA2s, show: formatI2t },
   { label: 'Hold-up to load vmin', key: 'holdUpS', get: (c) => c.holdUpS, show: (v) => formatSi(v, 's') },
 ];
+
+/**
+ * What each corner solved: its line (and frequency), ambient and load, and the part vertex when
+ * any part carries a spread (solve/corners.ts says which vertex is worst for what).
+ */
+export function cornerConditionTable(analysis: RectifierAnalysis): FigureTable {
+  const { corners } = analysis.solution;
+  const fixed = analysis.rectifier.surroundings.load.fixed;
+  const beside = fixed ? ` + ${namesText(fixed.elements)}` : '';
+  const rows: FigureRow[] = [
+    { label: 'Line', cells: corners.map((c) => `${formatSi(c.lineVrms, 'V')}${c.freqHz !== undefined ? ` ${formatSi(c.freqHz, 'Hz')}` : ''}`) },
+    { label: 'Ambient', cells: corners.map((c) => formatCelsius(c.ambientC)) },
+    { label: 'Load', cells: corners.map((c) => `${loadAmountText(c.load)}${beside}`) },
+  ];
+  if (corners.some((c) => c.parts)) rows.push({ label: 'Parts', cells: corners.map((c) => partVertexShort(c.parts)) });
+  return { title: 'Corners', corners: corners.map((c) => c.name), rows };
+}
 
 /** The rectifier-level figures per corner; rows with no value at any corner are left out. */
 export function rectifierFigureTable(analysis: RectifierAnalysis): FigureTable {
@@ -49,7 +68,14 @@ export function rectifierFigureTable(analysis: RectifierAnalysis): FigureTable {
   const rows = RECTIFIER_FIGURES.filter((f) => corners.some((c) => f.get(c) !== undefined)).map((f): FigureRow => ({
     label: f.label, cells: corners.map((c) => f.show(f.get(c))), ...worstIndexOf(worst[f.key], names),
   }));
+  // Which inrush case gave the peak (both crests; with an NTC limiter, cold start and hot restart).
+  if (corners.some((c) => c.inrushCase)) rows.push({ label: 'Inrush case of the peak', cells: corners.map((c) => c.inrushCase ?? '') });
   return { title: 'Rectifier figures per corner', corners: names, rows };
+}
+
+/** I²t always in A²s (an SI prefix on a squared unit reads wrongly: "mA²s" is not 10⁻³ A²s). */
+export function formatI2t(value: number | undefined): string {
+  return value === undefined || !Number.isFinite(value) ? '—' : `${trim(value)} A²s`;
 }
 
 type DeviceFigure = { label: string; key: keyof DeviceSolution & keyof DeviceRowWorst; show: (v: number | undefined) => string; rating?: (d: DeviceAnalysis) => number | undefined; ratingUnit?: string };
@@ -92,7 +118,24 @@ function deviceRows(device: DeviceAnalysis, names: readonly string[]): FigureRow
     const row: FigureRow = { label: f.label, cells, ...worstIndexOf(worst[f.key], names) };
     if (rated !== undefined) row.rating = f.ratingUnit === '°C' ? formatCelsius(rated) : formatSi(rated, f.ratingUnit ?? '');
     return row;
-  });
+  }).concat(surgeRows(device, names));
+}
+
+/** The device's own switch-on surge per corner (its worse crest, and cold or hot with an NTC), the worst marked. */
+function surgeRows(device: DeviceAnalysis, names: readonly string[]): FigureRow[] {
+  const surge = device.figures.surge;
+  if (!surge) return [];
+  const worst = worstIndexOf({ value: surge.figureA, corner: surge.corner }, names);
+  const r = device.ratings.ratings;
+  const peak: FigureRow = { label: 'Inrush peak', cells: device.figures.corners.map((c) => formatSi(c.figures?.inrushPeakA, 'A')), ...worst };
+  const i2t: FigureRow = { label: 'Inrush I²t, first half-cycle', cells: device.figures.corners.map((c) => formatI2t(c.figures?.inrushI2tA2s)), ...worst };
+  if (r.kind === 'diode' && r.ifsmA) {
+    const ratedS = r.ifsmDurationS?.value;
+    peak.rating = `IFSM ${formatSi(r.ifsmA.value, 'A')}`;
+    if (ratedS !== undefined) i2t.rating = `${formatI2t(halfSineI2tA2s(r.ifsmA.value, ratedS))} (IFSM²·t/2)`;
+  }
+  const inrushCase: FigureRow = { label: 'Inrush case', cells: device.figures.corners.map((c) => c.figures?.inrushCase ?? '') };
+  return [peak, i2t, inrushCase];
 }
 
 /** The reverse rating a device's PIV is held against: VRRM for a diode, VDS for a MOSFET. */

@@ -7,7 +7,9 @@
 import type { FileAnalysis } from '../analysis/analyze';
 import type { RectifierAnalysis } from '../equivalent/index';
 import { MAINS_CAUTION, type DeratingPolicy } from '../ratings/index';
-import { deviceFigureTables, rectifierFigureTable } from './figure-tables';
+import { cornerConditionTable, deviceFigureTables, rectifierFigureTable } from './figure-tables';
+import { capacitorFigureTables } from './capacitor-tables';
+import { loadCompositionText } from '../presentation/operating-conditions';
 import {
   fileNeedsCaution, rectifierLabel, renderCautionHtml, renderFigureTableHtml, renderFindingsHtml, renderNotesHtml,
 } from './html-blocks';
@@ -80,11 +82,14 @@ function renderRectifierSection(analysis: RectifierAnalysis, policy: DeratingPol
   return [
     `<section class="rl-card" data-rectifier="${escapeMarkup(analysis.rectifier.id)}">`,
     `<h3>${escapeMarkup(label)}</h3>`,
+    `<p class="rl-sub">Load: ${escapeMarkup(loadCompositionText(analysis.rectifier.surroundings.load))}</p>`,
+    renderFigureTableHtml(cornerConditionTable(analysis)),
     renderFigureTableHtml(rectifierFigureTable(analysis)),
     ...deviceFigureTables(analysis).map(renderFigureTableHtml),
+    ...capacitorFigureTables(analysis).map(renderFigureTableHtml),
     `<h3>Waveforms: one period at ${escapeMarkup(period?.name ?? '—')}</h3>`,
     (period && renderPeriodSvg(period, { rectifierLabel: label })) ?? '<p class="rl-na">No steady-state waveform.</p>',
-    `<h3>Switch-on inrush at ${escapeMarkup(inrush?.name ?? '—')}</h3>`,
+    `<h3>Switch-on inrush at ${escapeMarkup(inrush?.name ?? '—')}${inrush?.inrushCase ? `, ${escapeMarkup(inrush.inrushCase)}` : ''}</h3>`,
     (inrush && renderInrushSvg(inrush, { rectifierLabel: label })) ?? '<p class="rl-na">No inrush waveform.</p>',
     '<h3>Topology comparison</h3>',
     renderComparisonSection(analysis, policy),

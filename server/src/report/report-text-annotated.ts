@@ -8,7 +8,9 @@ import type { FileAnalysis } from '../analysis/analyze';
 import { LineIndex } from '../../../grammar/src/index';
 import type { RectifierAnalysis } from '../equivalent/index';
 import { MAINS_CAUTION } from '../ratings/index';
-import { deviceFigureTables, rectifierFigureTable, reverseRatingV, type FigureTable } from './figure-tables';
+import { cornerConditionTable, deviceFigureTables, rectifierFigureTable, reverseRatingV, type FigureTable } from './figure-tables';
+import { capacitorFigureTables } from './capacitor-tables';
+import { loadCompositionText } from '../presentation/operating-conditions';
 import { formatCelsius, formatSi } from '../presentation/format';
 import { fileNeedsCaution, rectifierLabel } from './html-blocks';
 
@@ -80,9 +82,11 @@ function annotatedNetlist(file: FileAnalysis): string[] {
 }
 
 function rectifierSection(analysis: RectifierAnalysis): string[] {
-  const out = [`-- ${rectifierLabel(analysis)} [${analysis.rectifier.id}]`, '   corners: line low/nom/high × ambient nom/hot; * marks the worst corner of a row', ''];
+  const out = [`-- ${rectifierLabel(analysis)} [${analysis.rectifier.id}]`, '   corners: line low/nom/high × ambient nom/hot (and load, part vertex where given); * marks the worst corner of a row', ''];
+  out.push(`   load: ${loadCompositionText(analysis.rectifier.surroundings.load)}`, '');
+  out.push(...formatTextTable(cornerConditionTable(analysis)), '');
   out.push(...formatTextTable(rectifierFigureTable(analysis)), '');
-  for (const table of deviceFigureTables(analysis)) out.push(...formatTextTable(table), '');
+  for (const table of [...deviceFigureTables(analysis), ...capacitorFigureTables(analysis)]) out.push(...formatTextTable(table), '');
   if (analysis.solution.notes.length) out.push('Notes:', ...analysis.solution.notes.map((n) => `  - ${n}`), '');
   return out;
 }
@@ -100,7 +104,7 @@ function findingLines(file: FileAnalysis, displayPath: string): string[] {
 
 /** Short column heads for the corners: "high-line hot" → "high hot", "nominal-line nominal" → "nom nom". */
 export function shortCornerName(name: string): string {
-  return name.replace('-line', '').replace(/nominal/g, 'nom');
+  return name.replace('-line', '').replace(/nominal/g, 'nom').replace('-load', '');
 }
 
 /** A plain-text table: the worst cell of each row marked with `*`, a rating column when any row has one. */

@@ -15,6 +15,7 @@ import { escapeMarkup } from '../presentation/markup';
 import { PAGE_CSS } from './page-style';
 import { defaultInrushCorner, defaultPeriodCorner, renderInrushSvg, renderPeriodSvg } from './waveform-svg';
 import { formatFixed, formatPercent, formatSi } from '../presentation/format';
+import { formatI2t } from './figure-tables';
 
 export type { ViewContent };
 
@@ -38,7 +39,7 @@ export function renderWaveformView(file: FileAnalysis, rectifierId?: string): Vi
       period ? `<p class="rl-sub">${escapeMarkup(periodSummary(period))}</p>` : '',
       periodSvg ?? '<p class="rl-na">No steady-state waveform: the solver found no solution for this rectifier.</p>',
       `<h3>Switch-on inrush at ${escapeMarkup(inrush?.name ?? '—')}</h3>`,
-      inrush ? `<p class="rl-sub">Closed at the crest with the capacitor empty: peak ${escapeMarkup(formatSi(inrush.inrushPeakA, 'A'))}, I²t ${escapeMarkup(formatSi(inrush.inrushI2tA2s, 'A²s'))}.</p>` : '',
+      inrush ? `<p class="rl-sub">${escapeMarkup(capitalised(inrush.inrushCase ?? 'switch-on at the crest'))}, the capacitor empty: peak ${escapeMarkup(formatSi(inrush.inrushPeakA, 'A'))}, I²t ${escapeMarkup(formatI2t(inrush.inrushI2tA2s))} (largest device).</p>` : '',
       inrushSvg ?? '<p class="rl-na">No inrush waveform for this rectifier.</p>',
       renderNotesHtml(analysis),
     ].join('\n');
@@ -99,4 +100,8 @@ function fileName(uri: string): string {
   } catch {
     return tail;
   }
+}
+
+function capitalised(text: string): string {
+  return text.charAt(0).toUpperCase() + text.slice(1);
 }

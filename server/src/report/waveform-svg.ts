@@ -5,7 +5,7 @@
  * `device-current:<name>`; inrush traces `inrush-source-voltage`, `inrush-output-voltage`,
  * `inrush-current` (the source current) and `inrush-device-current:<name>`.
  */
-import type { CornerSolution, Waveform } from '../solve/index';
+import { isNominalCorner, type CornerSolution, type Waveform } from '../solve/index';
 import { renderTimeChart, TRACE_COLOURS, type ChartSeries } from './chart-svg';
 
 /** Which corner a chart shows, for its title. */
@@ -24,7 +24,7 @@ export function renderPeriodSvg(corner: CornerSolution, options: WaveformChartOp
 /** The first half-cycle after switch-on at the crest, capacitors empty, or undefined without one. */
 export function renderInrushSvg(corner: CornerSolution, options: WaveformChartOptions): string | undefined {
   return renderWaveform(corner.inrushWaveform, options, {
-    title: `switch-on inrush half-cycle at ${corner.name}`, chartId: 'inrush', timeUnit: 'ms after switch-on', idPrefix: 'inrush-',
+    title: `switch-on inrush half-cycle at ${corner.name}${corner.inrushCase ? `, ${corner.inrushCase}` : ''}`, chartId: 'inrush', timeUnit: 'ms after switch-on', idPrefix: 'inrush-',
     outputName: 'output (charging)',
   });
 }
@@ -85,7 +85,7 @@ function relativeMs(w: Waveform): number[] {
  * operating point a designer thinks of first), else the first corner with a waveform.
  */
 export function defaultPeriodCorner(corners: readonly CornerSolution[]): CornerSolution | undefined {
-  return corners.find((c) => c.name === 'nominal-line nominal' && c.waveform) ?? corners.find((c) => c.waveform);
+  return corners.find((c) => isNominalCorner(c.name) && c.waveform) ?? corners.find((c) => c.waveform);
 }
 
 /** The corner an inrush chart shows: the one with the largest inrush peak, else the first with a waveform. */

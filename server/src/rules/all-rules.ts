@@ -5,6 +5,7 @@
  */
 import type { Rule } from './registry';
 import { bypassedDeviceRule } from './bypassed-device';
+import { capLifeRule } from './cap-life';
 import { capRippleRule } from './cap-ripple';
 import { capVoltageRule } from './cap-voltage';
 import { controllerUndervoltageRule } from './controller-undervoltage';
@@ -24,7 +25,7 @@ import { thermalRunawayRule } from './thermal-runaway';
 
 export const ALL_RULES: readonly Rule[] = [
   pivMarginRule, currentRatingRule, surgeRatingRule, junctionTempRule, thermalRunawayRule,
-  mosfetVdsRule, capVoltageRule, capRippleRule, controllerUndervoltageRule, harmonicLimitRule,
+  mosfetVdsRule, capVoltageRule, capRippleRule, capLifeRule, controllerUndervoltageRule, harmonicLimitRule,
   missingRatingRule, mixedBridgeRule, hazardousVoltageRule, implausibleValueRule, shortedSourceRule,
   bypassedDeviceRule, duplicateNameRule,
 ];

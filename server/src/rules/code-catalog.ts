@@ -37,8 +37,8 @@ const CIRCUIT: Readonly<Record<string, [string, string]>> = {
   'include-cycle': ['files include each other in a cycle', 'Remove one of the includes.'],
   'include-depth': ['includes nested too deeply', 'Flatten the include chain.'],
   'include-error': ['an included file has errors, so part of the circuit was not analysed as written', 'Fix the errors in the included file; the message quotes the first.'],
-  'unknown-subckt': ['an X card names a subcircuit that is not defined', 'Define or include the subcircuit.'],
-  'unknown-model': ['a device names a model that is not defined', 'Define or include the model; defaults are used meanwhile.'],
+  'unknown-subckt': ['an X card names a subcircuit that is not defined (an error: nothing inside it is analysed)', 'Define or include the subcircuit; where a defined name is near, a quick fix changes the name to it.'],
+  'unknown-model': ['a device names a model that is not defined (an error: the device gets no ratings from its model)', 'Define or include the model, or take the quick fix that changes the name to the nearest defined one; defaults are used meanwhile.'],
   'subckt-redefined': ['a subcircuit is defined twice', 'The later definition wins; remove one.'],
   'recursive-subckt': ['a subcircuit instantiates itself', 'Break the recursion.'],
   'subckt-depth': ['subcircuits nested too deeply', 'Flatten the hierarchy.'],
@@ -55,6 +55,7 @@ const ANALYSIS_HELP: Readonly<Record<string, string>> = {
   'thermal-runaway': 'The part cannot dissipate its loss at this ambient: choose a larger part or add cooling.',
   'cap-voltage': 'Raise the capacitor voltage class (a quick fix does this).',
   'cap-ripple': 'Use a capacitor with a higher ripple-current rating, or several in parallel.',
+  'cap-life': 'Choose a capacitor with a longer or hotter endurance rating, lower ESR, or a cooler place; state endurance= and rth= in its rate line.',
   'controller-undervoltage': 'Below its minimum voltage the controller never switches and the bridge runs on body diodes.',
   'mosfet-vds': 'Choose a MOSFET with a higher VDS rating.',
   'harmonic-limit': 'Add power-factor correction or input inductance, or review the equipment class.',
@@ -70,6 +71,9 @@ const ANALYSIS_HELP: Readonly<Record<string, string>> = {
   'limit-exceeded': 'Split the netlist, or analyse the part that matters; the message names the limit.',
   'figure-omitted': 'Check the values feeding the rectifier for ones far outside any real part.',
   'parts-file': 'Fix the parts file where the finding points; its JSON Schema is parts-file.schema.json.',
+  'project-config': 'Fix the entry: the keys are the editor settings without their rectilens. prefix; its JSON Schema is project-config.schema.json.',
+  'no-rectifier': 'Check the node names of the device cards against the source and the filter; if no device here rectifies, allow the code.',
+  'unsolved-rectifier': 'Give the rectifier what the quoted reason lacks (a source voltage and frequency, a filter capacitor or a load resistance).',
 };
 
 /** Metadata for a code, with a generic fallback for codes added later. */

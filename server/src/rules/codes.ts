@@ -8,6 +8,7 @@ export const FINDING_CODES: Readonly<Record<string, string>> = {
   'thermal-runaway': 'loss and junction temperature do not settle',
   'cap-voltage': 'filter capacitor voltage against its rated voltage, with derating',
   'cap-ripple': 'filter capacitor ripple current against its rating',
+  'cap-life': 'filter capacitor life estimate (10 °C rule, ripple self-heating) against the life the file asks for',
   'controller-undervoltage': 'the input never reaches the synchronous controller\'s minimum operating voltage',
   'mosfet-vds': 'MOSFET drain-source voltage against its rating, with derating',
   'harmonic-limit': 'mains harmonic currents against IEC 61000-3-2 limits',
@@ -23,4 +24,7 @@ export const FINDING_CODES: Readonly<Record<string, string>> = {
   'limit-exceeded': 'a hard limit of the analysis was reached (file size, cards, cards read through includes, recognition steps, rectifiers, solver work, solver iterations); the result is partial',
   'figure-omitted': 'a figure was left out because it was not a finite number',
   'parts-file': 'a parts file is empty, not valid JSON, of an unsupported version or breaks its format; what it cannot give is not used',
+  'project-config': 'the project configuration (rectilens.json) holds an entry that is not a setting or not a valid value; that entry does not apply',
+  'no-rectifier': 'a file with an AC source and diodes or MOSFETs in which no rectifier was recognised: nothing was checked',
+  'unsolved-rectifier': 'a recognised rectifier could not be solved at some corner (the solver\'s reason quoted); its parts were not checked there',
 };

@@ -4,28 +4,30 @@
  * The solver keeps the circuit's device order in every corner, so this is the one place that
  * joins a device to the solution by position; everything else reads the result.
  *
- * The surge: the solver integrates the first half-cycle after switch-on at the crest with the
- * capacitor empty (DESIGN.md §5) and gives each device's ∫i²dt over it, and the largest current.
- * A device carrying the inrush sees that peak; a device that mostly blocks sees the half-sine
- * peak with its own I²t, √(2·I²t/t), over the half-cycle t = 1/(2f).
+ * The surge: the solver integrates the first half-cycle after switch-on at each crest with the
+ * capacitor empty, cold and (with an NTC limiter) hot (DESIGN.md §5, solve/inrush-cases.ts), and
+ * gives each device its own peak current and ∫i²dt in its worst case.
  */
 import type { EquivalentCircuit } from './equivalent-circuit';
 import type { DeviceSolution, DeviceWorst, RectifierSolution } from './solution';
+import { surgeFigureA } from './inrush-cases';
 
 /** The switch-on surge one device sees. */
 export interface SurgeStress {
   /** ∫i²dt of the device over the first half-cycle at switch-on. */
   i2tA2s: number;
-  /** Largest current of the first half-cycle (the rectifier's, carried by the conducting devices). */
+  /** The device's largest current in the first half-cycle. */
   peakA: number;
   /** The half-cycle the surge lasts: 1/(2f). */
   durationS: number;
   /**
-   * What a rating is held against: max(peak, √(2·I²t/t)). A short spike above the rated peak is
-   * not excused by a small I²t (common practice), and a long, low pulse is caught by its I²t.
+   * What picks the worst corner and case: max(peak, √(2·I²t/t)) over the half-cycle t. The
+   * rating is judged on the peak and the I²t apart (ratings/stress-checks.ts).
    */
   figureA: number;
   corner: string;
+  /** The inrush case, in words ("hot restart at the negative crest"), when the solver named it. */
+  case?: string;
 }
 
 /** A device's figures at one corner. */
@@ -45,9 +47,6 @@ export interface DeviceFigures {
   rthjaKPerW?: number;
 }
 
-/** A device carries the inrush when its I²t is a good part of the largest; the others block. */
-const CONDUCTING_SHARE = 0.25;
-
 /** The figures of device `index` of `circuit` in `solution`. */
 export function deviceFiguresOf(circuit: EquivalentCircuit, solution: RectifierSolution, index: number): DeviceFigures {
   const figures: DeviceFigures = {
@@ -63,15 +62,18 @@ export function deviceFiguresOf(circuit: EquivalentCircuit, solution: RectifierS
 }
 
 function surgeStressOf(circuit: EquivalentCircuit, solution: RectifierSolution, index: number): SurgeStress | undefined {
-  const durationS = 1 / (2 * circuit.source.freqHz);
   let worst: SurgeStress | undefined;
   for (const corner of solution.corners) {
-    const i2t = corner.devices[index]?.inrushI2tA2s;
-    if (i2t === undefined || corner.inrushPeakA === undefined) continue;
-    const largest = Math.max(...corner.devices.map((d) => d.inrushI2tA2s ?? 0));
-    const peakA = i2t >= CONDUCTING_SHARE * largest ? corner.inrushPeakA : Math.sqrt((2 * i2t) / durationS);
-    const figureA = Math.max(peakA, Math.sqrt((2 * i2t) / durationS));
-    if (!worst || figureA > worst.figureA) worst = { i2tA2s: i2t, peakA, durationS, figureA, corner: corner.name };
+    // Each corner's own line frequency: a universal input's lowest frequency has the longest half-cycle.
+    const durationS = 1 / (2 * (corner.freqHz ?? circuit.source.freqHz));
+    const d = corner.devices[index];
+    const i2t = d?.inrushI2tA2s;
+    if (i2t === undefined) continue;
+    const peakA = d?.inrushPeakA ?? 0;
+    const figureA = surgeFigureA(peakA, i2t, durationS);
+    if (worst && figureA <= worst.figureA) continue;
+    worst = { i2tA2s: i2t, peakA, durationS, figureA, corner: corner.name };
+    if (d?.inrushCase) worst.case = d.inrushCase;
   }
   return worst;
 }

@@ -43,6 +43,8 @@ export interface DiodeDevice {
   params: DiodeParams;
   /** Junction-to-ambient thermal resistance, K/W; absent means Tj is not computed from loss. */
   rthjaKPerW?: number;
+  /** Part-to-part forward-voltage spread, low and high shift in volts; the corners' part vertex picks one end. */
+  vfSpreadV?: [number, number];
 }
 
 export interface MosfetDevice {
@@ -88,10 +90,30 @@ export interface AcSource {
   turnsRatio: number;
 }
 
+/**
+ * NTC inrush limiters in the source loop, referred to the rectifier side like the loop's other
+ * resistance. The steady state runs with them hot (they run warm: `source.seriesROhm` holds the
+ * hot value); a cold start sees the cold value, a hot restart the hot one (inrush-cases.ts).
+ */
+export interface InrushLimiter {
+  names: string[];
+  /** Cold resistance: the card value, at 25 °C (common practice for an NTC's nominal value). */
+  coldROhm: number;
+  /** Hot resistance, from the `hot=` rating; part of `source.seriesROhm`. */
+  hotROhm: number;
+}
+
 export interface FilterCapacitor {
   name: string;
+  /** Nominal capacitance. */
   cF: number;
   esrOhm: number;
+  /** Smallest capacitance: tolerance and loss over life (absent: the nominal). */
+  cMinF?: number;
+  /** Largest capacitance: a new part at the top of its tolerance (absent: the nominal). */
+  cMaxF?: number;
+  /** ESR at end of life or cold, rated ESR times its rise plus any series resistor (absent: `esrOhm`). */
+  esrAgedOhm?: number;
 }
 
 export type Load =
@@ -109,14 +131,45 @@ export interface EquivalentCircuit {
   /** Bridges, half-wave, centre tap, three-phase: at most one (parallel capacitors merged). Doubler: [lower or series, upper or output]. */
   capacitors: FilterCapacitor[];
   load: Load;
+  /**
+   * Resistors and DC current sources drawn across the output when a `*@ load` directive gives
+   * the load: they draw in addition to it (a bleeder), at every corner and every load level.
+   */
+  fixedLoad?: FixedLoad;
   /** Active bridge: the controller's minimum operating voltage. */
   controllerVminV?: number;
+  /** NTC inrush limiters in the source loop, when any is rated with a hot resistance. */
+  inrushLimiter?: InrushLimiter;
 }
 
-/** One line × ambient corner. */
+/** Parts always across the output beside the load: a resistance (parallel resistors merged) and a drawn current. */
+export interface FixedLoad {
+  ohm?: number;
+  a?: number;
+}
+
+/**
+ * Which end of each part's spread a corner takes (corners.ts says why per corner): the smallest
+ * or largest capacitance, the aged or nominal ESR, the low or high forward voltage.
+ */
+export interface PartVertex {
+  capacitance: 'min' | 'max';
+  esr: 'nominal' | 'aged';
+  vf: 'low' | 'high';
+}
+
+/** One operating corner: line, ambient, and where given line frequency, load level and part vertex. */
 export interface Corner {
   name: string;
-  /** Multiplier on the nominal source voltage (1 + tolerance). */
+  /** Multiplier on the nominal source voltage (1 + tolerance; a universal input's ends relative to its nominal). */
   lineScale: number;
   ambientC: number;
+  /** Line frequency at this corner; absent: the source's own. */
+  freqHz?: number;
+  /** The load this corner is solved at, replacing the circuit's own; absent: the circuit's load (its full end). */
+  load?: Load;
+  /** The end of a load range this corner takes; absent when the load is a single value. */
+  loadLevel?: 'full' | 'light';
+  /** Part-tolerance vertex; absent: nominal parts. */
+  parts?: PartVertex;
 }

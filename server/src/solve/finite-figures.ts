@@ -29,7 +29,7 @@ const OPTIONAL_KEYS = [
   'inputPowerW', 'efficiency', 'sourceIrmsA', 'powerFactor', 'displacementPowerFactor', 'thd', 'harmonicsA', 'iecClassA', 'iecClassD',
   'inrushPeakA', 'inrushI2tA2s', 'holdUpS', 'waveform', 'inrushWaveform',
 ];
-const DEVICE_KEYS = ['pivV', 'ipkA', 'iavgA', 'irmsA', 'lossW', 'tjC', 'inrushI2tA2s'];
+const DEVICE_KEYS = ['pivV', 'ipkA', 'iavgA', 'irmsA', 'lossW', 'tjC', 'inrushI2tA2s', 'inrushPeakA'];
 
 function dropFrom(record: Record<string, unknown>, keys: readonly string[], prefix: string): string[] {
   const dropped: string[] = [];

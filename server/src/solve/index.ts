@@ -6,6 +6,8 @@ export { SPICE_DIODE_DEFAULTS } from './equivalent-circuit';
 export type * from './solution';
 export { solveRectifier, solveCorner, type SolveOptions } from './solve-rectifier';
 export { defaultCorners, pickWorst, type CornerInputs, type WorstValue } from './corners';
+export { circuitAtCorner, hasPartSpread } from './corner-circuit';
+export { isNominalCorner, PART_VERTICES } from './corners';
 export {
   thermalVoltageV, scaleDiodeToTemp, diodeVoltageV, diodeCurrentA, fitDiodeFromTwoPoints, lambertWOfExp,
   type DiodeAtTemp, type ForwardPoint,
@@ -14,7 +16,8 @@ export { rdsOnOhm, DEFAULT_CONTROLLER_VMIN_V, DEFAULT_GATE_ON_V, DEFAULT_RDSON_T
 export { classALimitA, classDLimitA, checkHarmonicLimits, type HarmonicCompliance, type HarmonicClass } from './iec61000-3-2';
 export { buildNetwork, type Network } from './network';
 export { findSteadyState, type SteadyState, type SteadyStateOptions } from './shooting';
-export { simulateInrush, type InrushResult } from './inrush';
+export { simulateInrush, type InrushPolarity, type InrushResult } from './inrush';
+export { inrushCasesOf, surgeFigureA, worstInrush, type CornerInrush, type DeviceInrush, type InrushStart } from './inrush-cases';
 export { settleJunctionTemperatures, type ThermalResult, type ThermalOptions } from './thermal';
 export type { Waveform } from './waveform';
 export { NON_FINITE_NOTE } from './finite-figures';

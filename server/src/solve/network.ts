@@ -6,7 +6,7 @@
  * source's return and conduct through one device. In every topology at most one path conducts
  * at a time while a capacitor holds the output above zero, which keeps each implicit step scalar.
  */
-import type { EquivalentCircuit, Load, RectifierDevice } from './equivalent-circuit';
+import type { EquivalentCircuit, FixedLoad, Load, RectifierDevice } from './equivalent-circuit';
 import { scaleDiodeToTemp } from './diode-model';
 import { DEFAULT_CONTROLLER_VMIN_V, DEFAULT_GATE_ON_V, rdsOnOhm, type ConductingDevice } from './mosfet-model';
 import { buildGates, type GateRule } from './gates';
@@ -55,6 +55,11 @@ export interface LoadModel {
   pW: number;
   /** Below this voltage current and power loads fall linearly to zero, keeping voltages ≥ 0. */
   vFloorV: number;
+  /**
+   * More than one kind at once (a directive's load with a bleeder or current sink beside it):
+   * the load draws v/rOhm + iA + pW/v, the current and power parts fading below vFloorV.
+   */
+  mixed: boolean;
 }
 
 export interface NetDevice extends ConductingDevice {
@@ -188,7 +193,7 @@ export function buildNetwork(
   return {
     omega, periodS: 1 / freqHz, vScaleV, lines: lay.lines, paths, ports, nCap, hasL, n: nCap + (hasL ? 1 : 0),
     floatingRails: lay.floating, railPlus: lay.railPlus, railMinus: lay.railMinus, devices,
-    load: buildLoad(c.load, vScaleV), breakpointsS: gates, crestsS: crestTimes(paths, omega), phases: c.kind === 'three-phase-bridge' ? 3 : 1,
+    load: buildLoad(c.load, c.fixedLoad, vScaleV), breakpointsS: gates, crestsS: crestTimes(paths, omega), phases: c.kind === 'three-phase-bridge' ? 3 : 1,
     lineVrms: c.source.vrms * lineScale,
   };
 }
@@ -210,7 +215,7 @@ function buildPorts(c: EquivalentCircuit, problems: string[]): NetPort[] | undef
     return caps.slice(0, 2).map((cap, i) => ({ name: cap.name, cF: cap.cF, esrOhm: Math.max(cap.esrOhm, 0), l: half && i === 0 ? 0 : 1, bare: false }));
   }
   if (caps.length === 0) {
-    if (c.load.kind !== 'resistance' || !(c.load.ohm > 0)) {
+    if (c.load.kind !== 'resistance' || !(c.load.ohm > 0) || (c.fixedLoad?.a ?? 0) !== 0) {
       return fail(problems, 'no filter capacitor and no load resistance: a current, power or absent load cannot be solved without a capacitor');
     }
     return [{ name: 'load', cF: 0, esrOhm: 0, l: 0, bare: true }];
@@ -296,15 +301,28 @@ function range(n: number): number[] {
   return Array.from({ length: n }, (_, i) => i);
 }
 
-function buildLoad(load: Load, vScaleV: number): LoadModel {
+function buildLoad(load: Load, fixed: FixedLoad | undefined, vScaleV: number): LoadModel {
+  const own = ownLoad(load, vScaleV);
+  const fixedG = fixed?.ohm !== undefined && fixed.ohm > 0 ? 1 / fixed.ohm : 0;
+  const fixedA = fixed?.a ?? 0;
+  if (fixedG === 0 && fixedA === 0) return own;
+  // Conductances add; the fixed current adds to the load's own (a current sink drawn beside it).
+  const g = (Number.isFinite(own.rOhm) ? 1 / own.rOhm : 0) + fixedG;
+  const merged: LoadModel = { ...own, rOhm: g > 0 ? 1 / g : Infinity, iA: own.iA + fixedA };
+  if (merged.kind === 'none') merged.kind = fixedA !== 0 ? 'current' : 'resistance';
+  merged.mixed = !(merged.kind === 'resistance' && merged.iA === 0);
+  return merged;
+}
+
+function ownLoad(load: Load, vScaleV: number): LoadModel {
   // Current and power loads fade out below 5 % of the source peak (or a power load's vmin):
   // a real converter stops at its undervoltage lockout; the fade keeps the model bounded.
   const floor = 0.05 * vScaleV;
   switch (load.kind) {
-    case 'resistance': return { kind: 'resistance', rOhm: load.ohm > 0 ? load.ohm : Infinity, iA: 0, pW: 0, vFloorV: floor };
-    case 'current': return { kind: 'current', rOhm: Infinity, iA: Math.max(load.a, 0), pW: 0, vFloorV: floor };
-    case 'power': return { kind: 'power', rOhm: Infinity, iA: 0, pW: Math.max(load.w, 0), vFloorV: load.vminV && load.vminV > 0 ? load.vminV : floor };
-    default: return { kind: 'none', rOhm: Infinity, iA: 0, pW: 0, vFloorV: floor };
+    case 'resistance': return { kind: 'resistance', rOhm: load.ohm > 0 ? load.ohm : Infinity, iA: 0, pW: 0, vFloorV: floor, mixed: false };
+    case 'current': return { kind: 'current', rOhm: Infinity, iA: Math.max(load.a, 0), pW: 0, vFloorV: floor, mixed: false };
+    case 'power': return { kind: 'power', rOhm: Infinity, iA: 0, pW: Math.max(load.w, 0), vFloorV: load.vminV && load.vminV > 0 ? load.vminV : floor, mixed: false };
+    default: return { kind: 'none', rOhm: Infinity, iA: 0, pW: 0, vFloorV: floor, mixed: false };
   }
 }
 

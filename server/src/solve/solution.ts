@@ -2,7 +2,7 @@
  * The solver's result types: plain JSON-friendly data, SI units in the field names (DESIGN.md
  * §8). A figure that could not be computed is absent and a note says why; no field is ever NaN.
  */
-import type { RectifierKind } from './equivalent-circuit';
+import type { Load, PartVertex, RectifierKind } from './equivalent-circuit';
 import type { HarmonicCompliance } from './iec61000-3-2';
 import type { Waveform } from './waveform';
 import type { WorstValue } from './corners';
@@ -17,8 +17,12 @@ export interface DeviceSolution {
   tjC?: number;
   /** No settled junction temperature (electro-thermal loop diverged). */
   thermalRunaway: boolean;
-  /** ∫i²dt of this device over the first half-cycle after switch-on. */
+  /** ∫i²dt of this device over the first half-cycle after switch-on (worst case of the inrush check). */
   inrushI2tA2s?: number;
+  /** This device's largest current in the first half-cycle of that case. */
+  inrushPeakA?: number;
+  /** The inrush case that gave both, in words ("hot restart at the negative crest"). */
+  inrushCase?: string;
 }
 
 export interface CornerSolution {
@@ -27,6 +31,14 @@ export interface CornerSolution {
   /** RMS of the source EMF at this corner (per line, rectifier side). */
   lineVrms: number;
   ambientC: number;
+  /** Line frequency at this corner. */
+  freqHz?: number;
+  /** The load the directive (or the drawn resistors) give at this corner; a fixed load beside it is the circuit's `fixedLoad`. */
+  load?: Load;
+  /** The end of a load range this corner takes; absent when the load is one value. */
+  loadLevel?: 'full' | 'light';
+  /** The part-tolerance vertex solved; absent: nominal parts. */
+  parts?: PartVertex;
   vOutAvgV?: number;
   vOutRmsV?: number;
   vOutMinV?: number;
@@ -52,6 +64,8 @@ export interface CornerSolution {
   iecClassA?: HarmonicCompliance;
   iecClassD?: HarmonicCompliance;
   inrushPeakA?: number;
+  /** The inrush case of the largest peak, in words. */
+  inrushCase?: string;
   /** Largest per-device I²t of the first half-cycle after switch-on. */
   inrushI2tA2s?: number;
   /** Time from the steady-state minimum to the load's vmin with the source gone (constant-power load). */

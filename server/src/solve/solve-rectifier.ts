@@ -2,7 +2,8 @@
  * Entry points: one corner (steady state inside the electro-thermal loop, then harmonics,
  * inrush and hold-up) and a whole rectifier over its corners with the worst case of each figure.
  */
-import type { Corner, EquivalentCircuit } from './equivalent-circuit';
+import type { Corner, EquivalentCircuit, FixedLoad } from './equivalent-circuit';
+import { circuitAtCorner } from './corner-circuit';
 import type { CornerSolution, DeviceWorst, RectifierSolution, WorstFigures } from './solution';
 import { buildNetwork, setDeviceTemperatures, type Network, type NetworkOptions } from './network';
 import { findSteadyState, type SteadyState, type SteadyStateOptions } from './shooting';
@@ -10,7 +11,7 @@ import { computePeriodFigures, type PeriodFigures } from './figures';
 import { settleJunctionTemperatures, type ThermalOptions } from './thermal';
 import { computeHarmonics } from './harmonics';
 import { checkHarmonicLimits } from './iec61000-3-2';
-import { simulateInrush } from './inrush';
+import { worstInrush } from './inrush-cases';
 import { sampleWaveform } from './waveform';
 import { defaultCorners, pickWorst } from './corners';
 import { dropNonFiniteFigures } from './finite-figures';
@@ -26,15 +27,19 @@ export interface SolveOptions {
   inrush?: boolean;
 }
 
-/** Solves one corner of a rectifier. */
-export function solveCorner(circuit: EquivalentCircuit, corner: Corner, options: SolveOptions = {}): CornerSolution {
+/** Solves one corner of a rectifier: the circuit with the corner's frequency, load and part vertex (corner-circuit.ts). */
+export function solveCorner(nominal: EquivalentCircuit, corner: Corner, options: SolveOptions = {}): CornerSolution {
+  const circuit = circuitAtCorner(nominal, corner);
   const notes: string[] = [];
   const ta = corner.ambientC;
   const base: CornerSolution = {
     name: corner.name, lineScale: corner.lineScale, lineVrms: circuit.source.vrms * corner.lineScale, ambientC: ta,
+    freqHz: circuit.source.freqHz, load: circuit.load,
     devices: circuit.devices.map((d) => ({ name: d.name, thermalRunaway: false })),
     converged: false, shootingIterations: 0, thermalIterations: 0, notes,
   };
+  if (corner.loadLevel) base.loadLevel = corner.loadLevel;
+  if (corner.parts) base.parts = corner.parts;
   const net = buildNetwork(circuit, corner.lineScale, circuit.devices.map(() => ta), notes, options.network);
   if (!net) return base;
   let last: { ss: SteadyState; figs: PeriodFigures } | undefined;
@@ -64,7 +69,7 @@ export function solveCorner(circuit: EquivalentCircuit, corner: Corner, options:
   addSourceFigures(solution, figs, ss, net, circuit, notes);
   const points = options.waveformPoints ?? 200;
   if (points > 0) solution.waveform = sampleWaveform(ss.record, points, circuit.source.turnsRatio);
-  if (options.inrush ?? true) addInrush(solution, net, circuit, ta, points, options.steadyState?.relTol);
+  if (options.inrush ?? true) addInrush(solution, net, circuit, corner, points, options);
   dropNonFiniteFigures(solution);
   return solution;
 }
@@ -77,12 +82,30 @@ function addOutputFigures(s: CornerSolution, f: PeriodFigures, net: Network, c: 
   else notes.push('efficiency not defined: no output power');
   const load = c.load;
   if (load.kind === 'power' && load.vminV !== undefined && load.w > 0) {
-    // Energy balance of a constant-power load on the output capacitance: C·(v0² − vmin²)/(2P).
     const cOut = outputCapacitanceF(net);
     if (cOut <= 0) notes.push('hold-up time not defined: no output capacitor');
-    else s.holdUpS = f.vOutMinV > load.vminV ? (cOut * (f.vOutMinV ** 2 - load.vminV ** 2)) / (2 * load.w) : 0;
+    else s.holdUpS = f.vOutMinV > load.vminV ? holdUpS(cOut, f.vOutMinV, load.vminV, load.w, c.fixedLoad) : 0;
     if (s.holdUpS === 0) notes.push('output already falls below the load vmin in steady state: hold-up 0');
   }
+}
+
+/** Simpson intervals for the hold-up integral with a fixed load beside the power load (error far below 1e-6 for these smooth integrands). */
+const HOLD_UP_INTERVALS = 256;
+
+/**
+ * Time for the output capacitance to fall from v0 to vmin with the source gone. A constant-power
+ * load alone: the energy balance C·(v0² − vmin²)/(2P). With a bleeder or current sink beside it,
+ * C·dv/dt = −(P/v + v/R + I), so t = ∫ C·dv/(P/v + v/R + I) from vmin to v0, by Simpson's rule.
+ */
+function holdUpS(cF: number, v0: number, vmin: number, pW: number, fixed: FixedLoad | undefined): number {
+  const gR = fixed?.ohm !== undefined && fixed.ohm > 0 ? 1 / fixed.ohm : 0;
+  const iA = fixed?.a ?? 0;
+  if (gR === 0 && iA === 0) return (cF * (v0 ** 2 - vmin ** 2)) / (2 * pW);
+  const f = (v: number) => cF / (pW / v + gR * v + iA);
+  const h = (v0 - vmin) / HOLD_UP_INTERVALS;
+  let sum = f(vmin) + f(v0);
+  for (let k = 1; k < HOLD_UP_INTERVALS; k++) sum += (k % 2 === 1 ? 4 : 2) * f(vmin + k * h);
+  return (sum * h) / 3;
 }
 
 /** Capacitance the load sees: the sum of parallel ports in series where the load spans several. */
@@ -106,13 +129,16 @@ function addSourceFigures(s: CornerSolution, f: PeriodFigures, ss: SteadyState, 
   if (net.phases > 1) notes.push('harmonics are those of line a; the Class A/D comparison assumes a single-phase connection');
 }
 
-function addInrush(s: CornerSolution, net: Network, c: EquivalentCircuit, ta: number, points: number, relTol?: number): void {
-  setDeviceTemperatures(net, c.devices.map(() => ta));
-  const r = simulateInrush(net, relTol);
-  if (!r.ok) { s.notes.push('inrush: step budget exhausted'); return; }
+function addInrush(s: CornerSolution, net: Network, c: EquivalentCircuit, corner: Corner, points: number, options: SolveOptions): void {
+  const r = worstInrush(c, net, corner.lineScale, corner.ambientC, options.steadyState?.relTol, options.network);
+  if (!r) { s.notes.push('inrush: step budget exhausted'); return; }
   s.inrushPeakA = r.peakA;
-  s.inrushI2tA2s = Math.max(...r.i2tA2s);
-  s.devices.forEach((d, k) => { d.inrushI2tA2s = r.i2tA2s[k]; });
+  s.inrushCase = r.peakCase;
+  s.inrushI2tA2s = Math.max(...r.devices.map((d) => d.i2tA2s));
+  s.devices.forEach((d, k) => {
+    const own = r.devices[k];
+    if (own) Object.assign(d, { inrushI2tA2s: own.i2tA2s, inrushPeakA: own.peakA, inrushCase: own.case });
+  });
   if (points > 0) s.inrushWaveform = sampleWaveform(r.record, points, c.source.turnsRatio);
 }
 

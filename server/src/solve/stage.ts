@@ -106,7 +106,9 @@ export class StageSolver {
   private solveLoad(a: number, K: number): void {
     const ld = this.net.load;
     const vf = ld.vFloorV;
-    if (ld.kind === 'resistance') {
+    if (ld.mixed) {
+      this.solveMixedLoad(a, K);
+    } else if (ld.kind === 'resistance') {
       this.vL = a / (1 + K / ld.rOhm); this.g = this.vL / ld.rOhm; this.gp = 1 / ld.rOhm;
     } else if (ld.kind === 'current' || ld.kind === 'power') {
       const p = ld.pW;
@@ -126,6 +128,28 @@ export class StageSolver {
     } else {
       this.vL = a; this.g = 0; this.gp = 0;
     }
+  }
+
+  /**
+   * A load of several kinds: v + K·(v/R + I + P/v) = a. Above the floor that is the quadratic
+   * c·v² − (a − K·I)·v + K·P = 0 with c = 1 + K/R, whose larger root is the operating point (as
+   * for a power load alone); below it the current and power parts fade linearly, as there.
+   */
+  private solveMixedLoad(a: number, K: number): void {
+    const ld = this.net.load;
+    const vf = ld.vFloorV;
+    const gR = Number.isFinite(ld.rOhm) ? 1 / ld.rOhm : 0;
+    const c = 1 + K * gR;
+    const b = a - K * ld.iA;
+    const disc = b * b - 4 * c * K * ld.pW;
+    const v = disc >= 0 ? (ld.pW > 0 ? (b + Math.sqrt(disc)) / (2 * c) : b / c) : -Infinity;
+    if (v >= vf && v > 0) {
+      this.vL = v; this.g = gR * v + ld.iA + ld.pW / v; this.gp = gR - ld.pW / (v * v);
+      return;
+    }
+    const g0 = gR + ld.iA / vf + ld.pW / (vf * vf);
+    const w = a / (1 + K * g0);
+    if (w >= 0) { this.vL = w; this.g = g0 * w; this.gp = g0; } else { this.vL = a; this.g = 0; this.gp = 0; }
   }
 
   /** Path current from G(i) = 0 by Newton in ψ with a bracket; leaves G'(i) in dG. */

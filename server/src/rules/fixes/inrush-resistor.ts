@@ -4,7 +4,9 @@
  * its derated IFSM. The source card's first node is renamed to a new node and the resistor joins
  * the new node to the old one, so the netlist stays valid for any simulator.
  *
- * The value is found by re-solving the high-line corners (where the inrush is worst) with the
+ * The value is found by re-solving the high-line corners (where the inrush is worst, in every
+ * inrush case: both crests, and with an NTC limiter the hot restart, which a fixed resistor
+ * limits where the NTC no longer does) with the
  * added resistance in the source loop — referred through a transformer by the square of its
  * turns ratio — and bisecting the E12 ladder from 0.1 Ω to 1 kΩ (surge falls monotonically as
  * series resistance rises). The title states the steady-state dissipation I²R at high line, which

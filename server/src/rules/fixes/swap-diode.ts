@@ -14,7 +14,7 @@ import type { Fix, TextEdit } from '../../findings/index';
 import { diodeParamsOfForwardModel, type RectifierAnalysis } from '../../equivalent/index';
 import {
   diodePartsFromFiles, diodeRequirementFromStress, DIODE_CATALOG, passesEveryStress, selectPassingPart,
-  type DeratingPolicy, type DiodePart,
+  type DeratingPolicy, type DiodePart, type Rated,
 } from '../../ratings/index';
 import { deviceFiguresOf, solveRectifier, type EquivalentCircuit, type SolveFn } from '../../solve/index';
 import type { RuleInput } from '../registry';
@@ -62,7 +62,8 @@ function groupStress(analysis: RectifierAnalysis, group: readonly number[]) {
   const pivV = worst((k) => analysis.devices[k]!.figures.worst?.pivV?.value);
   const iavgA = worst((k) => analysis.devices[k]!.figures.worst?.iavgA?.value);
   const surges = group.map((k) => analysis.devices[k]!.figures.surge).filter((s) => s !== undefined);
-  const surge = surges.length ? { peakA: Math.max(...surges.map((s) => s.figureA)), durationS: surges[0]!.durationS } : undefined;
+  const most = (get: (s: (typeof surges)[number]) => number) => Math.max(...surges.map(get));
+  const surge = surges.length ? { peakA: most((s) => s.peakA), i2tA2s: most((s) => s.i2tA2s), durationS: surges[0]!.durationS } : undefined;
   return surge ? { pivV, iavgA, surge } : { pivV, iavgA };
 }
 
@@ -70,17 +71,33 @@ function groupStress(analysis: RectifierAnalysis, group: readonly number[]) {
 export function passesAfterSwap(
   analysis: RectifierAnalysis, group: readonly number[], part: DiodePart, policy: DeratingPolicy, solve: SolveFn = solveRectifier,
 ): boolean {
-  const circuit = swappedCircuit(analysis.circuit, group, part);
+  const circuit = swappedCircuit(analysis, group, part);
   const solution = solve(circuit, analysis.corners, { waveformPoints: 0 });
   return group.every((k) => passesEveryStress(deviceFiguresOf(circuit, solution, k), part.ratings, policy));
 }
 
-function swappedCircuit(circuit: EquivalentCircuit, group: readonly number[], part: DiodePart): EquivalentCircuit {
+/** The circuit as it will be once the fix is applied: the part's forward model and the RθJA the swapped devices will resolve to. */
+function swappedCircuit(analysis: RectifierAnalysis, group: readonly number[], part: DiodePart): EquivalentCircuit {
+  const circuit = analysis.circuit;
   const fm = part.forwardModel;
-  if (!fm) return circuit;
-  const params = diodeParamsOfForwardModel(fm);
-  const devices = circuit.devices.map((d, k) => (group.includes(k) && d.kind === 'diode' ? { ...d, params } : d));
+  const params = fm ? diodeParamsOfForwardModel(fm) : undefined;
+  const devices = circuit.devices.map((d, k) => {
+    if (!group.includes(k) || d.kind !== 'diode') return d;
+    const rthjaKPerW = rthjaAfterSwap(analysis.devices[k]!.ratings.ratings.rthjaKPerW, part);
+    const { rthjaKPerW: _old, ...rest } = d;
+    return { ...rest, ...(params ? { params } : {}), ...(rthjaKPerW === undefined ? {} : { rthjaKPerW }) };
+  });
   return { ...circuit, devices };
+}
+
+/**
+ * The RθJA a swapped device resolves to (ratings/resolve-ratings.ts order): a rate line naming
+ * the instance stays; else the new part's own (a catalog part's package value); else the old
+ * model's, which `addedLines` carries over.
+ */
+function rthjaAfterSwap(old: Rated<number> | undefined, part: DiodePart): number | undefined {
+  if (old?.origin.kind === 'rate-directive' && old.origin.target === 'instance') return old.value;
+  return part.ratings.rthjaKPerW?.value ?? old?.value;
 }
 
 function toFix(input: RuleInput, analysis: RectifierAnalysis, group: readonly number[], part: DiodePart): Fix | undefined {
