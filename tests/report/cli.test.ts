@@ -3,7 +3,7 @@ import { mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { PROGRESS_MIN_FILES } from '../../server/src/cli/check-command';
+import { PROGRESS_MIN_FILES } from '../../server/src/cli/configured-analysis';
 import { EXAMPLES_DIR, run } from './fixtures';
 
 const LED = join(EXAMPLES_DIR, 'led-driver-230v.cir');

@@ -5,6 +5,7 @@ import { exitOnOutputFailure, processIo, type CommandIo } from './command-io';
 import { COMPARE_USAGE, runCompare } from './compare-command';
 import { REPORT_USAGE, runReport } from './report-command';
 import { startStdioOrIpcServer } from '../lsp/start';
+import { TOOL_VERSION } from './tool-version';
 
 const LSP_USAGE = 'rectilens lsp --stdio';
 const USAGE = `usage:
@@ -12,6 +13,9 @@ const USAGE = `usage:
   ${REPORT_USAGE}
   ${COMPARE_USAGE}
   ${LSP_USAGE}
+  rectilens --version
+
+Each command takes --help (-h) for its options.
 `;
 
 /** Runs one command line; returns the exit code, or −1 when a long-running server was started. */
@@ -32,8 +36,12 @@ export function runCommandLine(argv: readonly string[], io: CommandIo): number {
       case undefined:
       case 'help':
       case '--help':
+      case '-h':
         io.stdout(USAGE);
         return command === undefined ? 2 : 0;
+      case '--version':
+        io.stdout(`rectilens ${TOOL_VERSION}\n`);
+        return 0;
       default:
         throw new UsageError(`unknown command '${command}'\n${USAGE}`);
     }

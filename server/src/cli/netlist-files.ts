@@ -3,6 +3,7 @@ import { readdirSync, statSync } from 'node:fs';
 import { extname, join } from 'node:path';
 import type { FileText } from '../circuit/index';
 import { readFileSafely } from '../io/read-file-safely';
+import { expandPattern, isPattern } from './glob';
 
 export const NETLIST_EXTENSIONS: readonly string[] = ['.cir', '.net', '.sp', '.spi', '.ckt'];
 const SKIPPED_FOLDERS = new Set(['node_modules', '.git', 'dist', 'out']);
@@ -21,6 +22,12 @@ export function collectNetlistFiles(paths: readonly string[]): FileList {
   const problems: FileList['problems'] = [];
   const empty: string[] = [];
   for (const path of paths) {
+    if (isPattern(path) && !exists(path)) {
+      const matched = expandPattern(path).filter((p) => NETLIST_EXTENSIONS.includes(extname(p).toLowerCase()));
+      if (matched.length) files.push(...matched);
+      else problems.push({ path, reason: `no file matches this pattern (of the netlist files: ${NETLIST_EXTENSIONS.join(', ')})` });
+      continue;
+    }
     try {
       if (statSync(path).isDirectory()) {
         const before = files.length;
@@ -70,8 +77,16 @@ export function unreadReason(read: (path: string) => FileText, path: string): st
 export function describeError(error: unknown, path = ''): string {
   const code = (error as NodeJS.ErrnoException)?.code;
   // A pattern reaches us unexpanded when the shell matched nothing (or it was quoted).
-  if (code === 'ENOENT' && /[*?[]/.test(path)) return 'no file matches this pattern (patterns are expanded by the shell, not by rectilens)';
   if (code === 'ENOENT') return 'no such file or folder';
   if (code === 'EACCES') return 'permission denied';
   return error instanceof Error ? error.message : String(error);
+}
+
+function exists(path: string): boolean {
+  try {
+    statSync(path);
+    return true;
+  } catch {
+    return false;
+  }
 }

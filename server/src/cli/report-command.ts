@@ -7,14 +7,28 @@ import { TOOL_VERSION } from './tool-version';
 import { renderHtmlReport } from '../report/report-html';
 import { renderAnnotatedText } from '../report/report-text-annotated';
 
-export const REPORT_USAGE = 'rectilens report <file> [--html out.html]';
+export const REPORT_USAGE = 'rectilens report <file> [--html out.html] [--config FILE] [--parts FILE]…';
+
+export const REPORT_HELP = `${REPORT_USAGE}
+
+Writes the netlist annotated with its figures and the tables of every rectifier to standard
+output, or one self-contained HTML page with --html.
+
+  --html FILE     write the HTML report to FILE
+  --config FILE   the project configuration, instead of the nearest rectilens.json
+  --parts FILE    a parts file beside those the configuration names (repeatable)
+`;
 
 /** Runs the report; exit 0 when written, 2 on a usage error or an unreadable or unwritable file. */
 export function runReport(argv: readonly string[], io: CommandIo): number {
-  const args = parseArgs(argv, { html: {} });
+  const args = parseArgs(argv, { html: {}, config: {}, parts: { repeatable: true }, help: { boolean: true, short: 'h' } });
+  if (args.flags.get('help')) {
+    io.stdout(REPORT_HELP);
+    return 0;
+  }
   const htmlPath = args.flags.get('html') as string | undefined;
   if (htmlPath !== undefined && htmlPath.trim() === '') throw new UsageError(`--html needs a file name\nusage: ${REPORT_USAGE}`);
-  const file = analyseSingleNetlist(args.positional, 'report', REPORT_USAGE, io);
+  const file = analyseSingleNetlist(args.positional, 'report', REPORT_USAGE, io, { config: args.flags.get('config') as string | undefined, parts: args.lists.get('parts') });
   if (!file) return 2;
   const displayPath = args.positional[0]!;
   if (htmlPath === undefined) {

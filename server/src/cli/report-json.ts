@@ -1,5 +1,6 @@
 /** The JSON report of `check --format json` (DESIGN.md §8): stable names, SI units in the names, 1-based lines. */
-import type { FileAnalysis, Snapshot } from '../analysis/analyze';
+import type { Snapshot } from '../analysis/analyze';
+import type { Finding } from '../findings/index';
 import { LineIndex } from '../../../grammar/src/index';
 import type { CapacitorStress, RectifierAnalysis } from '../equivalent/index';
 import type { DeviceSolution, Load, PartVertex } from '../solve/index';
@@ -12,6 +13,17 @@ export interface JsonDiagnostic {
   severity: string;
   code: string;
   message: string;
+  /** Other places that belong to it: the inner card of a packaged device, the card that includes this file. */
+  related?: JsonPlace[];
+  /** Its quick fixes, when the report was asked to carry them (SARIF). */
+  fixes?: { title: string; edits: (JsonPlace & { endLine: number; endColumn: number; newText: string })[] }[];
+}
+
+export interface JsonPlace {
+  path: string;
+  line: number;
+  column: number;
+  message?: string;
 }
 
 /** A device's figures at one corner; `inrush…` are its own surge in its worst inrush case (`inrushCase`). */
@@ -90,23 +102,87 @@ export interface JsonReport {
   files: JsonFile[];
 }
 
-export function toJsonReport(snapshot: Snapshot): JsonReport {
-  return { version: 1, files: [...snapshot.files.values()].map(toJsonFile) };
+/** A file that is not a netlist but has findings: a project configuration, a parts file. */
+export interface ReportedFile {
+  path: string;
+  text: string;
+  findings: readonly Finding[];
 }
 
-function toJsonFile(file: FileAnalysis): JsonFile {
-  const lines = new LineIndex(file.text);
-  const diagnostics = file.findings
-    .filter((f) => f.uri === file.uri)
-    .map((f) => {
-      const start = lines.positionAt(f.span.start);
-      const end = lines.positionAt(f.span.end);
-      return {
-        line: start.line + 1, column: start.character + 1, endLine: end.line + 1, endColumn: end.character + 1,
-        severity: f.severity, code: f.code, message: f.message,
-      };
-    });
-  return { path: file.uri, rectifiers: file.rectifiers.map((r) => toJsonRectifier(r, lines)), diagnostics };
+export interface JsonReportOptions {
+  /** Configuration and parts files with their findings, listed after the netlists. */
+  extra?: readonly ReportedFile[];
+  /** Compute each finding's quick fixes into the report (they re-solve; SARIF asks for them). */
+  withFixes?: boolean;
+}
+
+/**
+ * One entry per root netlist, then one per other file with findings (an included file, a
+ * configuration, a parts file): a finding is listed under the file that holds its text, once,
+ * however many roots include that file.
+ */
+export function toJsonReport(snapshot: Snapshot, options: JsonReportOptions = {}): JsonReport {
+  const texts = new Map<string, string>();
+  for (const file of snapshot.files.values()) for (const [uri, netlist] of file.parsed) if (!texts.has(uri) || uri === file.uri) texts.set(uri, netlist.text);
+  for (const extra of options.extra ?? []) texts.set(extra.path, extra.text);
+  const lineIndexes = new Map<string, LineIndex>();
+  const linesOf = (uri: string) => {
+    let index = lineIndexes.get(uri);
+    if (!index) lineIndexes.set(uri, (index = new LineIndex(texts.get(uri) ?? '')));
+    return index;
+  };
+  const toJson = (f: Finding) => toJsonDiagnostic(f, linesOf, options.withFixes ?? false);
+  const roots = [...snapshot.files.values()];
+  // A root that another root includes is reported as that root reads it (an include has no title
+  // line), as the editor shows it; its own reading as a root would report its first card as a title.
+  const included = new Set(roots.flatMap((file) => [...file.parsed.keys()].filter((uri) => uri !== file.uri)));
+  const files: JsonFile[] = roots.map((file) => ({
+    path: file.uri, rectifiers: file.rectifiers.map((r) => toJsonRectifier(r, linesOf(file.uri))),
+    diagnostics: included.has(file.uri) ? [] : file.findings.filter((f) => f.uri === file.uri).map(toJson),
+  }));
+  const elsewhere = new Map<string, Finding[]>();
+  for (const file of roots) for (const f of file.findings) if (f.uri !== file.uri) elsewhere.set(f.uri, [...(elsewhere.get(f.uri) ?? []), f]);
+  for (const extra of options.extra ?? []) elsewhere.set(extra.path, [...(elsewhere.get(extra.path) ?? []), ...extra.findings]);
+  for (const [path, findings] of elsewhere) {
+    let entry = files.find((f) => f.path === path);
+    if (!entry) files.push((entry = { path, rectifiers: [], diagnostics: [] }));
+    const seen = new Set(entry.diagnostics.map(diagnosticKey));
+    for (const d of findings.map(toJson)) {
+      if (seen.has(diagnosticKey(d))) continue;
+      seen.add(diagnosticKey(d));
+      entry.diagnostics.push(d);
+    }
+  }
+  return { version: 1, files };
+}
+
+function diagnosticKey(d: JsonDiagnostic): string {
+  return `${d.line}:${d.column}:${d.endLine}:${d.endColumn}:${d.code}:${d.message}`;
+}
+
+function toJsonDiagnostic(f: Finding, linesOf: (uri: string) => LineIndex, withFixes: boolean): JsonDiagnostic {
+  const lines = linesOf(f.uri);
+  const start = lines.positionAt(f.span.start);
+  const end = lines.positionAt(f.span.end);
+  const d: JsonDiagnostic = {
+    line: start.line + 1, column: start.character + 1, endLine: end.line + 1, endColumn: end.character + 1,
+    severity: f.severity, code: f.code, message: f.message,
+  };
+  const place = (uri: string, offset: number) => {
+    const at = linesOf(uri).positionAt(offset);
+    return { path: uri, line: at.line + 1, column: at.character + 1 };
+  };
+  if (f.related?.length) d.related = f.related.map((r) => ({ ...place(r.uri, r.span.start), message: r.message }));
+  if (withFixes && f.fixes?.length) {
+    d.fixes = f.fixes.map((fix) => ({
+      title: fix.title,
+      edits: fix.edits.map((e) => {
+        const stop = linesOf(e.uri).positionAt(e.span.end);
+        return { ...place(e.uri, e.span.start), endLine: stop.line + 1, endColumn: stop.character + 1, newText: e.newText };
+      }),
+    }));
+  }
+  return d;
 }
 
 const WORST_FIGURES = ['vOutAvgV', 'vOutMaxV', 'rippleVpp', 'efficiency', 'powerFactor', 'inrushPeakA', 'capRippleIrmsA', 'thd', 'inrushI2tA2s', 'holdUpS'] as const;

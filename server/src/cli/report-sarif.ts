@@ -4,7 +4,16 @@ import type { JsonReport } from './report-json';
 
 const LEVEL: Readonly<Record<string, 'error' | 'warning' | 'note'>> = { error: 'error', warning: 'warning', info: 'note', hint: 'note' };
 
-export function toSarif(report: JsonReport, toolVersion: string, toUri: (path: string) => string = (p) => p): object {
+/** The base the relative artifact URIs resolve against (SARIF 2.1.0 §3.14.14, `originalUriBaseIds`). */
+export const SARIF_BASE_ID = 'SRCROOT';
+
+/**
+ * `toUri` turns a report path into a URI relative to `baseUri` (the folder the check ran in), so a
+ * code-scanning service can place the results in its checkout; related places (the card that
+ * includes a file, the inner card of a packaged device) and quick fixes go with each result.
+ */
+export function toSarif(report: JsonReport, toolVersion: string, toUri: (path: string) => string = (p) => p, baseUri?: string): object {
+  const location = (path: string) => ({ uri: toUri(path), ...(baseUri ? { uriBaseId: SARIF_BASE_ID } : {}) });
   const codes = [...new Set(report.files.flatMap((f) => f.diagnostics.map((d) => d.code)))].sort();
   const ruleIndex = new Map(codes.map((code, i) => [code, i]));
   const rules = codes.map((code) => {
@@ -25,10 +34,27 @@ export function toSarif(report: JsonReport, toolVersion: string, toUri: (path: s
       message: { text: d.message },
       locations: [{
         physicalLocation: {
-          artifactLocation: { uri: toUri(file.path) },
+          artifactLocation: location(file.path),
           region: { startLine: d.line, startColumn: d.column, endLine: d.endLine, endColumn: d.endColumn },
         },
       }],
+      ...(d.related?.length ? {
+        relatedLocations: d.related.map((r, id) => ({
+          id, message: { text: r.message ?? '' }, physicalLocation: { artifactLocation: location(r.path), region: { startLine: r.line, startColumn: r.column } },
+        })),
+      } : {}),
+      ...(d.fixes?.length ? {
+        fixes: d.fixes.map((fix) => ({
+          description: { text: fix.title },
+          artifactChanges: [...new Set(fix.edits.map((e) => e.path))].map((path) => ({
+            artifactLocation: location(path),
+            replacements: fix.edits.filter((e) => e.path === path).map((e) => ({
+              deletedRegion: { startLine: e.line, startColumn: e.column, endLine: e.endLine, endColumn: e.endColumn },
+              insertedContent: { text: e.newText },
+            })),
+          })),
+        })),
+      } : {}),
     })),
   );
   return {
@@ -36,7 +62,8 @@ export function toSarif(report: JsonReport, toolVersion: string, toUri: (path: s
     version: '2.1.0',
     runs: [{
       tool: { driver: { name: 'Rectilens', version: toolVersion, informationUri: 'https://example.invalid/rectilens', rules } },
-      artifacts: report.files.map((f) => ({ location: { uri: toUri(f.path) } })),
+      ...(baseUri ? { originalUriBaseIds: { [SARIF_BASE_ID]: { uri: baseUri } } } : {}),
+      artifacts: report.files.map((f) => ({ location: location(f.path) })),
       results,
     }],
   };
