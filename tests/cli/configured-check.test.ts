@@ -133,3 +133,23 @@ describe('the small things', () => {
     expect(ci).toMatch(/::warning file=.*title=rectilens value-notation::.*read as 4700/);
   });
 });
+
+describe('the problem matcher the extension contributes', () => {
+  it('reads every line of the text report into file, line, column, severity, code and message', () => {
+    const manifest = JSON.parse(readFileSync(join(__dirname, '../../package.json'), 'utf8'));
+    const matcher = manifest.contributes.problemMatchers.find((m: { name: string }) => m.name === 'rectilens');
+    const re = new RegExp(matcher.pattern.regexp);
+    const dir = folderWith({ 'a b.cir': 'spaced name\nR1 x 0 4k7\nD1 x\n' });
+    const lines = run(['check', dir]).stdout.split('\n').filter((l) => l.includes(': '));
+    const findings = lines.slice(0, -1);
+    expect(findings).toHaveLength(2);
+    for (const line of findings) {
+      const m = re.exec(line)!;
+      expect(m[matcher.pattern.file]).toBe(join(dir, 'a b.cir'));
+      expect(['error', 'warning']).toContain(m[matcher.pattern.severity]);
+      expect(m[matcher.pattern.message]!.length).toBeGreaterThan(5);
+    }
+    // The summary line is not a finding.
+    expect(re.test(lines.at(-1)!)).toBe(false);
+  });
+});

@@ -24,6 +24,10 @@ export interface TestClient {
 
 export interface TestClientOptions {
   workspaceFolder?: string;
+  /** Several workspace folders (instead of `workspaceFolder`). */
+  workspaceFolders?: string[];
+  /** Answers `workspace/configuration` (the client then announces the capability): one value per item asked. */
+  configuration?: (item: { scopeUri?: string; section?: string }) => unknown;
   initializationOptions?: unknown;
   env?: Record<string, string>;
   /** A command the server runs under, e.g. `['strace', '-f', '-o', log]`; the node command line follows it. */
@@ -46,13 +50,18 @@ export async function startTestClient(options: TestClientOptions = {}): Promise<
     const queue = waiting.get(params.uri);
     queue?.shift()?.(params.diagnostics);
   });
+  const answer = options.configuration;
+  if (answer) connection.onRequest('workspace/configuration', (params: { items: { scopeUri?: string; section?: string }[] }) => params.items.map(answer));
   connection.listen();
-  const folder = options.workspaceFolder;
+  const folders = options.workspaceFolders ?? (options.workspaceFolder ? [options.workspaceFolder] : []);
   await connection.sendRequest(InitializeRequest.type, {
     processId: process.pid,
-    rootUri: folder ?? null,
-    workspaceFolders: folder ? [{ uri: folder, name: 'workspace' }] : null,
-    capabilities: { textDocument: { rename: { prepareSupport: true } }, ...options.capabilities },
+    rootUri: folders[0] ?? null,
+    workspaceFolders: folders.length ? folders.map((uri, k) => ({ uri, name: `workspace${k}` })) : null,
+    capabilities: {
+      textDocument: { rename: { prepareSupport: true } }, ...options.capabilities,
+      ...(answer ? { workspace: { configuration: true, ...(options.capabilities?.workspace as object | undefined) } } : {}),
+    },
     initializationOptions: options.initializationOptions,
   });
   await connection.sendNotification(InitializedNotification.type, {});

@@ -26,7 +26,8 @@ export interface OpenDocument {
 export interface SchedulerHooks {
   /** The open documents as the editor has them now. */
   openDocuments: () => readonly OpenDocument[];
-  settings: () => AnalysisSettings;
+  /** The settings a root is analysed with (its workspace folder's). */
+  settings: (uri: string) => AnalysisSettings;
   /** Validated parts files, read by the server. */
   partsFiles: () => readonly PartsFile[];
   /** Called with each finished analysis and the document version it was made from. */
@@ -164,7 +165,7 @@ export class AnalysisScheduler {
     const documents = this.hooks.openDocuments();
     const version = documents.find((d) => d.uri === uri)?.version;
     const open = new Map(documents.map((d) => [d.uri, d.text]));
-    const outcome = await this.worker.analyse(uri, open, this.hooks.settings(), this.hooks.partsFiles(), this.patienceMs);
+    const outcome = await this.worker.analyse(uri, open, this.hooks.settings(uri), this.hooks.partsFiles(), this.patienceMs);
     if (outcome.kind === 'stopped') {
       this.results.delete(uri);
       this.hooks.onStopped(uri, version, outcome);

@@ -54,11 +54,16 @@ export function registerConfiguration(state: ServerState): void {
   });
 }
 
+/** Pulls the window's settings and each folder's (scoped to it), then applies them. */
 async function refreshConfiguration(state: ServerState): Promise<void> {
   if (!state.pullConfiguration) return;
   try {
-    const pulled = (await state.connection.workspace.getConfiguration('rectilens')) as AnalysisSettings | null;
-    if (pulled) applySettings(state, pulled);
+    const folders = state.trust.folders;
+    const [pulled, ...perFolder] = (await state.connection.workspace.getConfiguration([
+      { section: 'rectilens' }, ...folders.map((scopeUri) => ({ scopeUri, section: 'rectilens' })),
+    ])) as (AnalysisSettings | null)[];
+    const scoped = new Map(folders.flatMap((folder, k) => (perFolder[k] ? [[folder, perFolder[k]!] as const] : [])));
+    applySettings(state, pulled ?? {}, scoped);
   } catch (error) {
     state.connection.console.error(`rectilens: could not read settings: ${String(error)}`);
   }

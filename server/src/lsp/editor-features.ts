@@ -42,7 +42,7 @@ export function registerEditorFeatures(state: ServerState, guard: Guard): void {
   connection.languages.inlayHint.on(guard([], async (params) => {
     const place = await state.freshPlaceIn(params.textDocument.uri, params.range.start);
     if (!place) return [];
-    const hints = inlayHintsIn(place.file, state.settings.hintDetail ?? 'brief', place.offset, place.lines.offsetAt(params.range.end));
+    const hints = inlayHintsIn(place.file, state.settingsFor(place.file.uri).hintDetail ?? 'brief', place.offset, place.lines.offsetAt(params.range.end));
     return hints.map((h): InlayHint => ({ position: place.lines.positionAt(h.offset), label: h.label, tooltip: h.tooltip, kind: InlayHintKind.Type, paddingLeft: true }));
   }));
 

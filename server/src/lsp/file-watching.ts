@@ -29,7 +29,7 @@ export function registerFileWatching(state: ServerState): void {
   const { connection } = state;
   connection.onDidChangeWatchedFiles(({ changes }) => {
     const changed = changes.map((c) => c.uri);
-    if (state.configUri && changed.includes(state.configUri)) {
+    if (changed.some((uri) => state.configUris.has(uri))) {
       applySettings(state, state.editorSettings);
       return;
     }

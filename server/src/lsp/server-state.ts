@@ -46,8 +46,12 @@ export class ServerState {
   watchSupport = false;
   /** The settings the editor gave (before the project configuration is layered under them). */
   editorSettings: AnalysisSettings & { partsFiles?: unknown } = {};
-  /** The project configuration's URI, for watching it. */
-  configUri: string | undefined;
+  /** The editor's settings per workspace folder, where it gave them (pulled with the folder as scope). */
+  editorFolderSettings: ReadonlyMap<string, AnalysisSettings & { partsFiles?: unknown }> = new Map();
+  /** The settings of each workspace folder: its project configuration with the editor's on top. */
+  folderSettings: ReadonlyMap<string, AnalysisSettings> = new Map();
+  /** The project configurations' URIs, for watching them. */
+  configUris: ReadonlySet<string> = new Set();
   /** The parts-file paths the settings name, and the URIs they were read from. */
   partsFilePaths: string[] = [];
   partsFileUris: ReadonlySet<string> = new Set();
@@ -71,12 +75,22 @@ export class ServerState {
     this.progress = new AnalysisProgress(connection, () => this.progressSupport, positiveNumber(env.RECTILENS_PROGRESS_DELAY_MS));
     this.scheduler = new AnalysisScheduler(this.worker, {
       openDocuments: () => this.documents.all().map((d) => ({ uri: d.uri, version: d.version, text: d.getText() })),
-      settings: () => this.settings,
+      settings: (uri) => this.settingsFor(uri),
       partsFiles: () => this.partsFiles,
       onAnalysed: (file, version) => this.publish(file, version),
       onStopped: (uri, version, stop) => this.publishStopped(uri, version, stop),
       onBusy: (busy, pending) => this.progress.update(busy, pending),
     }, 10, positiveNumber(env.RECTILENS_EDITOR_PATIENCE_MS));
+  }
+
+  /** The settings of the workspace folder holding a file (the innermost), else the window's. */
+  settingsFor(uri: string): AnalysisSettings {
+    let best: string | undefined;
+    for (const folder of this.folderSettings.keys()) {
+      const prefix = folder.endsWith('/') ? folder : `${folder}/`;
+      if (uri.startsWith(prefix) && (!best || folder.length > best.length)) best = folder;
+    }
+    return (best && this.folderSettings.get(best)) || this.settings;
   }
 
   /** The line index of a file: its analysis's, else its text's (an include not open). */
