@@ -36,6 +36,11 @@ describe('across files', () => {
 
       const links = await client.connection.sendRequest(DocumentLinkRequest.type, { textDocument: { uri: rootUri } });
       expect(links!.map((l) => [l.range.start.line, l.target])).toEqual([[2, libUri]]);
+      // An `*@ allow` code links to its rule's page.
+      const allowing = `${ROOT_TEXT}*@ allow missing-rating\n`;
+      await client.change(rootUri, 2, [{ text: allowing }]);
+      const more = await client.connection.sendRequest(DocumentLinkRequest.type, { textDocument: { uri: rootUri } });
+      expect(String(more!.find((l) => l.range.start.line === 10)?.target)).toMatch(/\/docs\/rules\/missing-rating\.md$/);
     } finally {
       await client.close();
     }

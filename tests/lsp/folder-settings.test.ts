@@ -2,7 +2,7 @@
  * Settings per workspace folder: the server pulls `workspace/configuration` with each folder as
  * the scope (LSP 3.6+), and a netlist is analysed with its own folder's settings.
  */
-import { mkdirSync, mkdtempSync, realpathSync, rmSync, writeFileSync } from 'node:fs';
+import { mkdirSync, mkdtempSync, realpathSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { pathToFileURL } from 'node:url';

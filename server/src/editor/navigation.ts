@@ -65,3 +65,10 @@ export function rename(files: FileSet, offset: number, newName: string): TextEdi
 export function includeLinksOf(uri: string, netlist: Netlist): { span: Span; target: string }[] {
   return listIncludeTargets(uri, netlist).flatMap((t) => (t.card.path ? [{ span: t.card.path.span, target: t.uri }] : []));
 }
+
+/** The finding codes the file's `*@ allow` lines name, where they are written. */
+export function allowedCodesOf(netlist: Netlist): { code: string; span: Span }[] {
+  return netlist.cards.flatMap((card) => (card.kind === 'directive' && card.directive?.keyword === 'allow'
+    ? card.directive.codes.map((c) => ({ code: c.text.toLowerCase(), span: c.span }))
+    : []));
+}

@@ -1,7 +1,8 @@
 /** Outline, folding, definition, references, rename and completion: the features that read the netlist's names. */
 import { CompletionItemKind, ErrorCodes, ResponseError } from 'vscode-languageserver/node';
 import { completeAt, modelsOf } from '../editor/completion';
-import { findDefinition, findReferences, includeLinksOf, prepareRename, rename } from '../editor/navigation';
+import { allowedCodesOf, findDefinition, findReferences, includeLinksOf, prepareRename, rename } from '../editor/navigation';
+import { rulePageUri } from './rule-pages';
 import { foldingRangesOf, outlineOf } from '../editor/outline';
 import { toDocumentSymbol, toFoldingRange, toRange, toWorkspaceEdit } from './convert';
 import type { Guard } from './request-guard';
@@ -50,7 +51,14 @@ export function registerNavigationFeatures(state: ServerState, guard: Guard): vo
   }));
   connection.onDocumentLinks(guard([], (params) => {
     const place = state.placeIn(params.textDocument.uri);
-    return place ? includeLinksOf(place.file.uri, place.file.netlist).map((l) => ({ range: toRange(place.lines, l.span), target: l.target })) : [];
+    if (!place) return [];
+    const includes = includeLinksOf(place.file.uri, place.file.netlist);
+    // Each code an `*@ allow` line names links to the page of the rule it accepts.
+    const codes = allowedCodesOf(place.file.netlist).flatMap((c) => {
+      const page = rulePageUri(c.code);
+      return page ? [{ span: c.span, target: page }] : [];
+    });
+    return [...includes, ...codes].map((l) => ({ range: toRange(place.lines, l.span), target: l.target }));
   }));
   connection.onCompletion(guard([], (params) => {
     const current = state.currentParse(params.textDocument.uri);
