@@ -1,14 +1,15 @@
 #!/usr/bin/env bash
 # Installs what the test suites need beyond npm's dev dependencies, once, and says what it does:
-# from Debian (apt-get, as root or through sudo) Neovim (a real editor client for the protocol
-# test), Chromium (screenshots, the HTML report, the VS Code run), ripgrep and the compilers for
-# the browser-served VS Code's native modules; then that VS Code itself (tests/e2e/setup-vscode.sh,
-# npm only). Idempotent: about a second when everything is there.
+# from Debian (apt-get, as root or through sudo) Neovim, and Emacs with eglot (real editor clients
+# that run the README's editor snippets, tests/editors), Chromium (screenshots, the HTML report,
+# the VS Code run), ripgrep and the compilers for the browser-served VS Code's native modules;
+# then that VS Code itself (tests/e2e/setup-vscode.sh, npm only). Idempotent: about a second when
+# everything is there.
 set -euo pipefail
 cd "$(dirname "$0")/.."
 
 export DEBIAN_FRONTEND=noninteractive
-APT_PACKAGES=(neovim chromium fonts-dejavu-core unzip curl ripgrep build-essential python3 libkrb5-dev strace)
+APT_PACKAGES=(neovim emacs-nox elpa-eglot chromium fonts-dejavu-core unzip curl ripgrep poppler-utils build-essential python3 libkrb5-dev strace)
 missing=()
 for p in "${APT_PACKAGES[@]}"; do
   dpkg-query -W -f='${Status}' "$p" 2>/dev/null | grep -q "install ok installed" || missing+=("$p")
