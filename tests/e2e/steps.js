@@ -184,4 +184,37 @@ async function settingsChange({ page, folder, check, shot }) {
   await shot('10-settings-change');
 }
 
-module.exports = { wordPoint, ALL: [languageMode, inlayHints, codeLens, hover, squiggles, quickFix, views, settingsChange] };
+const TWO_FILES = 'two-file-root.cir';
+
+async function includedFinding({ page, check, shot }) {
+  await openFile(page, TWO_FILES);
+  await page.waitForFunction((sel) => /PIV \d+\/100 V/.test(document.querySelector(`${sel} .view-lines`)?.textContent.replace(/\u00a0/g, ' ') || ''), EDITOR, { timeout: 90000 });
+  await page.keyboard.press('Control+Shift+M');
+  // The include is not open: its error reaches the Problems panel because the root's analysis publishes it there.
+  const found = await page.waitForFunction(() => /two-file-broken\.inc/.test(document.querySelector('.markers-panel')?.textContent || ''), null, { timeout: 60000 }).then(() => true, () => false);
+  const panel = await page.evaluate(() => (document.querySelector('.markers-panel')?.textContent || '').slice(0, 300));
+  check('a finding in an included file that is not open shows in the Problems panel under that file', found, panel);
+  await shot('11-included-file-finding');
+  await page.keyboard.press('Control+Shift+M');
+}
+
+async function renameAcrossFiles({ page, check, shot }) {
+  await openFile(page, TWO_FILES);
+  const pt = await wordPoint(page, 'D1 a p', 'DW');
+  await page.mouse.click(pt.x, pt.y);
+  await page.keyboard.press('F2');
+  const input = page.locator('.rename-box input');
+  await input.waitFor({ timeout: 30000 });
+  await input.fill('DBRIDGE');
+  await page.keyboard.press('Enter');
+  await page.waitForFunction((sel) => /D1 a p DBRIDGE/.test(document.querySelector(`${sel} .view-lines`)?.textContent.replace(/\u00a0/g, ' ') || ''), EDITOR, { timeout: 30000 }).catch(() => {});
+  const root = await viewText(page);
+  await openFile(page, 'two-file-models.inc');
+  await page.waitForFunction((sel) => /\.model DBRIDGE/.test(document.querySelector(`${sel} .view-lines`)?.textContent.replace(/\u00a0/g, ' ') || ''), EDITOR, { timeout: 30000 }).catch(() => {});
+  const lib = await viewText(page);
+  check('rename of a model in the root also renames its .model card in the include and its *@ rate line',
+    /\.model DBRIDGE/.test(lib) && /rate DBRIDGE/.test(root) && /D4 n b DBRIDGE/.test(root), { root: root.slice(0, 160), lib: lib.slice(0, 120) });
+  await shot('12-rename-across-files');
+}
+
+module.exports = { wordPoint, ALL: [languageMode, inlayHints, codeLens, hover, squiggles, quickFix, views, settingsChange, includedFinding, renameAcrossFiles] };

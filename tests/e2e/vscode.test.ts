@@ -14,7 +14,7 @@ function run(command: string, args: string[], timeoutMs: number) {
 }
 
 describe('the extension in a real VS Code', () => {
-  it('activates, shows hints, squiggles, hover, lenses, quick fix, views and follows a settings change', () => {
+  it('activates, shows hints, squiggles, hover, lenses, quick fix, views, follows a settings change, shows an include\'s finding and renames across files', () => {
     const setup = run('bash', [join(__dirname, 'setup-vscode.sh')], 600_000);
     expect(setup.status, setup.stdout + setup.stderr).toBe(0);
     const pack = run('npm', ['run', '--silent', 'package'], 300_000);
@@ -22,6 +22,8 @@ describe('the extension in a real VS Code', () => {
     // A short workspace path: code-server puts a unix socket under it.
     const workspace = mkdtempSync('/tmp/rlws-');
     for (const name of readdirSync(join(ROOT, 'examples'))) cpSync(join(ROOT, 'examples', name), join(workspace, name));
+    // A root with two includes (our own): one defines its model, one is cut short.
+    for (const name of readdirSync(join(__dirname, 'workspace'))) cpSync(join(__dirname, 'workspace', name), join(workspace, name));
     rmSync(OUT, { recursive: true, force: true });
     mkdirSync(OUT, { recursive: true });
     const e2e = run('bash', [join(__dirname, 'run-vscode.sh'), join(ROOT, 'rectilens.vsix'), workspace, join(__dirname, 'driver.js'), OUT], 900_000);

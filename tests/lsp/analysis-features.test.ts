@@ -78,3 +78,19 @@ describe('analysis features over the protocol', () => {
   });
 });
 
+
+describe('hover for an editor that reads plaintext only', () => {
+  it('answers in plaintext, without Markdown marks (LSP 3.0 hover contentFormat)', async () => {
+    const plain = await startTestClient({ capabilities: { textDocument: { hover: { contentFormat: ['plaintext'] } } } });
+    try {
+      await plain.open(URI, TEXT);
+      const hover = await plain.connection.sendRequest(HoverRequest.type, { textDocument: { uri: URI }, position: at(4, 1) });
+      const contents = hover!.contents as MarkupContent;
+      expect(contents.kind).toBe('plaintext');
+      expect(contents.value).toContain('D1');
+      expect(contents.value).not.toMatch(/\*\*|`/);
+    } finally {
+      await plain.close();
+    }
+  });
+});

@@ -32,6 +32,8 @@ export function registerConfiguration(state: ServerState): void {
     state.editorSettings = options.settings ?? {};
     state.pullConfiguration = Boolean(params.capabilities.workspace?.configuration);
     state.progressSupport = Boolean(params.capabilities.window?.workDoneProgress);
+    const formats = params.capabilities.textDocument?.hover?.contentFormat;
+    state.hoverMarkdown = !formats || formats.includes('markdown');
     state.watchSupport = Boolean(params.capabilities.workspace?.didChangeWatchedFiles?.dynamicRegistration);
     state.refreshSupport = {
       inlayHints: Boolean(params.capabilities.workspace?.inlayHint?.refreshSupport),

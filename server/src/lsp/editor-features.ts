@@ -4,6 +4,7 @@ import { distinctFixes, findingsInRange } from '../findings/index';
 import { codeLensesOf } from '../editor/code-lens';
 import { inlayHintsIn } from '../editor/inlay-hints';
 import { hoverInFile } from '../editor/stress-hover';
+import { markdownToPlainText } from '../presentation/markup';
 import { VIEW_REQUEST, type ViewRequest } from '../protocol/custom-protocol';
 import { toRange, toWorkspaceEdit } from './convert';
 import type { Guard } from './request-guard';
@@ -36,7 +37,10 @@ export function registerEditorFeatures(state: ServerState, guard: Guard): void {
   connection.onHover(guard(null, async (params) => {
     const place = await state.freshPlaceIn(params.textDocument.uri, params.position);
     const found = place && hoverInFile(place.file, place.offset);
-    return found ? { contents: { kind: MarkupKind.Markdown, value: found.markdown }, range: toRange(place.lines, found.span) } : null;
+    if (!found) return null;
+    // An editor that reads plaintext only (it says so in its hover contentFormat) gets the text without Markdown marks.
+    const contents = state.hoverMarkdown ? { kind: MarkupKind.Markdown, value: found.markdown } : { kind: MarkupKind.PlainText, value: markdownToPlainText(found.markdown) };
+    return { contents, range: toRange(place.lines, found.span) };
   }));
 
   connection.languages.inlayHint.on(guard([], async (params) => {

@@ -40,6 +40,8 @@ export class ServerState {
   pullConfiguration = false;
   /** Whether the editor can be asked to re-request its inlay hints and code lenses. */
   refreshSupport = { inlayHints: false, codeLenses: false };
+  /** Whether the editor reads Markdown hovers (it does unless its hover contentFormat leaves Markdown out). */
+  hoverMarkdown = true;
   /** Whether the editor shows server-created progress (`window.workDoneProgress`). */
   progressSupport = false;
   /** Whether the editor registers file watchers the server asks for. */

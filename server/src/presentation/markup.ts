@@ -75,3 +75,11 @@ export function tickLabel(value: number, ticks: readonly number[]): string {
   const decimals = Math.max(0, Math.min(6, -Math.floor(Math.log10(step) + 1e-9)));
   return value.toFixed(decimals).replace('-', '−');
 }
+
+/**
+ * A hover written in Markdown as plain text, for an editor that asks for plaintext only: emphasis
+ * and code marks dropped, backslash escapes undone; tables keep their pipes, which read as columns.
+ */
+export function markdownToPlainText(markdown: string): string {
+  return markdown.replace(/\*\*|__|`/g, '').replace(/\\([\\`*_[\]<>|~&])/g, '$1');
+}
