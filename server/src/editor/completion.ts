@@ -1,5 +1,5 @@
 /** Completion of directive keywords and keys, model, subcircuit and node names, by position in the card. */
-import { DERATE_KEYS, DIRECTIVE_KEYWORDS, RATING_KEYS, key, type Netlist } from '../../../grammar/src/index';
+import { DERATE_KEYS, DIRECTIVE_KEYWORDS, PROFILE_KEYS, RATING_KEYS, key, type Netlist } from '../../../grammar/src/index';
 import { FINDING_CODES } from '../rules/codes';
 import { indexNames } from './name-index';
 import { DEFAULT_ESR_LIFE_FACTOR } from '../equivalent/part-spreads';
@@ -18,6 +18,7 @@ const DIRECTIVE_DETAILS: Readonly<Record<string, string>> = {
   rate: 'ratings for a model or instance: rate NAME vrrm=600V ifsm=30A …',
   derate: 'derating policy: derate vr=80% if=70% tj=125C cap=80%',
   allow: 'accept a finding on the next card: allow CODE',
+  profile: 'operating profile for the comparison\'s energy and payback: profile hours=4000h years=10 price=0.25 (per kWh, the currency of cost=)',
 };
 
 /** What the part-spread rating keys mean (the spreads the corners' part vertices pick from: solve/corners.ts). */
@@ -56,6 +57,7 @@ function completeDirective(words: string[], position: number): CompletionItem[] 
   if (keyword === 'derate') return DERATE_KEYS.map((k) => ({ label: k, kind: 'property', insertText: `${k}=` }));
   if (keyword === 'allow') return Object.entries(FINDING_CODES).map(([code, detail]) => ({ label: code, kind: 'code', detail }));
   if (keyword === 'load') return [{ label: 'vmin', kind: 'property', insertText: 'vmin=' }];
+  if (keyword === 'profile') return PROFILE_KEYS.map((k) => ({ label: k, kind: 'property', insertText: `${k}=` }));
   if (keyword === 'mains') return [{ label: 'tol', kind: 'property', insertText: 'tol=' }, { label: 'phases', kind: 'property', insertText: 'phases=' }];
   return [];
 }
@@ -72,13 +74,17 @@ function subcktItems(netlist: Netlist): CompletionItem[] {
   return [...seen.values()];
 }
 
+const GROUND_NAMES: ReadonlySet<string> = new Set(['0', 'gnd']);
+
 /** Node names in the scope of the cursor (the subcircuit body it sits in, or the top level). */
 function nodeNames(netlist: Netlist, offset: number): CompletionItem[] {
   const block = netlist.items.find((i) => i.kind === 'subckt-block' && i.span.start <= offset && offset <= i.span.end);
   const scope = block && block.kind === 'subckt-block' && block.header.name ? key(block.header.name) : '';
   const seen = new Map<string, CompletionItem>();
   for (const o of indexNames(netlist)) {
-    if (o.kind === 'node' && (o.scope === scope || o.scope === '') && !(o.span.start <= offset && offset <= o.span.end)) {
+    // A body's nodes are local; only ground (scope '' everywhere) reaches into it from the top level.
+    const inScope = o.scope === scope || (o.scope === '' && GROUND_NAMES.has(o.key));
+    if (o.kind === 'node' && inScope && !(o.span.start <= offset && offset <= o.span.end)) {
       seen.set(o.key, { label: netlist.text.slice(o.span.start, o.span.end), kind: 'node' });
     }
   }
