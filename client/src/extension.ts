@@ -1,12 +1,13 @@
 /**
- * The VS Code side: starts the language server and hosts the waveform and comparison views. It
- * computes nothing; every figure comes from the server, and its busy item is the server's
- * standard progress, which the language client shows in the status bar.
+ * The VS Code side: starts the language server, hosts the waveform and comparison views and writes
+ * the open file's report. It computes nothing; every figure comes from the server, and its busy
+ * item is the server's standard progress, which the language client shows in the status bar.
  */
 import * as vscode from 'vscode';
 import { LanguageClient, TransportKind, type LanguageClientOptions, type ServerOptions } from 'vscode-languageclient/node';
 import { COMMANDS, type ViewKind } from '../../server/src/protocol/custom-protocol';
 import { showAnalysisView } from './analysis-view';
+import { writeReport } from './write-report';
 
 let client: LanguageClient | undefined;
 
@@ -20,6 +21,10 @@ export async function activate(context: vscode.ExtensionContext): Promise<void> 
   context.subscriptions.push(
     vscode.commands.registerCommand(COMMANDS.showWaveforms, openView('waveforms')),
     vscode.commands.registerCommand(COMMANDS.compareTopologies, openView('comparison')),
+    vscode.commands.registerCommand(COMMANDS.writeReport, async (uri?: string) => {
+      const target = uri ?? vscode.window.activeTextEditor?.document.uri.toString();
+      if (target && client) await writeReport(context, client, target);
+    }),
     // Trust changes what the server may read: restart it with the new policy.
     vscode.workspace.onDidGrantWorkspaceTrust(async () => {
       await client?.stop();

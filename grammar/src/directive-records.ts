@@ -49,6 +49,7 @@ export const RATING_KEYS = [
   'vrated', 'iripple', 'esr',
   'vmin', 'iq',
   'cost',
+  'vmax',
   'tol', 'life', 'esrlife', 'vfspread',
   'hot', 'endurance', 'rth',
 ] as const;
@@ -64,7 +65,7 @@ export interface RatingEntry {
   span: Span;
   /** Scalar value (absent for `vf`, which carries points). */
   value?: number;
-  /** `vf=0.93V@1A,0.78V@0.1A`. */
+  /** `vf=0.93V@1A,0.78V@0.1A`; for `iq` the current at each supply voltage (`iq=40uA@8V,300uA@60V`). */
   points?: ForwardPoint[];
   /** `ifsm=30A@10ms`: the surge duration the rating is given for. */
   durationS?: number;
@@ -104,6 +105,19 @@ export interface AllowDirective {
   codes: Name[];
 }
 
-export type Directive = MainsDirective | AmbientDirective | LoadDirective | RateDirective | DerateDirective | AllowDirective;
+/** `*@ profile hours=4000h years=10 price=0.25`: how long the product runs and what its energy costs, for the comparison. */
+export interface ProfileDirective {
+  keyword: 'profile';
+  span: Span;
+  /** Operating hours per year. */
+  hoursPerYear?: number;
+  years?: number;
+  /** Price of one kWh, in the file's own currency (the one its `cost=` ratings use). */
+  pricePerKwh?: number;
+}
 
-export const DIRECTIVE_KEYWORDS = ['mains', 'ambient', 'load', 'rate', 'derate', 'allow'] as const;
+export const PROFILE_KEYS = ['hours', 'years', 'price'] as const;
+
+export type Directive = MainsDirective | AmbientDirective | LoadDirective | RateDirective | DerateDirective | AllowDirective | ProfileDirective;
+
+export const DIRECTIVE_KEYWORDS = ['mains', 'ambient', 'load', 'rate', 'derate', 'allow', 'profile'] as const;

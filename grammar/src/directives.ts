@@ -4,7 +4,7 @@
  * written for a newer version still analyses.
  */
 import {
-  DERATE_KEYS, DIRECTIVE_KEYWORDS, RATING_KEYS,
+  DERATE_KEYS, DIRECTIVE_KEYWORDS, PROFILE_KEYS, RATING_KEYS, type ProfileDirective,
   type AllowDirective, type AmbientDirective, type DerateDirective, type DerateKey, type Directive,
   type ForwardPoint, type LoadDirective, type LoadSpec, type MainsDirective, type RateDirective, type RatingEntry, type RatingKey,
 } from './directive-records';
@@ -38,7 +38,7 @@ export function parseDirective(line: string, offset: number): DirectiveParse {
   }
   const keyword = head.text.toLowerCase();
   const readers: Record<string, (ws: Word[], s: Span, r: Report) => Directive> = {
-    mains: readMains, ambient: readAmbient, load: readLoad, rate: readRate, derate: readDerate, allow: readAllow,
+    mains: readMains, ambient: readAmbient, load: readLoad, rate: readRate, derate: readDerate, allow: readAllow, profile: readProfile,
   };
   const reader = readers[keyword];
   if (!reader) {
@@ -284,7 +284,7 @@ function loadAmount(spec: LoadSpec): number {
 
 const RATING_UNITS: Readonly<Record<RatingKey, string>> = {
   vrrm: 'V', ifav: 'A', ifsm: 'A', tjmax: 'C', rthja: 'K/W', vf: 'V', vds: 'V', id: 'A', rdson: 'ohm', vsd: 'V',
-  vrated: 'V', iripple: 'A', esr: 'ohm', vmin: 'V', iq: 'A', cost: '',
+  vrated: 'V', iripple: 'A', esr: 'ohm', vmin: 'V', iq: 'A', cost: '', vmax: 'V',
   tol: '%', life: '%', esrlife: '', vfspread: 'V',
   hot: 'ohm', endurance: 'h', rth: 'K/W',
 };
@@ -322,6 +322,10 @@ function readRatingEntry(word: Word, report: Report): RatingEntry | undefined {
   const ratingKey = key as RatingKey;
   if (ratingKey === 'vf') {
     const points = readForwardPoints(value, report);
+    return points ? { key: ratingKey, span, points } : undefined;
+  }
+  if (ratingKey === 'iq' && value.text.includes('@')) {
+    const points = readQuiescentPoints(value, report);
     return points ? { key: ratingKey, span, points } : undefined;
   }
   if (RANGE_RATINGS.has(ratingKey)) {
@@ -387,7 +391,30 @@ function readSurgeDuration(duration: Word, report: Report): number | undefined {
   return problem ? undefined : durationS;
 }
 
-const POSITIVE_RATINGS: ReadonlySet<RatingKey> = new Set(['vrrm', 'ifav', 'ifsm', 'vds', 'id', 'vrated', 'iripple', 'hot', 'endurance', 'rth']);
+const POSITIVE_RATINGS: ReadonlySet<RatingKey> = new Set(['vrrm', 'ifav', 'ifsm', 'vds', 'id', 'vrated', 'iripple', 'hot', 'endurance', 'rth', 'vmax']);
+
+/** `iq=40uA@8V,300uA@60V`: two quiescent currents at two different supply voltages, amps@volts. */
+function readQuiescentPoints(value: Word, report: Report): ForwardPoint[] | undefined {
+  const points: ForwardPoint[] = [];
+  let start = value.start;
+  for (const part of value.text.split(',')) {
+    const piece: Word = { text: part, start, end: start + part.length };
+    start += part.length + 1;
+    const [amps, volts] = splitAt(piece);
+    const iA = volts ? readQuantity(amps, 'A', report, piece) : undefined;
+    const vV = volts ? readQuantity(volts, 'V', report, piece) : undefined;
+    if (iA === undefined || vV === undefined) {
+      if (!volts) report(piece, `a quiescent point is written amps@volts, e.g. 40uA@8V; got '${part}'`);
+      return undefined;
+    }
+    points.push({ vV, iA });
+  }
+  if (points.length !== 2 || points[0]!.vV === points[1]!.vV || points.some((p) => !(p.iA >= 0) || !(p.vV > 0))) {
+    report(value, 'iq takes one current, or two currents at two different supply voltages, e.g. iq=40uA@8V,300uA@60V');
+    return undefined;
+  }
+  return points;
+}
 
 function splitAt(word: Word): [Word, Word | undefined] {
   const at = word.text.indexOf('@');
@@ -431,6 +458,30 @@ function readDerate(words: Word[], span: Span, report: Report): DerateDirective 
     if (key === 'life' && !(amount > 0)) report(value, `life is the capacitor life asked for, in hours above zero, e.g. life=50000h; got '${value.text}'`);
     else if (key !== 'tj' && key !== 'life' && (amount <= 0 || amount > 1)) report(value, `a derating fraction lies between 0 and 100 %, got '${value.text}'`);
     else record.entries.push({ key: key as DerateKey, span: { start: word.start, end: word.end }, value: amount });
+  }
+  return record;
+}
+
+function readProfile(words: Word[], span: Span, report: Report): ProfileDirective {
+  const record: ProfileDirective = { keyword: 'profile', span };
+  if (words.length === 0) report(span, 'profile needs hours, years and price, e.g. *@ profile hours=4000h years=10 price=0.25');
+  const units: Readonly<Record<(typeof PROFILE_KEYS)[number], string>> = { hours: 'h', years: '', price: '' };
+  for (const word of words) {
+    const { key, value } = splitKeyValue(word);
+    if (!(PROFILE_KEYS as readonly string[]).includes(key) || !value) {
+      report(word, `expected key=value with a key among ${PROFILE_KEYS.join(', ')}, got '${word.text}'`);
+      continue;
+    }
+    const k = key as (typeof PROFILE_KEYS)[number];
+    const amount = readQuantity(value, units[k], report, word);
+    if (amount === undefined) continue;
+    if (!(amount > 0) || (k === 'hours' && amount > 8784)) {
+      report(value, k === 'hours' ? `hours are the operating hours per year, above zero and at most 8784; got '${value.text}'` : `${k} must be above zero; got '${value.text}'`);
+      continue;
+    }
+    if (k === 'hours') record.hoursPerYear = amount;
+    else if (k === 'years') record.years = amount;
+    else record.pricePerKwh = amount;
   }
   return record;
 }

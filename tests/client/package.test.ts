@@ -16,7 +16,8 @@ describe('extension manifest', () => {
 
   it('contributes the language, grammar, snippets, commands, parts-file schema and settings', () => {
     const c = manifest.contributes;
-    expect(c.languages[0].extensions).toEqual(['.cir', '.net', '.sp', '.spi', '.ckt']);
+    // Netlists, and the include and library files they read (so an open include is synced to the server).
+    expect(c.languages[0].extensions).toEqual(['.cir', '.net', '.sp', '.spi', '.ckt', '.inc', '.lib']);
     expect(c.grammars[0].scopeName).toBe('source.netlist');
     expect(c.snippets[0].language).toBe('netlist');
     // The command ids are declared once, for the client and the server's code lenses.

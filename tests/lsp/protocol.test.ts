@@ -80,7 +80,7 @@ describe('language server over stdio', () => {
     const uri = 'file:///work/demo/complete.cir';
     await client.open(uri, 't\n*@ \n*@ rate DX v\nD9 a b \n.model DX D\n');
     const directives = await client.connection.sendRequest(CompletionRequest.type, { textDocument: { uri }, position: at(1, 3) });
-    expect((directives as { label: string }[]).map((i) => i.label)).toEqual(['mains', 'ambient', 'load', 'rate', 'derate', 'allow']);
+    expect((directives as { label: string }[]).map((i) => i.label)).toEqual(['mains', 'ambient', 'load', 'rate', 'derate', 'allow', 'profile']);
     const keys = (await client.connection.sendRequest(CompletionRequest.type, { textDocument: { uri }, position: at(2, 12) })) as { label: string }[];
     expect(keys.map((i) => i.label)).toContain('vrrm');
     const models = (await client.connection.sendRequest(CompletionRequest.type, { textDocument: { uri }, position: at(3, 7) })) as { label: string }[];

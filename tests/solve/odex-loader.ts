@@ -11,6 +11,8 @@ export interface OdexSolver {
   absoluteTolerance: number | number[];
   relativeTolerance: number | number[];
   maxSteps: number;
+  /** Largest step (0: the whole interval). */
+  maxStepSize?: number;
   denseOutput: boolean;
   solve(f: Derivative, x: number, y0: number[], xEnd: number, solOut?: OutputFunction): { y: number[]; nEval: number };
   grid(dt: number, out: (x: number, y: number[]) => void): OutputFunction;

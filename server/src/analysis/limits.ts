@@ -33,6 +33,7 @@ import { NON_FINITE_NOTE } from '../solve/index';
 import type { Finding } from '../findings/index';
 import type { RectifierAnalysis } from '../equivalent/index';
 import { unsolvedRectifierFindings } from './unsolved-rectifier';
+import { unmodelledInductanceFindings } from './unmodelled-inductance';
 
 export interface AnalysisLimits {
   /**
@@ -127,7 +128,7 @@ export function unsolvedFinding(skipped: readonly { anchor: { uri: string; span:
  * and `unsolved-rectifier` for corners not solved at all (unsolved-rectifier.ts).
  */
 export function solverFindings(analyses: readonly RectifierAnalysis[]): Finding[] {
-  return analyses.flatMap((analysis) => [...solverBoundFindings(analysis), ...unsolvedRectifierFindings(analysis)]);
+  return analyses.flatMap((analysis) => [...solverBoundFindings(analysis), ...unsolvedRectifierFindings(analysis), ...unmodelledInductanceFindings(analysis)]);
 }
 
 function solverBoundFindings({ rectifier, solution }: RectifierAnalysis): Finding[] {

@@ -1,7 +1,8 @@
 /** `rectilens compare <file> [--format text|json]`: the topology comparison of every bridge in a file. */
 import { escapeControlChars } from '../../../grammar/src/index';
 import { memoisedSolver } from '../solve/index';
-import { compareTopologies, type ComparisonRow, type TopologyComparison } from '../compare/index';
+import { compareEnergy, compareTopologies, operatingProfileOf, sweepLoad, type ComparisonRow, type TopologyComparison } from '../compare/index';
+import { energyText, sweepJson, sweepText } from './sweep-text';
 import { formatCelsius, formatFixed, formatPercent, formatSi } from '../presentation/format';
 import { rectifierLabel } from '../report/html-blocks';
 import { shortCornerName } from '../report/report-text-annotated';
@@ -17,15 +18,25 @@ export function runCompare(argv: readonly string[], io: CommandIo): number {
   const file = analyseSingleNetlist(args.positional, 'compare', COMPARE_USAGE, io);
   if (!file) return 2;
   const path = args.positional[0]!;
-  const solve = memoisedSolver(undefined);
-  const comparisons = file.rectifiers.map((analysis) => ({ label: rectifierLabel(analysis), comparison: compareTopologies(analysis, file.policy, solve) }));
+  // One cache for the run: the sweep's point at the file's load reuses nothing else, but its constructions share their corners.
+  const solve = memoisedSolver(new Map());
+  const profile = operatingProfileOf(file.flat.directives);
+  const comparisons = file.rectifiers.map((analysis) => {
+    const comparison = compareTopologies(analysis, file.policy, solve);
+    const extra = comparison.applicable ? { energy: compareEnergy(comparison, profile), sweep: sweepLoad(analysis, file.policy, solve) } : undefined;
+    return { label: rectifierLabel(analysis), comparison, extra };
+  });
   if (args.flags.get('format') === 'json') {
-    io.stdout(JSON.stringify({ version: 1, path, rectifiers: comparisons.map((c) => c.comparison) }, null, 2) + '\n');
+    const rectifiers = comparisons.map((c) => ({ ...c.comparison, ...(c.extra ? { energy: c.extra.energy, sweep: sweepJson(c.extra.sweep) } : {}) }));
+    io.stdout(JSON.stringify({ version: 1, path, rectifiers }, null, 2) + '\n');
     return 0;
   }
   const out = [`== ${path}`];
   if (comparisons.length === 0) out.push('No rectifier recognised.');
-  for (const { label, comparison } of comparisons) out.push('', `-- ${label} [${comparison.rectifierId}]`, ...comparisonText(comparison));
+  for (const { label, comparison, extra } of comparisons) {
+    out.push('', `-- ${label} [${comparison.rectifierId}]`, ...comparisonText(comparison));
+    if (extra) out.push('', 'Cost against energy:', ...energyText(extra.energy), '', 'Across the load range (worst corner at each load):', ...sweepText(extra.sweep));
+  }
   // Labels and assumptions name netlist parts: no control character of theirs reaches the terminal.
   io.stdout(escapeControlChars(out.join('\n') + '\n'));
   return 0;

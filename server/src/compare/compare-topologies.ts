@@ -10,9 +10,10 @@ import type { DeviceAnalysis, RectifierAnalysis } from '../equivalent/index';
 import type { SolveFn } from '../solve/index';
 import type { DeratingPolicy, MosfetRatings } from '../ratings/index';
 import type { RectifierSolution, WorstValue } from '../solve/index';
-import { deviceFiguresOf } from '../solve/index';
+import { deviceFiguresOf, isNominalCorner } from '../solve/index';
+import { displayNumber as trim } from '../../../grammar/src/index';
 import { judgeRow, type RowVerdict } from './row-verdict';
-import { planVariants, type VariantId, type VariantPlan } from './variants';
+import { planVariants, type VariantBasis, type VariantId, type VariantPlan } from './variants';
 
 export type { VariantId } from './variants';
 
@@ -32,6 +33,8 @@ export interface ComparisonRow {
   hottestTjC?: WorstValue & { device: string };
   inrushPeakA?: WorstValue;
   thermalRunaway: boolean;
+  /** Rectifier loss at the nominal corner (nominal line and ambient): the typical operating loss, for energy over life. */
+  typicalLossW?: number;
   /** Sum of the parts' costs in the file's own currency, when the file gives them. */
   cost?: number;
   /**
@@ -62,27 +65,40 @@ const BRIDGE_KINDS = new Set(['diode-bridge', 'active-bridge', 'hybrid-bridge'])
 export function compareTopologies(analysis: RectifierAnalysis, policy: DeratingPolicy, solve: SolveFn): TopologyComparison {
   const { rectifier, solution, circuit, devices } = analysis;
   const base = { rectifierId: rectifier.id, kind: rectifier.kind };
-  if (!BRIDGE_KINDS.has(rectifier.kind) || circuit.devices.length !== 4) {
+  if (!isComparable(analysis)) {
     return { ...base, applicable: false, reason: 'the comparison covers single-phase four-device bridges only', rows: [], assumptions: [] };
   }
-  const plans = planVariants({
-    circuit,
-    policy,
-    pivV: maxWorst(devices, 'pivV'),
-    iavgA: maxWorst(devices, 'iavgA'),
-    controllerVminV: circuit.controllerVminV ?? analysis.controller?.vminV?.value,
-    ...mosfetRatingsOf(devices),
-  });
+  const plans = planVariants(variantBasisOf(analysis, policy));
   const costs = partCosts(analysis);
   const asDrawn: ComparisonRow = {
     id: 'as-drawn', label: 'As drawn', construction: describeAsDrawn(analysis), applicable: true,
     ...figuresOf(solution), cost: costs.asDrawn, assumptions: asDrawnNotes(solution),
     verdict: judgeRow(devices.map((d, k) => ({ name: d.ref.name, kind: circuit.devices[k]!.kind, figures: d.figures, ratings: d.ratings.ratings })), policy),
   };
+  if (circuit.controllerVminV !== undefined) withControllerLimit(asDrawn.verdict!, analysis);
   const rows = [asDrawn, ...plans.map((plan) => solvePlan(plan, analysis, policy, costs, solve))];
   const shared = plans.map((p) => p.assumptions).reduce((a, b) => a.filter((x) => b.includes(x)));
   for (const row of rows.slice(1)) row.assumptions = row.assumptions.filter((a) => !shared.includes(a));
   return { ...base, applicable: true, rows, assumptions: shared };
+}
+
+/** True for the rectifiers the comparison covers: single-phase four-device bridges. */
+export function isComparable(analysis: RectifierAnalysis): boolean {
+  return BRIDGE_KINDS.has(analysis.rectifier.kind) && analysis.circuit.devices.length === 4;
+}
+
+/** What the variants of a bridge are built from; the comparison and the load sweep plan from the same basis. */
+export function variantBasisOf(analysis: RectifierAnalysis, policy: DeratingPolicy): VariantBasis {
+  const { circuit, devices } = analysis;
+  return {
+    circuit,
+    policy,
+    pivV: maxWorst(devices, 'pivV'),
+    iavgA: maxWorst(devices, 'iavgA'),
+    controllerVminV: circuit.controllerVminV ?? analysis.controller?.vminV?.value,
+    ...(circuit.controllerSupply ? { controllerSupply: circuit.controllerSupply } : {}),
+    ...mosfetRatingsOf(devices),
+  };
 }
 
 function solvePlan(plan: VariantPlan, analysis: RectifierAnalysis, policy: DeratingPolicy, costs: PartCosts, solve: SolveFn): ComparisonRow {
@@ -98,7 +114,21 @@ function solvePlan(plan: VariantPlan, analysis: RectifierAnalysis, policy: Derat
   const verdict = judgeRow(circuit.devices.map((d, k) => ({
     name: d.name, kind: d.kind, figures: deviceFiguresOf(circuit, solved, k), ratings: plan.ratings?.[k],
   })), policy);
+  if (plan.id === 'synchronous') withControllerLimit(verdict, analysis);
   return { ...row, ...figuresOf(solved), ...(cost !== undefined ? { cost } : {}), verdict };
+}
+
+/**
+ * A construction with the file's controller fails where `controller-overvoltage` would fire: the
+ * highest corner's crest above the controller's rated `vmax` (the same comparison as the rule).
+ */
+function withControllerLimit(verdict: RowVerdict, analysis: RectifierAnalysis): void {
+  const vmaxV = analysis.controller?.vmaxV?.value;
+  if (vmaxV === undefined) return;
+  const crestV = Math.max(0, ...analysis.solution.corners.map((c) => c.lineVrms * Math.SQRT2));
+  if (crestV <= vmaxV) return;
+  verdict.failures.push({ devices: ['controller'], code: 'controller-overvoltage', text: `input crest ${trim(crestV)} V against the controller's rated vmax ${trim(vmaxV)} V` });
+  verdict.status = 'fail';
 }
 
 /** The file's own MOSFET ratings, when the bridge as drawn has a rated MOSFET: the MOSFET variants keep the part. */
@@ -110,7 +140,8 @@ function mosfetRatingsOf(devices: readonly DeviceAnalysis[]): { mosfetRatings?: 
   return {};
 }
 
-function figuresOf(solution: RectifierSolution): Pick<ComparisonRow, 'efficiency' | 'rectifierLossW' | 'hottestTjC' | 'inrushPeakA' | 'thermalRunaway'> {
+function figuresOf(solution: RectifierSolution): Pick<ComparisonRow, 'efficiency' | 'rectifierLossW' | 'hottestTjC' | 'inrushPeakA' | 'thermalRunaway' | 'typicalLossW'> {
+  const typical = solution.corners.find((c) => isNominalCorner(c.name))?.rectifierLossW;
   let hottest: (WorstValue & { device: string }) | undefined;
   for (const d of solution.devices) {
     if (d.tjC && (!hottest || d.tjC.value > hottest.value)) hottest = { ...d.tjC, device: d.name };
@@ -118,6 +149,7 @@ function figuresOf(solution: RectifierSolution): Pick<ComparisonRow, 'efficiency
   return {
     efficiency: solution.worst.efficiency, rectifierLossW: solution.worst.rectifierLossW, hottestTjC: hottest,
     inrushPeakA: solution.worst.inrushPeakA, thermalRunaway: solution.devices.some((d) => d.thermalRunaway),
+    ...(typical !== undefined ? { typicalLossW: typical } : {}),
   };
 }
 

@@ -13,7 +13,7 @@ import {
 import { diodeParamsOfForwardModel } from '../equivalent/index';
 import {
   DEFAULT_CONTROLLER_VMIN_V, DEFAULT_RDSON_TEMP_EXPONENT, SPICE_DIODE_DEFAULTS,
-  type DeviceRole, type DiodeDevice, type DiodeParams, type EquivalentCircuit, type MosfetDevice, type RectifierDevice, type RectifierKind,
+  type ControllerSupply, type DeviceRole, type DiodeDevice, type DiodeParams, type EquivalentCircuit, type MosfetDevice, type RectifierDevice, type RectifierKind,
 } from '../solve/index';
 
 export type VariantId = 'silicon' | 'schottky' | 'hybrid' | 'synchronous';
@@ -31,6 +31,8 @@ export interface VariantBasis {
   controllerVminV?: number;
   /** The file's own MOSFET ratings (an active or hybrid bridge as drawn), which the MOSFET variants keep. */
   mosfetRatings?: MosfetRatings;
+  /** The file's controller's quiescent draw (an active bridge as drawn with `iq` rated), which the synchronous variant keeps. */
+  controllerSupply?: ControllerSupply;
 }
 
 /** A variant's circuit, or the reason it is not offered. */
@@ -115,6 +117,8 @@ function planSynchronous(basis: VariantBasis, rthKPerW: number, rdson: { ohm: nu
   if (crestV < vmin) assumptions.push(`the source crest (${trim(crestV)} V nominal) stays below the controller's ${trim(vmin)} V: the channels never turn on`);
   const circuit = withDevices(basis.circuit, 'active-bridge', () => mosfet(rdson.ohm, 'controller', rthKPerW));
   circuit.controllerVminV = vmin;
+  if (basis.controllerSupply) circuit.controllerSupply = basis.controllerSupply;
+  else assumptions.push('no controller quiescent current (iq) in the file: the controller\'s own draw is not counted, so this variant is optimistic at light load');
   return {
     id: 'synchronous', label: 'Synchronous bridge', construction: `4 MOSFETs (${milliOhm(rdson.ohm)}) + controller (vmin ${vmin} V)`,
     circuit, ratings: BRIDGE_ROLES.map(() => basis.mosfetRatings), assumptions,
@@ -168,7 +172,7 @@ function withDevices(circuit: EquivalentCircuit, kind: RectifierKind, make: (rol
     const existing = circuit.devices.find((d) => d.role === role);
     return { ...make(role), name: existing?.name ?? `Q${k + 1}`, role } as RectifierDevice;
   });
-  const { controllerVminV: _dropped, ...rest } = circuit;
+  const { controllerVminV: _dropped, controllerSupply: _alsoDropped, ...rest } = circuit;
   return { ...rest, kind, devices };
 }
 

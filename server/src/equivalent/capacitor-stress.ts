@@ -3,16 +3,17 @@
  * ripple loss in its ESR, its core temperature and its life estimate (ratings/capacitor-life.ts),
  * with the worst of each and the corner that gave it (the life at the corner that shortens it most).
  *
- * Share: recognition merges parallel capacitors; their ripple current divides in proportion to
- * their capacitance (as rules/capacitor-view.ts takes it). ESR: the part's `esr=` rating, else,
- * for a capacitor alone in its group, the series resistance recognition found for it; parallel
- * parts without a rating have no ESR of their own, so no loss. The loss is taken with the rated
+ * Share: recognition merges parallel capacitors and series strings; the ripple current divides as
+ * `rippleShareOf` (recognize/capacitor-strings.ts) says, as rules/capacitor-view.ts takes it.
+ * ESR: the part's `esr=` rating, else, for a capacitor alone in its group or in its stage of a
+ * series string, the series resistance recognition found for it; parallel parts without a rating
+ * have no ESR of their own, so no loss. The loss is taken with the rated
  * (initial) ESR at every corner, also where the solver ran an aged ESR: the ESR rises towards the
  * end of life, and the rated endurance the estimate starts from already ends there.
  */
 import type { FlatCircuit } from '../circuit/index';
 import { capacitorLifeHours, coreRiseK, rippleLossW, type CoreRiseModel, type RatingsOf } from '../ratings/index';
-import type { Rectifier } from '../recognize/index';
+import { rippleShareOf, type CapacitorFinding, type Rectifier } from '../recognize/index';
 import type { RectifierSolution, WorstValue } from '../solve/index';
 
 export interface CapacitorAtCorner {
@@ -42,9 +43,11 @@ export function capacitorStressOf(
   const group = groups.findIndex((g) => g.names.some((n) => n.toLowerCase() === name.toLowerCase()));
   if (group < 0) return undefined;
   const found = groups[group]!;
-  const share = shareOf(flat, found.names, name);
+  const share = rippleShareOf(found, name) ?? 1 / found.names.length;
+  // A drawn series resistor is a part's own ESR when the part is alone in its group or in its string stage.
+  const drawnOhm = found.names.length === 1 ? found.esrOhm : loneStageEsrOhm(found, name);
   const esr = ratings.esrOhm ? { ohm: ratings.esrOhm.value, from: 'rating' as const }
-    : found.names.length === 1 && found.esrOhm > 0 ? { ohm: found.esrOhm, from: 'series resistor' as const } : undefined;
+    : drawnOhm !== undefined && drawnOhm > 0 ? { ohm: drawnOhm, from: 'series resistor' as const } : undefined;
   const stress: CapacitorStress = { riseModel: 'none', corners: [] };
   if (esr) stress.esr = esr;
   for (const corner of solution.corners) {
@@ -76,11 +79,9 @@ export function capacitorStressOf(
   return stress;
 }
 
-function shareOf(flat: FlatCircuit, names: readonly string[], name: string): number {
-  const value = (n: string) => {
-    const e = flat.elements.find((x) => x.key === n.toLowerCase());
-    return e && e.kind === 'capacitor' ? (e.value ?? 0) : 0;
-  };
-  const total = names.reduce((s, n) => s + value(n), 0);
-  return total > 0 ? value(name) / total : 1 / names.length;
+/** The drawn series resistance of a capacitor alone in its stage of a string, if it is one. */
+function loneStageEsrOhm(found: CapacitorFinding, name: string): number | undefined {
+  const key = name.toLowerCase();
+  const stage = (found.strings ?? []).flatMap((s) => s.stages).find((st) => st.members.some((m) => m.name.toLowerCase() === key));
+  return stage?.members.length === 1 ? stage.members[0]!.esrOhm : undefined;
 }

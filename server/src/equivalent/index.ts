@@ -6,3 +6,6 @@ export { analyseRectifiers, rateRectifier, solverPeriods, type CapacitorAnalysis
 export { toEquivalentCircuit, controllersOf, DEFAULT_RDSON_OHM, type RatedParts } from './to-equivalent-circuit';
 export { capacitorStressOf, type CapacitorAtCorner, type CapacitorStress } from './capacitor-stress';
 export { bodyDiodeParams, diodeParamsOfForwardModel, diodeParamsOfModel, VSD_DEFAULT_CURRENT_A } from './diode-params';
+export { controllerSupplyOf, quiescentCurrentA } from './controller-supply';
+export { stageVoltage, type GroupVoltage, type StageShare } from './string-share';
+export { relaxString, type StringRelaxation } from './string-relaxation';

@@ -4,11 +4,12 @@
  */
 import type { FlatCircuit, FlatModel } from '../circuit/index';
 import type { Finding } from '../findings/index';
-import { createRatingResolver, limiterHotResistances, type AnalysisSettings, type PartsFile, type RatingsOf, type ResolvedRatings } from '../ratings/index';
+import { createRatingResolver, limiterHotResistances, resistorTolerances, type AnalysisSettings, type PartsFile, type RatingsOf, type ResolvedRatings } from '../ratings/index';
 import type { Rectifier, RectifierDeviceRef } from '../recognize/index';
 import { defaultCorners, deviceFiguresOf, hasPartSpread, type Corner, type DeviceFigures, type EquivalentCircuit, type RectifierSolution, type SolveFn } from '../solve/index';
 import { controllersOf, toEquivalentCircuit, type RatedParts } from './to-equivalent-circuit';
 import { capacitorStressOf, type CapacitorStress } from './capacitor-stress';
+import { stringSharesOf, type StageShare } from './string-share';
 
 export interface DeviceAnalysis {
   ref: RectifierDeviceRef;
@@ -23,6 +24,8 @@ export interface CapacitorAnalysis {
   ratings: RatingsOf<'capacitor'>;
   /** Ripple loss, core temperature and life estimate over the corners (capacitor-stress.ts). */
   stress?: CapacitorStress;
+  /** Its stage's share of a series string's voltage, when it sits in one (string-share.ts). */
+  share?: StageShare;
 }
 
 export interface RectifierAnalysis {
@@ -49,6 +52,7 @@ export function analyseRectifiers(
   const resolve = createRatingResolver({ directives: flat.directives, partsFiles });
   const findings: Finding[] = [];
   const analyses: RectifierAnalysis[] = [];
+  const resistors = resistorTolerances(flat.directives);
   let periods = 0;
   for (const rectifier of rectifiers) {
     if (periods >= maxPeriods) break;
@@ -60,9 +64,11 @@ export function analyseRectifiers(
     const solution = solve(circuit, corners);
     periods += solverPeriods(solution);
     const devices = rated.map((d, k): DeviceAnalysis => ({ ...d, figures: deviceFiguresOf(circuit, solution, k) }));
+    const shares = new Map(rectifier.surroundings.capacitors.flatMap((g) => [...stringSharesOf(g, parts.capacitors, resistors)]));
     const capacitors = [...(parts.capacitors ?? [])].map(([name, ratings]): CapacitorAnalysis => {
       const stress = capacitorStressOf(rectifier, flat, solution, name, ratings);
-      return stress ? { name, ratings, stress } : { name, ratings };
+      const share = shares.get(name.toLowerCase());
+      return { name, ratings, ...(stress ? { stress } : {}), ...(share ? { share } : {}) };
     });
     const analysis: RectifierAnalysis = { rectifier, circuit, corners, solution, devices, capacitors };
     // The controller whose vmin the circuit took, else the first.

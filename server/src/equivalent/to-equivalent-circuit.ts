@@ -7,6 +7,7 @@
  * (`*@ rate <instance or subckt> vmin=`), else the solver's common-practice default. Every default
  * taken is said in a finding.
  */
+import { controllerSupplyOf } from './controller-supply';
 import { displayNumber } from '../../../grammar/src/index';
 import type { FlatModel } from '../circuit/index';
 import type { Finding } from '../findings/index';
@@ -52,6 +53,7 @@ export function toEquivalentCircuit(
     source: {
       vrms: source.vrms, freqHz: source.freqHz, seriesROhm: source.seriesROhm, seriesLH: source.seriesLH,
       mainsVrms: source.mainsVrms, turnsRatio: source.turnsRatio,
+      ...(source.magnetisingLH !== undefined ? { magnetisingLH: source.magnetisingLH } : {}),
     },
     devices,
     capacitors: rectifier.surroundings.capacitors.map((c) => filterCapacitorOf(c, rated.capacitors)),
@@ -66,7 +68,13 @@ export function toEquivalentCircuit(
     circuit.source.seriesROhm += limiter.hotROhm - limiter.coldROhm;
   }
   if (rectifier.doubler) circuit.doubler = rectifier.doubler;
-  if (devices.some((d) => d.kind === 'mosfet' && d.gate === 'controller')) circuit.controllerVminV = controllerVmin(rectifier, rated.controllers, say);
+  const choke = rectifier.surroundings.choke;
+  if (choke) circuit.choke = { names: [...choke.names], lH: choke.lH, rOhm: choke.rOhm };
+  if (devices.some((d) => d.kind === 'mosfet' && d.gate === 'controller')) {
+    circuit.controllerVminV = controllerVmin(rectifier, rated.controllers, say);
+    const supply = controllerSupplyOf(rated.controllers.find((c) => c.iqPoints || c.iqA));
+    if (supply) circuit.controllerSupply = supply;
+  }
   return { circuit, findings };
 }
 

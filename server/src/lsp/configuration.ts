@@ -50,9 +50,10 @@ export function registerConfiguration(state: ServerState): void {
   });
   registerFileWatching(state);
   connection.onDidChangeConfiguration((change) => {
+    // A pushed value has no scope: an editor that answers scoped pulls is asked again, folder by folder.
     const pushed = (change.settings as { rectilens?: AnalysisSettings } | undefined)?.rectilens;
-    if (pushed) applySettings(state, pushed);
-    else void refreshConfiguration(state);
+    if (state.pullConfiguration || !pushed) void refreshConfiguration(state);
+    else applySettings(state, pushed);
   });
 }
 

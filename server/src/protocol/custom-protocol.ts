@@ -8,12 +8,16 @@
 export const COMMANDS = {
   showWaveforms: 'rectilens.showWaveforms',
   compareTopologies: 'rectilens.compareTopologies',
+  writeReport: 'rectilens.writeReport',
 } as const;
 
-/** `rectilens/view`: a rectifier's waveform or comparison view, rendered by the server. */
+/**
+ * `rectilens/view`: a rectifier's waveform or comparison view, rendered by the server; `report`
+ * is the whole file's HTML report (`body` a complete page), which the client writes and opens.
+ */
 export const VIEW_REQUEST = 'rectilens/view';
 
-export type ViewKind = 'waveforms' | 'comparison';
+export type ViewKind = 'waveforms' | 'comparison' | 'report';
 
 export interface ViewRequest {
   kind: ViewKind;

@@ -24,5 +24,6 @@ export * from './stress-checks';
 export * from './select-part';
 export * from './voltage-safety';
 export * from './inrush-limiter';
+export * from './resistor-tolerance';
 export * from './capacitor-life';
 export * from './project-config';

@@ -10,7 +10,7 @@ export const RATING_FIELDS: Readonly<Record<PartKind, Readonly<Partial<Record<Ra
   diode: { vrrm: 'vrrmV', ifav: 'ifavA', ifsm: 'ifsmA', tjmax: 'tjmaxC', rthja: 'rthjaKPerW', vf: 'vfPoints', vfspread: 'vfSpreadV', cost: 'cost' },
   mosfet: { vds: 'vdsV', id: 'idA', rdson: 'rdsonOhm', tjmax: 'tjmaxC', rthja: 'rthjaKPerW', vsd: 'vsdV', cost: 'cost' },
   capacitor: { vrated: 'vratedV', iripple: 'iRippleA', esr: 'esrOhm', tol: 'capTolerance', life: 'capLifeLoss', esrlife: 'esrLifeFactor', endurance: 'endurance', rth: 'rthKPerW', cost: 'cost' },
-  controller: { vmin: 'vminV', iq: 'iqA', cost: 'cost' },
+  controller: { vmin: 'vminV', iq: 'iqA', cost: 'cost', vmax: 'vmaxV' },
 };
 
 /** The record field a rating key fills for a part kind, or undefined when it does not apply. */

@@ -146,6 +146,10 @@ export interface ControllerRatings {
   vminV?: Rated<number>;
   /** Quiescent current. */
   iqA?: Rated<number>;
+  /** Quiescent current at two supply voltages (`iq=40uA@8V,300uA@60V`), in place of `iqA`. */
+  iqPoints?: Rated<{ vV: number; iA: number }[]>;
+  /** Maximum supply (input) voltage. */
+  vmaxV?: Rated<number>;
   cost?: Rated<number>;
 }
 

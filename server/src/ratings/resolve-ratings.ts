@@ -113,6 +113,10 @@ function directiveLayer(kind: PartKind, uri: string, d: RateDirective, target: '
       continue;
     }
     const origin = { kind: 'rate-directive' as const, target, targetName, uri, span: entry.span };
+    if (entry.key === 'iq' && entry.points) {
+      layer.iqPoints = { value: entry.points, origin };
+      continue;
+    }
     const value = entryValue(entry);
     if (value === undefined) continue;
     layer[field] = { value, origin };

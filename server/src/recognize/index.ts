@@ -23,6 +23,7 @@ import { matchThreePhase } from './three-phase';
 export * from './rectifier';
 export { DEFAULT_MAINS } from './source-description';
 export { DEFAULT_RECOGNITION_STEPS } from './context';
+export { rippleShareOf, MAX_STRING_STAGES } from './capacitor-strings';
 
 /**
  * Finds the rectifiers of a flat circuit. `directives` defaults to the circuit's own; the first

@@ -59,15 +59,35 @@ export interface SourceFinding extends AcSource {
   seriesResistors?: { name: string; ohm: number; referral: number }[];
 }
 
-/** Filter capacitors across the output (parallel ones merged). */
+/**
+ * Filter capacitors across the output, merged into one: the parallel capacitors across it
+ * (`members`) and any series strings beside them (`strings`). `cF` and `esrOhm` are the whole
+ * group's (a string counts as its series equivalent); `names` lists every capacitor.
+ */
 export interface CapacitorFinding {
   names: string[];
   cF: number;
   esrOhm: number;
   /** Resistors taken as series ESR. */
   esrResistors: string[];
-  /** The capacitors merged here, each with its own series resistor (ESR) when drawn. */
+  /** The capacitors directly across the output, each with its own series resistor (ESR) when drawn. */
   members?: CapacitorMember[];
+  /** Series strings across the output (recognize/capacitor-strings.ts). */
+  strings?: CapacitorString[];
+}
+
+/** Capacitors in series across the output, from the slot's first node to its second. */
+export interface CapacitorString {
+  /** The nodes from end to end: the slot's two nodes and the internal nodes between. */
+  nodes: string[];
+  stages: CapacitorStage[];
+}
+
+/** One stage of a string: parallel capacitors between two of its nodes, and the resistors across them. */
+export interface CapacitorStage {
+  members: CapacitorMember[];
+  /** Balancing resistors across the stage (none: leakage alone sets its DC voltage). */
+  balancing: { name: string; ohm: number }[];
 }
 
 export interface CapacitorMember {
@@ -89,6 +109,16 @@ export interface Surroundings {
   /** Bridges, half-wave, centre tap, three-phase: at most one. Doubler: [lower or series, upper or output]. */
   capacitors: CapacitorFinding[];
   load: LoadFinding;
+  /** A DC choke between the output rail and the filter capacitor (dc-choke.ts). */
+  choke?: ChokeFinding;
+}
+
+/** A series inductor in the DC path between a rectifier and its filter capacitor. */
+export interface ChokeFinding {
+  names: string[];
+  lH: number;
+  /** Winding resistance drawn with it (0 when none is drawn). */
+  rOhm: number;
 }
 
 export interface Rectifier {

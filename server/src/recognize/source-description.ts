@@ -32,6 +32,8 @@ interface LoopReading {
   elements: string[];
   resistors: { name: string; ohm: number; referral: number }[];
   transformer?: TransformerFinding;
+  /** The transformer's magnetising inductance referred to the rectifier side. */
+  magnetisingLH?: number;
   notes: string[];
 }
 
@@ -53,6 +55,7 @@ export function describeSource(ctx: RecognizeContext, match: Match, mains: Mains
     mainsVrms: (magnitude(reading.lineEmf) * lineScale) / Math.SQRT2, turnsRatio: reading.ratio,
     elements: reading.elements, transformer: reading.transformer, mains, assumed: false, seriesResistors: reading.resistors,
   };
+  if (reading.magnetisingLH !== undefined) source.magnetisingLH = reading.magnetisingLH;
   return { source, notes };
 }
 
@@ -118,6 +121,8 @@ function addWinding(ctx: RecognizeContext, r: LoopReading, winding: FlatElement,
   r.transformer ??= t;
   r.ratio = t.voltageRatio;
   r.lH += t.leakageH;
+  // Cantilever model: L1 across the primary, referred to the secondary by (M/L1)²: k²·L2.
+  r.magnetisingLH ??= t.voltageRatio ** 2 * t.primaryH;
   r.elements.push(t.coupling, t.primary);
   if (!drive.primaryLoop) {
     const line = mains?.vrms ?? DEFAULT_MAINS.vrms;

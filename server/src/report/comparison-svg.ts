@@ -7,7 +7,8 @@ import type { ComparisonRow, TopologyComparison } from '../compare/index';
 import { coord, escapeMarkup, niceTicks, tickLabel } from '../presentation/markup';
 import { formatCelsius, formatFixed, formatPercent, formatSi } from '../presentation/format';
 
-const BAR_COLOURS: Readonly<Record<ComparisonRow['id'], string>> = {
+/** One colour per construction, shared by the bars and the load-sweep charts. */
+export const SERIES_COLOURS: Readonly<Record<ComparisonRow['id'], string>> = {
   'as-drawn': '#5b574f',
   silicon: '#b36b2c',
   schottky: '#3f7f8c',
@@ -54,7 +55,7 @@ function renderBarRow(row: ComparisonRow, top: number, x: (v: number) => number)
     parts.push(`<text class="rc-note" x="${LABEL_W + 8}" y="${coord(mid)}" dominant-baseline="middle">not applicable</text>`);
   } else {
     const w = Math.max(2, x(row.rectifierLossW.value) - LABEL_W);
-    parts.push(`<rect class="rc-bar" x="${LABEL_W}" y="${top + 7}" width="${coord(w)}" height="${ROW_H - 14}" fill="${BAR_COLOURS[row.id]}" rx="3"><title>${escapeMarkup(`${row.label}: ${formatSi(row.rectifierLossW.value, 'W')} at ${row.rectifierLossW.corner}`)}</title></rect>`);
+    parts.push(`<rect class="rc-bar" x="${LABEL_W}" y="${top + 7}" width="${coord(w)}" height="${ROW_H - 14}" fill="${SERIES_COLOURS[row.id]}" rx="3"><title>${escapeMarkup(`${row.label}: ${formatSi(row.rectifierLossW.value, 'W')} at ${row.rectifierLossW.corner}`)}</title></rect>`);
     const text = `${formatSi(row.rectifierLossW.value, 'W')} · η ${formatPercent(row.efficiency?.value)}`;
     parts.push(`<text class="rc-value" x="${coord(LABEL_W + w + 6)}" y="${coord(mid)}" dominant-baseline="middle">${escapeMarkup(text)}</text>`);
   }

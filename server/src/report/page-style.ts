@@ -27,4 +27,21 @@ export const PAGE_CSS = `
 .rl-sev-info,.rl-sev-hint{color:#3d5f8a}
 .rl-findings{margin:6px 0 0 18px;padding:0}
 .rl-chart,.rl-compare{max-width:100%;height:auto;display:block;margin:8px 0}
+.rl-review td{text-align:left;font-size:12px}
+.rl-review .rl-verdict{font-weight:600}
+.rl-review-error .rl-verdict,.rl-review-runaway .rl-verdict{color:#a4281b}
+.rl-review-warning .rl-verdict{color:#9a5b00}
+@page{margin:14mm}
+@media print{
+.rl-page{background:#fff;padding:0;font-size:11pt}
+.rl-card,.rl-table,.rl-caution{-webkit-print-color-adjust:exact;print-color-adjust:exact}
+.rl-file + .rl-file,.rl-card,.rl-review-record{break-before:page}
+.rl-table,.rl-chart,.rl-compare,figure,svg{break-inside:avoid}
+.rl-table.rl-review{break-inside:auto}
+.rl-review tr{break-inside:avoid}
+.rl-review thead{display:table-header-group}
+.rl-table{font-size:9pt}
+.rl-netlist{white-space:pre-wrap;overflow:visible}
+h2,h3{break-after:avoid}
+}
 `;

@@ -7,7 +7,9 @@ import type { ViewContent } from '../protocol/custom-protocol';
 import type { FileAnalysis } from '../analysis/analyze';
 import type { RectifierAnalysis } from '../equivalent/index';
 import { memoisedSolver, type SolveFn } from '../solve/index';
-import { compareTopologies } from '../compare/index';
+import { compareEnergy, compareTopologies, operatingProfileOf, sweepLoad, SWEEP_VIEW_BUDGET, type OperatingProfile, type SweepBudget } from '../compare/index';
+import { renderEnergyHtml } from './energy-table';
+import { renderSweepHtml } from './sweep-svg';
 import type { DeratingPolicy } from '../ratings/index';
 import { renderComparisonSvg, renderComparisonTable } from './comparison-svg';
 import { needsCaution, rectifierLabel, renderCautionHtml, renderNotesHtml } from './html-blocks';
@@ -51,17 +53,29 @@ export function renderWaveformView(file: FileAnalysis, rectifierId?: string): Vi
  * the file's policy. `solve` is the adapter's memoised solver; without it the variants are solved afresh.
  */
 export function renderComparisonView(file: FileAnalysis, rectifierId?: string, solve: SolveFn = memoisedSolver(undefined)): ViewContent {
-  return renderView(file, rectifierId, 'Topology comparison', (analysis) => renderComparisonSection(analysis, file.policy, solve));
+  const profile = operatingProfileOf(file.flat.directives);
+  return renderView(file, rectifierId, 'Topology comparison', (analysis) => renderComparisonSection(analysis, file.policy, solve, profile, SWEEP_VIEW_BUDGET));
 }
 
-/** The comparison chart and table of one rectifier under its file's policy, or a line saying why there is none. */
-export function renderComparisonSection(analysis: RectifierAnalysis, policy: DeratingPolicy, solve: SolveFn = memoisedSolver(undefined)): string {
+/**
+ * The comparison chart and table of one rectifier under its file's policy, its cost against
+ * energy and its load sweep, or a line saying why there is none.
+ */
+export function renderComparisonSection(
+  analysis: RectifierAnalysis, policy: DeratingPolicy, solve: SolveFn = memoisedSolver(new Map()), profile?: OperatingProfile,
+  sweepBudget?: SweepBudget,
+): string {
   const comparison = compareTopologies(analysis, policy, solve);
   if (!comparison.applicable) return `<p class="rl-na" data-comparison="not-applicable">No comparison: ${escapeMarkup(comparison.reason ?? '')}.</p>`;
   return [
     '<p class="rl-sub">The same source, filter, load and corners with four bridge constructions; worst corner of each figure shown under it.</p>',
     renderComparisonSvg(comparison),
     renderComparisonTable(comparison),
+    '<h3>Cost against energy</h3>',
+    renderEnergyHtml(compareEnergy(comparison, profile)),
+    '<h3>Across the load range</h3>',
+    '<p class="rl-sub">Each construction with the parts above, solved at the file\'s corners at each load; the worst corner\'s figure at each load.</p>',
+    renderSweepHtml(sweepLoad(analysis, policy, solve, sweepBudget)),
   ].join('\n');
 }
 

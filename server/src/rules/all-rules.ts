@@ -8,6 +8,7 @@ import { bypassedDeviceRule } from './bypassed-device';
 import { capLifeRule } from './cap-life';
 import { capRippleRule } from './cap-ripple';
 import { capVoltageRule } from './cap-voltage';
+import { controllerOvervoltageRule } from './controller-overvoltage';
 import { controllerUndervoltageRule } from './controller-undervoltage';
 import { currentRatingRule } from './current-rating';
 import { duplicateNameRule } from './duplicate-name';
@@ -22,10 +23,11 @@ import { pivMarginRule } from './piv-margin';
 import { shortedSourceRule } from './shorted-source';
 import { surgeRatingRule } from './surge-rating';
 import { thermalRunawayRule } from './thermal-runaway';
+import { unbalancedStringRule } from './unbalanced-string';
 
 export const ALL_RULES: readonly Rule[] = [
   pivMarginRule, currentRatingRule, surgeRatingRule, junctionTempRule, thermalRunawayRule,
-  mosfetVdsRule, capVoltageRule, capRippleRule, capLifeRule, controllerUndervoltageRule, harmonicLimitRule,
+  mosfetVdsRule, capVoltageRule, capRippleRule, capLifeRule, unbalancedStringRule, controllerUndervoltageRule, controllerOvervoltageRule, harmonicLimitRule,
   missingRatingRule, mixedBridgeRule, hazardousVoltageRule, implausibleValueRule, shortedSourceRule,
   bypassedDeviceRule, duplicateNameRule,
 ];

@@ -1,6 +1,6 @@
 /**
  * `cap-voltage` — fires when a filter capacitor's peak voltage at the worst corner (the output
- * maximum, or its share in a doubler: capacitor-view.ts) exceeds the policy's fraction of its
+ * maximum, or its share in a doubler or a series string: capacitor-view.ts) exceeds the policy's fraction of its
  * rated voltage.
  *
  * Why: an electrolytic above its rated voltage heats, vents and fails; margin below the rating
@@ -12,7 +12,7 @@
  */
 import type { Finding } from '../findings/index';
 import type { Rule } from './registry';
-import { capacitorsOf } from './capacitor-view';
+import { capacitorsOf, stringShareText } from './capacitor-view';
 import { raiseCapacitorVoltageFix } from './fixes/raise-cap-voltage';
 import { ratioSeverity } from '../ratings/index';
 import { allowsText, fmt, pct, placeOf } from './rule-context';
@@ -31,10 +31,14 @@ export const capVoltageRule: Rule = {
       findings.push({
         ...placeOf(view.element.origin, view.name), severity, code: 'cap-voltage',
         message: `${view.name}: peak ${fmt(view.peakV.value)} V at ${view.peakV.corner} is ${pct(view.peakV.value / rated.value)} ` +
-          `of its rated ${fmt(rated.value)} V; ${allowsText(cap)}`,
+          `of its rated ${fmt(rated.value)} V; ${allowsText(cap)}${shareSuffix(stringShareText(view))}`,
         ...(fix ? { fixes: [fix] } : {}),
       });
     }
     return findings;
   },
 };
+
+function shareSuffix(text: string | undefined): string {
+  return text ? `. Its share: ${text}` : '';
+}

@@ -56,7 +56,9 @@ const ANALYSIS_HELP: Readonly<Record<string, string>> = {
   'cap-voltage': 'Raise the capacitor voltage class (a quick fix does this).',
   'cap-ripple': 'Use a capacitor with a higher ripple-current rating, or several in parallel.',
   'cap-life': 'Choose a capacitor with a longer or hotter endurance rating, lower ESR, or a cooler place; state endurance= and rth= in its rate line.',
+  'unbalanced-string': 'Put a resistor across each capacitor of the string, sized to carry several times the largest leakage current (common practice).',
   'controller-undervoltage': 'Below its minimum voltage the controller never switches and the bridge runs on body diodes.',
+  'controller-overvoltage': 'Above its maximum supply voltage the controller is overstressed; choose one rated above the crest at high line.',
   'mosfet-vds': 'Choose a MOSFET with a higher VDS rating.',
   'harmonic-limit': 'Add power-factor correction or input inductance, or review the equipment class.',
   'missing-rating': 'Add a *@ rate line for the part (a quick fix inserts a template).',
@@ -74,6 +76,7 @@ const ANALYSIS_HELP: Readonly<Record<string, string>> = {
   'project-config': 'Fix the entry: the keys are the editor settings without their rectilens. prefix; its JSON Schema is project-config.schema.json.',
   'no-rectifier': 'Check the node names of the device cards against the source and the filter; if no device here rectifies, allow the code.',
   'unsolved-rectifier': 'Give the rectifier what the quoted reason lacks (a source voltage and frequency, a filter capacitor or a load resistance).',
+  'unmodelled-inductance': 'Treat the named figures as not checked: verify them another way (a circuit simulation or a bench measurement), or allow the code once they are.',
 };
 
 /** Metadata for a code, with a generic fallback for codes added later. */

@@ -9,7 +9,9 @@ export const FINDING_CODES: Readonly<Record<string, string>> = {
   'cap-voltage': 'filter capacitor voltage against its rated voltage, with derating',
   'cap-ripple': 'filter capacitor ripple current against its rating',
   'cap-life': 'filter capacitor life estimate (10 °C rule, ripple self-heating) against the life the file asks for',
+  'unbalanced-string': 'a capacitor of a series string has no balancing resistor across its stage: leakage, not modelled, sets its DC share',
   'controller-undervoltage': 'the input never reaches the synchronous controller\'s minimum operating voltage',
+  'controller-overvoltage': 'the input crest exceeds the synchronous controller\'s maximum supply voltage',
   'mosfet-vds': 'MOSFET drain-source voltage against its rating, with derating',
   'harmonic-limit': 'mains harmonic currents against IEC 61000-3-2 limits',
   'missing-rating': 'a rectifier part has no rating to check against',
@@ -27,4 +29,5 @@ export const FINDING_CODES: Readonly<Record<string, string>> = {
   'project-config': 'the project configuration (rectilens.json) holds an entry that is not a setting or not a valid value; that entry does not apply',
   'no-rectifier': 'a file with an AC source and diodes or MOSFETs in which no rectifier was recognised: nothing was checked',
   'unsolved-rectifier': 'a recognised rectifier could not be solved at some corner (the solver\'s reason quoted); its parts were not checked there',
+  'unmodelled-inductance': 'an inductance drawn in a rectifier\'s loop could not be modelled (commutation overlap); the figures it shapes were computed without it and not checked against the circuit as drawn',
 };

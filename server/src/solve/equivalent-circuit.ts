@@ -88,6 +88,12 @@ export interface AcSource {
   mainsVrms: number;
   /** Turns ratio secondary/primary (1 without a transformer): source currents are referred back by it. */
   turnsRatio: number;
+  /**
+   * A transformer's magnetising inductance referred to the rectifier side (k²·L2 of the cantilever
+   * model, transformer.ts): its current ∫e·dt/Lm flows in the primary beside the referred load
+   * current, so the mains current is their sum. Absent: no transformer (or an ideal one).
+   */
+  magnetisingLH?: number;
 }
 
 /**
@@ -138,8 +144,30 @@ export interface EquivalentCircuit {
   fixedLoad?: FixedLoad;
   /** Active bridge: the controller's minimum operating voltage. */
   controllerVminV?: number;
+  /** Active bridge: the controller's quiescent draw from the output (its supply), counted as loss. */
+  controllerSupply?: ControllerSupply;
   /** NTC inrush limiters in the source loop, when any is rated with a hot resistance. */
   inrushLimiter?: InrushLimiter;
+  /** A choke in the DC path between the rectifier and its filter capacitor (bridges only). */
+  choke?: DcChoke;
+}
+
+/** A series inductor between a bridge's output and its filter capacitor, with its winding resistance. */
+export interface DcChoke {
+  names: string[];
+  lH: number;
+  rOhm: number;
+}
+
+/**
+ * A controller's quiescent current as a straight line in its supply voltage, Iq(v) = iA + v/ohm
+ * (the line through two rated points, or a constant). It is drawn from the output like a fixed
+ * load, so its power, i0·v̄ + v_rms²/R over a period, is the controller's loss, not output.
+ */
+export interface ControllerSupply {
+  iA: number;
+  /** Absent: a constant current. */
+  ohm?: number;
 }
 
 /** Parts always across the output beside the load: a resistance (parallel resistors merged) and a drawn current. */

@@ -25,7 +25,7 @@ export function holdsNonFinite(value: unknown): boolean {
 
 // Required fields (name, lineScale, lineVrms, ambientC, counters) come from the inputs and stay.
 const OPTIONAL_KEYS = [
-  'vOutAvgV', 'vOutRmsV', 'vOutMinV', 'vOutMaxV', 'rippleVpp', 'capRippleIrmsA', 'capacitorIrmsA', 'outputPowerW', 'rectifierLossW',
+  'vOutAvgV', 'vOutRmsV', 'vOutMinV', 'vOutMaxV', 'rippleVpp', 'capRippleIrmsA', 'capacitorIrmsA', 'outputPowerW', 'rectifierLossW', 'controllerLossW',
   'inputPowerW', 'efficiency', 'sourceIrmsA', 'powerFactor', 'displacementPowerFactor', 'thd', 'harmonicsA', 'iecClassA', 'iecClassD',
   'inrushPeakA', 'inrushI2tA2s', 'holdUpS', 'waveform', 'inrushWaveform',
 ];

@@ -23,3 +23,4 @@ export type { Waveform } from './waveform';
 export { NON_FINITE_NOTE } from './finite-figures';
 export { deviceFiguresOf, type DeviceAtCorner, type DeviceFigures, type SurgeStress } from './device-figures';
 export { memoisedSolver, type SolutionCache, type SolveFn } from './solver-memo';
+export { UNMODELLED_INDUCTANCE_NOTES } from './network';

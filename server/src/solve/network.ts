@@ -6,7 +6,7 @@
  * source's return and conduct through one device. In every topology at most one path conducts
  * at a time while a capacitor holds the output above zero, which keeps each implicit step scalar.
  */
-import type { EquivalentCircuit, FixedLoad, Load, RectifierDevice } from './equivalent-circuit';
+import type { ControllerSupply, EquivalentCircuit, FixedLoad, Load, RectifierDevice } from './equivalent-circuit';
 import { scaleDiodeToTemp } from './diode-model';
 import { DEFAULT_CONTROLLER_VMIN_V, DEFAULT_GATE_ON_V, rdsOnOhm, type ConductingDevice } from './mosfet-model';
 import { buildGates, type GateRule } from './gates';
@@ -81,6 +81,20 @@ export interface Network {
   /** Number of capacitor states (ports that are not bare). */
   nCap: number;
   hasL: boolean;
+  /**
+   * The inductance is a DC choke shared by every path (no line inductance): its current passes
+   * from one path to the next without falling to zero (continuous conduction), the bridge
+   * commutating instantly. Otherwise a path's inductor current must reach zero before another
+   * path conducts (at most one path at a time).
+   */
+  sharedL: boolean;
+  /**
+   * A transformer's magnetising current in the mains-referred source current (before the turns
+   * ratio): i = magA·sin ωt + magB·cos ωt, the integral of line a's EMF over the referred
+   * magnetising inductance. Zero without a transformer.
+   */
+  magA: number;
+  magB: number;
   /** States: capacitor voltages, then the path inductor current when hasL. */
   n: number;
   floatingRails: boolean;
@@ -177,12 +191,12 @@ export function buildNetwork(
   const ports = buildPorts(c, problems);
   if (!ports) return undefined;
   const lay = layoutFor(c, vm, ports.length);
-  if (c.kind === 'three-phase-bridge' && c.source.seriesLH > 0) {
-    problems.push('three-phase bridge: series inductance not modelled (commutation overlap); solved with L = 0');
-  }
+  if (c.kind === 'three-phase-bridge' && c.source.seriesLH > 0) problems.push(THREE_PHASE_LINE_L_NOTE);
+  const choke = chokeOf(c, problems);
   const devices = placeDevices(c, lay, tjC, problems);
   if (!devices) return undefined;
   const paths = buildPaths(lay, devices, ports.length);
+  for (const p of paths) { p.lH += choke.lH; p.rOhm += choke.rOhm; }
   if (paths.length === 0) return fail(problems, 'no conduction path: device roles do not fit the topology');
   const omega = 2 * Math.PI * freqHz;
   const vmin = c.controllerVminV ?? opts.controllerVminV ?? DEFAULT_CONTROLLER_VMIN_V;
@@ -190,12 +204,51 @@ export function buildNetwork(
   const hasL = paths.some((p) => p.lH > 0);
   const nCap = ports.filter((p) => !p.bare).length;
   const vScaleV = Math.max(...paths.map((p) => Math.hypot(p.a, p.b)));
+  const sharedL = choke.lH > 0 && lay.lines.every((l) => l.lH === 0);
+  // ∫(a·sin ωt + b·cos ωt)dt / Lm = (b·sin ωt − a·cos ωt)/(ω·Lm), line a's EMF (the primary's, referred).
+  const lm = c.source.magnetisingLH;
+  const l0 = lay.lines[0]!;
+  const magA = lm !== undefined && lm > 0 ? l0.b / (omega * lm) : 0;
+  const magB = lm !== undefined && lm > 0 ? -l0.a / (omega * lm) : 0;
   return {
-    omega, periodS: 1 / freqHz, vScaleV, lines: lay.lines, paths, ports, nCap, hasL, n: nCap + (hasL ? 1 : 0),
+    omega, periodS: 1 / freqHz, vScaleV, lines: lay.lines, paths, ports, nCap, hasL, sharedL, magA, magB, n: nCap + (hasL ? 1 : 0),
     floatingRails: lay.floating, railPlus: lay.railPlus, railMinus: lay.railMinus, devices,
-    load: buildLoad(c.load, c.fixedLoad, vScaleV), breakpointsS: gates, crestsS: crestTimes(paths, omega), phases: c.kind === 'three-phase-bridge' ? 3 : 1,
+    load: buildLoad(c.load, withControllerSupply(c.fixedLoad, c.controllerSupply), vScaleV), breakpointsS: gates, crestsS: crestTimes(paths, omega), phases: c.kind === 'three-phase-bridge' ? 3 : 1,
     lineVrms: c.source.vrms * lineScale,
   };
+}
+
+/**
+ * Said when a three-phase bridge has line inductance: during commutation three devices conduct
+ * at once, which the one-path-at-a-time network cannot hold, so the corner is solved with L = 0.
+ * The analysis turns this note into a finding naming what it leaves unchecked.
+ */
+export const THREE_PHASE_LINE_L_NOTE = 'three-phase bridge: line inductance not modelled (commutation overlap, three devices conducting at once); solved with L = 0';
+
+/**
+ * Said when a bridge has both line inductance and a DC choke: in continuous conduction the
+ * bridge then commutates with an overlap (all its devices conducting for a while), which the
+ * network cannot hold; the line inductance must reach zero current before the next pair conducts.
+ */
+export const CHOKE_AND_LINE_L_NOTE = 'bridge with both line inductance and a DC choke: commutation overlap not modelled; the choke current must fall to zero before the next pair conducts';
+
+/** Said when a doubler has a DC choke: its two capacitors have no single DC path for it. */
+export const DOUBLER_CHOKE_NOTE = 'doubler: a DC choke is not modelled for this topology; solved without it';
+
+/** Every note saying an inductance drawn in the loop was left out of (or simplified in) the solve. */
+export const UNMODELLED_INDUCTANCE_NOTES: readonly string[] = [THREE_PHASE_LINE_L_NOTE, CHOKE_AND_LINE_L_NOTE, DOUBLER_CHOKE_NOTE];
+
+/** The DC choke in every path's loop (zero when none); the kinds that have no DC path of their own say so. */
+function chokeOf(c: EquivalentCircuit, problems: string[]): { lH: number; rOhm: number } {
+  const ch = c.choke;
+  if (!ch || !(ch.lH > 0)) return { lH: 0, rOhm: 0 };
+  if (c.kind === 'doubler') {
+    problems.push(DOUBLER_CHOKE_NOTE);
+    return { lH: 0, rOhm: 0 };
+  }
+  // One path (half-wave) never commutates; the three-phase bridge says so through its own note.
+  if (c.source.seriesLH > 0 && c.kind !== 'three-phase-bridge' && c.kind !== 'half-wave') problems.push(CHOKE_AND_LINE_L_NOTE);
+  return { lH: ch.lH, rOhm: Math.max(ch.rOhm, 0) };
 }
 
 function fail(problems: string[], why: string): undefined {
@@ -299,6 +352,13 @@ function crestTimes(paths: NetPath[], omega: number): number[] {
 
 function range(n: number): number[] {
   return Array.from({ length: n }, (_, i) => i);
+}
+
+/** The controller's quiescent draw joins the fixed load: a current and a conductance across the output. */
+function withControllerSupply(fixed: FixedLoad | undefined, supply: ControllerSupply | undefined): FixedLoad | undefined {
+  if (!supply) return fixed;
+  const g = (fixed?.ohm !== undefined && fixed.ohm > 0 ? 1 / fixed.ohm : 0) + (supply.ohm !== undefined && supply.ohm > 0 ? 1 / supply.ohm : 0);
+  return { ...(g > 0 ? { ohm: 1 / g } : {}), a: (fixed?.a ?? 0) + Math.max(supply.iA, 0) };
 }
 
 function buildLoad(load: Load, fixed: FixedLoad | undefined, vScaleV: number): LoadModel {

@@ -58,7 +58,12 @@ export class PeriodRecord {
   /** Source (mains-referred, before the turns ratio) current at point k. */
   sourceCurrentA(k: number): number {
     const m = this.mode[k]!;
-    return m >= 0 ? this.net.paths[m]!.srcSign * this.iA[k]! : 0;
+    const own = m >= 0 ? this.net.paths[m]!.srcSign * this.iA[k]! : 0;
+    const { magA, magB, omega } = this.net;
+    if (magA === 0 && magB === 0) return own;
+    // A transformer's magnetising current flows in the primary whether or not a path conducts.
+    const wt = omega * this.t[k]!;
+    return own + magA * Math.sin(wt) + magB * Math.cos(wt);
   }
 
   /** Reference line EMF (line a) at time t. */

@@ -49,7 +49,9 @@ export interface CornerSolution {
   /** RMS current of each filter capacitor, in the circuit's order. */
   capacitorIrmsA?: number[];
   outputPowerW?: number;
+  /** Devices plus the controller's quiescent loss (`controllerLossW`, active bridges with a rated `iq`). */
   rectifierLossW?: number;
+  controllerLossW?: number;
   inputPowerW?: number;
   /** Output power over output power plus rectifier loss. */
   efficiency?: number;

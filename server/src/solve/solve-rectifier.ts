@@ -77,8 +77,11 @@ export function solveCorner(nominal: EquivalentCircuit, corner: Corner, options:
 function addOutputFigures(s: CornerSolution, f: PeriodFigures, net: Network, c: EquivalentCircuit, notes: string[]): void {
   s.vOutAvgV = f.vOutAvgV; s.vOutRmsV = f.vOutRmsV; s.vOutMinV = f.vOutMinV; s.vOutMaxV = f.vOutMaxV; s.rippleVpp = f.rippleVpp;
   if (f.capacitorIrmsA.length > 0) { s.capacitorIrmsA = f.capacitorIrmsA; s.capRippleIrmsA = Math.max(...f.capacitorIrmsA); }
-  s.outputPowerW = f.outputPowerW; s.rectifierLossW = f.rectifierLossW;
-  if (f.outputPowerW > 0) s.efficiency = f.outputPowerW / (f.outputPowerW + f.rectifierLossW);
+  // The controller's quiescent draw is part of the load the network sees; its power is loss.
+  const controllerW = controllerLossW(c, f);
+  if (controllerW !== undefined) s.controllerLossW = controllerW;
+  s.outputPowerW = f.outputPowerW - (controllerW ?? 0); s.rectifierLossW = f.rectifierLossW + (controllerW ?? 0);
+  if (s.outputPowerW > 0) s.efficiency = s.outputPowerW / (s.outputPowerW + s.rectifierLossW);
   else notes.push('efficiency not defined: no output power');
   const load = c.load;
   if (load.kind === 'power' && load.vminV !== undefined && load.w > 0) {
@@ -87,6 +90,13 @@ function addOutputFigures(s: CornerSolution, f: PeriodFigures, net: Network, c: 
     else s.holdUpS = f.vOutMinV > load.vminV ? holdUpS(cOut, f.vOutMinV, load.vminV, load.w, c.fixedLoad) : 0;
     if (s.holdUpS === 0) notes.push('output already falls below the load vmin in steady state: hold-up 0');
   }
+}
+
+/** Average power of Iq(v) = i0 + v/R over the period: i0·v̄ + v_rms²/R (exact for the recorded output). */
+function controllerLossW(c: EquivalentCircuit, f: PeriodFigures): number | undefined {
+  const q = c.controllerSupply;
+  if (!q) return undefined;
+  return Math.max(q.iA, 0) * f.vOutAvgV + (q.ohm !== undefined && q.ohm > 0 ? f.vOutRmsV ** 2 / q.ohm : 0);
 }
 
 /** Simpson intervals for the hold-up integral with a fixed load beside the power load (error far below 1e-6 for these smooth integrands). */

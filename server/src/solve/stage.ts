@@ -82,8 +82,11 @@ export class StageSolver {
     let bestDrive = -Infinity;
     for (let p = 0; p < net.paths.length; p++) {
       const path = net.paths[p]!;
-      if (net.hasL && modeIn >= 0 && rL > 0 && p !== modeIn) continue; // inductor current must reach zero first
-      let drive = path.a * sn + path.b * cs + (p === modeIn && path.lH > 0 ? (path.lH / dh) * rL : 0);
+      // A line inductor's current must reach zero before another path conducts; a shared DC
+      // choke's current passes to whichever path the EMFs favour.
+      const carries = p === modeIn || net.sharedL;
+      if (net.hasL && modeIn >= 0 && rL > 0 && !carries) continue;
+      let drive = path.a * sn + path.b * cs + (carries && path.lH > 0 ? (path.lH / dh) * rL : 0);
       for (let j = 0; j < np; j++) drive -= path.s[j]! * (this.rp[j]! - this.k[j]! * ports[j]!.l * g0);
       if (drive > bestDrive) { bestDrive = drive; best = p; }
     }
@@ -91,7 +94,7 @@ export class StageSolver {
     let i = 0;
     let D = 1;
     if (best >= 0 && bestDrive > 0) {
-      i = this.solvePath(best, dh, A, K, bestDrive, sn, cs, modeIn === best ? rL : 0);
+      i = this.solvePath(best, dh, A, K, bestDrive, sn, cs, modeIn === best || net.sharedL ? rL : 0);
       D = this.dG;
     } else {
       best = -1;

@@ -1,5 +1,5 @@
 /**
- * controller-undervoltage and mosfet-vds as annotated fixtures, on our active bridge on a 6 V rms
+ * controller-undervoltage, controller-overvoltage and mosfet-vds as annotated fixtures, on our active bridge on a 6 V rms
  * (8.5 V crest) winding (tests/rules/fixtures.ts) written out whole. Low-line crest 8.5·0.9 =
  * 7.65 V (D, the default ±10 % line); the blocking voltage is about the high-line crest
  * 8.5·1.1 = 9.35 V (D), the solver gives 9.34 V (tests/rules/other-rules.test.ts).
@@ -41,5 +41,19 @@ describe('controller-undervoltage and mosfet-vds', () => {
 
   it('both are silent just inside (7.65 V ≥ vmin 7.6 V; 9.34 V ≤ 0.8 × 11.7 V = 9.36 V)', () => {
     expectAnnotated(withoutAnnotations(fixture).replace('vmin=9V', 'vmin=7.6V').replace('vds=11V', 'vds=11.7V'), ['controller-undervoltage', 'mosfet-vds']);
+  });
+});
+
+describe('controller-overvoltage', () => {
+  it('is an error when the high-line crest exceeds the controller\'s vmax (8.5·1.1 = 9.35 V > 9 V, D)', () => {
+    const text = withoutAnnotations(fixture).replace('vmin=9V', 'vmin=7.6V vmax=9V').replace('vds=11V', 'vds=11.7V')
+      .replace('XC ac1 ac2 g1 g2 g3 g4 SYNCDRV', `XC ac1 ac2 g1 g2 g3 g4 SYNCDRV
+*^ error controller-overvoltage: input crest 9.35 V at high-line nominal exceeds the controller XC's rated vmax 9 V`);
+    expectAnnotated(text, 'controller-overvoltage');
+  });
+
+  it('is silent when vmax holds the crest (9.35 V ≤ 9.4 V), and when no vmax is rated', () => {
+    expectAnnotated(withoutAnnotations(fixture).replace('vmin=9V', 'vmin=7.6V vmax=9.4V'), 'controller-overvoltage');
+    expectAnnotated(withoutAnnotations(fixture), 'controller-overvoltage');
   });
 });

@@ -33,6 +33,9 @@ export function capacitorBankFix(
   const netlist = files.get(view.element.origin.uri);
   const card = cardAt(netlist, view.element.origin.span);
   if (!rated || rated.origin.kind !== 'rate-directive' || !cF || !netlist || card?.kind !== 'passive' || !card.value || !view.irmsA) return undefined;
+  // In a series string every stage carries the whole current: banking one part would unbalance
+  // the string's shares, so no single-part bank is offered there.
+  if (view.stringShare) return undefined;
   const start = Math.max(2, Math.ceil(view.irmsA.value / (allowedFraction * rated.value)));
   for (let n = start; n <= MAX_PARTS; n++) {
     const perPartA = rippleShareWithBank(view.analysis, view.group, cF, n, solve);
