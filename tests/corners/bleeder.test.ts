@@ -7,6 +7,7 @@ import { describe, expect, it } from 'vitest';
 import { analyseText } from '../rules/check';
 import { bisect } from '../solve/fixtures';
 import { loadOdex, type OdexSolver } from '../solve/odex-loader';
+import { periodicOrbit } from './fixtures';
 
 // Our own scenario: a 12 V transformer secondary (drawn as its EMF), 0.5 Ω winding, a bridge,
 // 2200 µF, an 8 W converter and a 4k7 bleeder across the capacitor. The nominal ambient is the
@@ -39,21 +40,8 @@ function bruteForce(Solver: new (n: number) => OdexSolver, k: { vm: number; f: n
     return e <= v ? 0 : bisect((i) => k.rs * i + 2 * vDiode(i) + v - e, 0, (e - v) / k.rs, 80);
   };
   const rhs = (t: number, y: number[]) => [(current(t, y[0]!) - k.pW / y[0]! - y[0]! / k.rOhm) / k.c];
-  const s = new Solver(1);
-  s.absoluteTolerance = 1e-10;
-  s.relativeTolerance = 1e-10;
-  s.maxSteps = 1e6;
-  let v0 = 0.9 * k.vm; // a constant-power load needs a charged capacitor to start from
-  let t0 = 0;
-  for (let p = 0; p < 400; p++) {
-    const v1 = s.solve(rhs, t0, [v0], t0 + T).y[0]!;
-    t0 += T;
-    const done = Math.abs(v1 - v0) <= 1e-9 * k.vm;
-    v0 = v1;
-    if (done) break;
-  }
+  const { solver: s, t0, v0 } = periodicOrbit(Solver, rhs, k.vm, T);
   const samples: number[] = [];
-  s.denseOutput = true;
   s.solve(rhs, t0, [v0], t0 + T, s.grid(T / 40000, (t, y) => { samples.push(Math.sin(w * t) > 0 ? current(t, y[0]!) : 0); }));
   samples.pop();
   const mean = (f: (i: number) => number) => samples.reduce((a, i) => a + f(i), 0) / samples.length;

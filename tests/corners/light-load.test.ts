@@ -5,6 +5,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import { analyseText, findingsOf } from '../rules/check';
+import { offlineBridge } from './fixtures';
 
 /** Boltzmann constant over the elementary charge (SI-exact since 2019), for the hand formula's diode law. */
 const K_OVER_Q = 1.380649e-23 / 1.602176634e-19;
@@ -21,21 +22,8 @@ function diodeDropV(iA: number, tC: number, p = { isA: 5e-9, n: 1.8, eg: 1.11, x
 }
 
 // Our own scenario: a 230 V offline bridge feeding a 12 W converter that idles at 0.2 W.
-const offline = (load: string) => `230 V bridge, standby and full load (scenario of our own)
-*@ mains 230V 50Hz tol=-10%,+10%
-*@ load ${load}
-VAC L N SIN(0 325 50)
-RS L A 4.7
-D1 A P DR
-D2 N P DR
-D3 0 A DR
-D4 0 N DR
-C1 P 0 22u
-*@ rate C1 vrated=400V
-*@ rate DR vrrm=600V
-.model DR D(IS=5n N=1.8)
-.end
-`;
+const offline = (load: string) => offlineBridge('230 V bridge, standby and full load (scenario of our own)',
+  `*@ mains 230V 50Hz tol=-10%,+10%\n*@ load ${load}`, 'C1 P 0 22u', '*@ rate C1 vrated=400V\n*@ rate DR vrrm=600V');
 
 describe('light-load corner', () => {
   it('reports the worst capacitor voltage at light load within 1 % of √2·Vrms·(1 + tol) minus two diode drops', () => {

@@ -8,6 +8,7 @@ import { analyseText } from '../rules/check';
 import { parseDirective } from '../../grammar/src/directives';
 import { bisect } from '../solve/fixtures';
 import { loadOdex, type OdexSolver } from '../solve/odex-loader';
+import { offlineBridge, periodicOrbit } from './fixtures';
 import { DEFAULT_ESR_LIFE_FACTOR } from '../../server/src/equivalent/part-spreads';
 
 const D = { isA: 5e-9, n: 1.8 };
@@ -16,21 +17,8 @@ const vDiode = (i: number) => D.n * VT_27C * Math.log1p(i / D.isA); // SPICE dio
 
 // Our own scenario: a 230 V bridge, 4.7 Ω, 100 µF ±20 %, a 30 W converter working down to 200 V;
 // the nominal ambient is the diodes' TNOM (27 °C), so IS is the card's at the nominal corners.
-const bridge = (cap: string, rate: string) => `230 V bridge with a toleranced capacitor (scenario of our own)
-*@ mains 230V 50Hz tol=-10%,+10%
-*@ load 30W vmin=200V
-*@ ambient 27C..50C
-VAC L N SIN(0 325 50)
-RS L A 4.7
-D1 A P DR
-D2 N P DR
-D3 0 A DR
-D4 0 N DR
-${cap}
-${rate}
-.model DR D(IS=5n N=1.8)
-.end
-`;
+const bridge = (cap: string, rate: string) => offlineBridge('230 V bridge with a toleranced capacitor (scenario of our own)',
+  '*@ mains 230V 50Hz tol=-10%,+10%\n*@ load 30W vmin=200V\n*@ ambient 27C..50C', cap, rate);
 
 /** Brute force: C·dv/dt = i(e, v) − P/v, i from |e| = Rs·i + 2·Vd(i) + v, to steady state; ripple and minimum. */
 function bruteForce(Solver: new (n: number) => OdexSolver, k: { vm: number; f: number; rs: number; c: number; pW: number }) {
@@ -41,21 +29,8 @@ function bruteForce(Solver: new (n: number) => OdexSolver, k: { vm: number; f: n
     return e <= v ? 0 : bisect((i) => k.rs * i + 2 * vDiode(i) + v - e, 0, (e - v) / k.rs, 80);
   };
   const rhs = (t: number, y: number[]) => [(current(t, y[0]!) - k.pW / y[0]!) / k.c];
-  const s = new Solver(1);
-  s.absoluteTolerance = 1e-10;
-  s.relativeTolerance = 1e-10;
-  s.maxSteps = 1e6;
-  let v0 = 0.9 * k.vm;
-  let t0 = 0;
-  for (let p = 0; p < 400; p++) {
-    const v1 = s.solve(rhs, t0, [v0], t0 + T).y[0]!;
-    t0 += T;
-    const done = Math.abs(v1 - v0) <= 1e-9 * k.vm;
-    v0 = v1;
-    if (done) break;
-  }
+  const { solver: s, t0, v0 } = periodicOrbit(Solver, rhs, k.vm, T);
   const vs: number[] = [];
-  s.denseOutput = true;
   s.solve(rhs, t0, [v0], t0 + T, s.grid(T / 40000, (_t, y) => { vs.push(y[0]!); }));
   return { rippleVpp: Math.max(...vs) - Math.min(...vs), vMinV: Math.min(...vs) };
 }

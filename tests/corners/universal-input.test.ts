@@ -4,24 +4,13 @@
  */
 import { describe, expect, it } from 'vitest';
 import { analyseText } from '../rules/check';
+import { offlineBridge } from './fixtures';
 import { parseDirective } from '../../grammar/src/directives';
 
 // Our own scenario: a universal-input adapter front end, bridge straight off the line, 47 µF
 // with a ±20 % tolerance, a 20 W converter that works down to 80 V.
-const adapter = (mains: string) => `universal-input front end (scenario of our own)
-*@ mains ${mains}
-*@ load 20W vmin=80V
-VAC L N SIN(0 325 50)
-RS L A 4.7
-D1 A P DR
-D2 N P DR
-D3 0 A DR
-D4 0 N DR
-C1 P 0 47u
-*@ rate C1 tol=-20%,+20%
-.model DR D(IS=5n N=1.8)
-.end
-`;
+const adapter = (mains: string) => offlineBridge('universal-input front end (scenario of our own)',
+  `*@ mains ${mains}\n*@ load 20W vmin=80V`, 'C1 P 0 47u', '*@ rate C1 tol=-20%,+20%');
 
 describe('universal input', () => {
   it('reads a voltage range and several frequencies', () => {

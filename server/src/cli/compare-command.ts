@@ -1,7 +1,7 @@
 /** `rectilens compare <file> [--format text|json]`: the topology comparison of every bridge in a file. */
 import { escapeControlChars } from '../../../grammar/src/index';
 import { memoisedSolver } from '../solve/index';
-import { compareEnergy, compareTopologies, operatingProfileOf, sweepLoad, type ComparisonRow, type TopologyComparison } from '../compare/index';
+import { compareEnergy, compareTopologies, operatingProfileOf, sweepLoad, verdictSummary, type ComparisonRow, type TopologyComparison } from '../compare/index';
 import { energyText, sweepJson, sweepText } from './sweep-text';
 import { formatCelsius, formatFixed, formatPercent, formatSi } from '../presentation/format';
 import { rectifierLabel } from '../report/html-blocks';
@@ -67,7 +67,7 @@ function rowCells(r: ComparisonRow, hasCost: boolean): string[] {
   const at = (text: string, corner?: string) => (corner ? `${text} @${shortCornerName(corner)}` : text);
   return [
     r.label,
-    verdictWords(r),
+    r.verdict ? verdictSummary(r.verdict) : '',
     at(formatPercent(r.efficiency?.value), r.efficiency?.corner),
     at(formatSi(r.rectifierLossW?.value, 'W'), r.rectifierLossW?.corner),
     r.thermalRunaway ? 'runaway' : at(formatCelsius(r.hottestTjC?.value), r.hottestTjC?.corner),
@@ -77,11 +77,3 @@ function rowCells(r: ComparisonRow, hasCost: boolean): string[] {
   ];
 }
 
-/** A row's verdict in a few words: passes, the rules it fails, or that its parts are not rated. */
-export function verdictWords(r: ComparisonRow): string {
-  const v = r.verdict;
-  if (!v) return '';
-  if (v.status === 'pass') return 'passes';
-  if (v.status === 'fail') return `fails ${[...new Set(v.failures.map((f) => f.code))].join(', ')}`;
-  return 'parts not rated';
-}

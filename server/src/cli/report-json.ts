@@ -1,6 +1,7 @@
 /** The JSON report of `check --format json` (DESIGN.md §8): stable names, SI units in the names, 1-based lines. */
 import type { Snapshot } from '../analysis/analyze';
 import type { Finding } from '../findings/index';
+import { findingsByFile, findingsOfFile } from '../analysis/findings-by-file';
 import { LineIndex } from '../../../grammar/src/index';
 import type { CapacitorStress, RectifierAnalysis } from '../equivalent/index';
 import type { DeviceSolution, Load, PartVertex } from '../solve/index';
@@ -133,15 +134,22 @@ export function toJsonReport(snapshot: Snapshot, options: JsonReportOptions = {}
   };
   const toJson = (f: Finding) => toJsonDiagnostic(f, linesOf, options.withFixes ?? false);
   const roots = [...snapshot.files.values()];
-  // A root that another root includes is reported as that root reads it (an include has no title
-  // line), as the editor shows it; its own reading as a root would report its first card as a title.
-  const included = new Set(roots.flatMap((file) => [...file.parsed.keys()].filter((uri) => uri !== file.uri)));
+  const byFile = new Map<string, Map<string, Finding[]>>();
+  for (const root of roots) {
+    for (const [uri, list] of findingsByFile(root)) {
+      if (!byFile.has(uri)) byFile.set(uri, new Map());
+      byFile.get(uri)!.set(root.uri, list);
+    }
+  }
+  const shown = (uri: string) => findingsOfFile(uri, byFile.get(uri) ?? new Map());
   const files: JsonFile[] = roots.map((file) => ({
-    path: file.uri, rectifiers: file.rectifiers.map((r) => toJsonRectifier(r, linesOf(file.uri))),
-    diagnostics: included.has(file.uri) ? [] : file.findings.filter((f) => f.uri === file.uri).map(toJson),
+    path: file.uri, rectifiers: file.rectifiers.map((r) => toJsonRectifier(r, linesOf(file.uri))), diagnostics: shown(file.uri).map(toJson),
   }));
   const elsewhere = new Map<string, Finding[]>();
-  for (const file of roots) for (const f of file.findings) if (f.uri !== file.uri) elsewhere.set(f.uri, [...(elsewhere.get(f.uri) ?? []), f]);
+  for (const uri of byFile.keys()) {
+    const list = snapshot.files.has(uri) ? [] : shown(uri);
+    if (list.length) elsewhere.set(uri, list);
+  }
   for (const extra of options.extra ?? []) elsewhere.set(extra.path, [...(elsewhere.get(extra.path) ?? []), ...extra.findings]);
   for (const [path, findings] of elsewhere) {
     let entry = files.find((f) => f.path === path);

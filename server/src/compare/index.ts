@@ -3,7 +3,7 @@
  * circuit, solved through the caller's (memoised) solver and picked under the file's own policy.
  * The renderers live with the other views (report/comparison-svg.ts, view-content.ts).
  */
-export type { RowVerdict, RowFailure } from './row-verdict';
+export { verdictSummary, type RowVerdict, type RowFailure } from './row-verdict';
 export { compareTopologies, type ComparisonRow, type TopologyComparison, type VariantId } from './compare-topologies';
 export { ASSUMED_RDSON_BY_VOLTAGE, ASSUMED_RTHJA_K_PER_W, planVariants, type VariantBasis, type VariantPlan } from './variants';
 export { isComparable, variantBasisOf } from './compare-topologies';

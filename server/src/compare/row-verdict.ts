@@ -86,3 +86,10 @@ function needs(device: JudgedDevice, policy: DeratingPolicy): string {
   ).filter((p): p is string => p !== undefined);
   return parts.join(', ') || 'ratings for the stresses it sees';
 }
+
+/** A verdict in a few words, for a table cell: passes, the rules it fails, or that its parts are not rated. */
+export function verdictSummary(v: RowVerdict): string {
+  if (v.status === 'pass') return 'passes';
+  if (v.status === 'fail') return `fails ${[...new Set(v.failures.map((f) => f.code))].join(', ')}`;
+  return 'parts not rated';
+}

@@ -1,4 +1,4 @@
-/** Outline, folding, definition, references, rename and completion: the features that read the netlist's names. */
+/** Outline, folding, definition, references, rename, links and completion: the features that read the netlist's names (those that answer about a place wait for the current version). */
 import { CompletionItemKind, ErrorCodes, ResponseError } from 'vscode-languageserver/node';
 import { completeAt, modelsOf } from '../editor/completion';
 import { allowedCodesOf, findDefinition, findReferences, includeLinksOf, prepareRename, rename } from '../editor/navigation';
@@ -29,28 +29,28 @@ export function registerNavigationFeatures(state: ServerState, guard: Guard): vo
     if (!place) return [];
     return foldingRangesOf(place.file.netlist).map((f) => toFoldingRange(place.lines, f)).filter((f) => f.endLine > f.startLine);
   }));
-  connection.onDefinition(guard([], (params) => {
-    const place = state.placeIn(params.textDocument.uri, params.position);
+  connection.onDefinition(guard([], async (params) => {
+    const place = await state.freshPlaceIn(params.textDocument.uri, params.position);
     return place ? findDefinition(state.fileSet(place.file.uri), place.offset).flatMap((l) => locationOf(l.uri, l.span)) : [];
   }));
-  connection.onReferences(guard([], (params) => {
-    const place = state.placeIn(params.textDocument.uri, params.position);
+  connection.onReferences(guard([], async (params) => {
+    const place = await state.freshPlaceIn(params.textDocument.uri, params.position);
     if (!place) return [];
     return findReferences(state.fileSet(place.file.uri), place.offset, params.context.includeDeclaration).flatMap((l) => locationOf(l.uri, l.span));
   }));
-  connection.onPrepareRename(guard(null, (params) => {
-    const place = state.placeIn(params.textDocument.uri, params.position);
+  connection.onPrepareRename(guard(null, async (params) => {
+    const place = await state.freshPlaceIn(params.textDocument.uri, params.position);
     const span = place && prepareRename(state.fileSet(place.file.uri), place.offset);
     return span ? toRange(place.lines, span) : null;
   }));
-  connection.onRenameRequest(guard(null, (params) => {
-    const place = state.placeIn(params.textDocument.uri, params.position);
+  connection.onRenameRequest(guard(null, async (params) => {
+    const place = await state.freshPlaceIn(params.textDocument.uri, params.position);
     if (!place) return null;
     const edits = rename(state.fileSet(place.file.uri), place.offset, params.newName);
     return 'error' in edits ? new ResponseError(ErrorCodes.InvalidRequest, edits.error) : toWorkspaceEdit(edits, state.linesOf);
   }));
-  connection.onDocumentLinks(guard([], (params) => {
-    const place = state.placeIn(params.textDocument.uri);
+  connection.onDocumentLinks(guard([], async (params) => {
+    const place = await state.freshPlaceIn(params.textDocument.uri);
     if (!place) return [];
     const includes = includeLinksOf(place.file.uri, place.file.netlist);
     // Each code an `*@ allow` line names links to the page of the rule it accepts.

@@ -8,7 +8,8 @@ import { TextDocuments, type Connection } from 'vscode-languageserver/node';
 import { TextDocument } from 'vscode-languageserver-textdocument';
 import { parseNetlist, type Netlist } from '../../../grammar/src/index';
 import type { FileAnalysis } from '../analysis/analyze';
-import { withoutRepeats, type Finding } from '../findings/index';
+import type { Finding } from '../findings/index';
+import { findingsByFile, findingsOfFile } from '../analysis/findings-by-file';
 import { LineIndex, lineIndexOf } from '../../../grammar/src/index';
 import { DEFAULT_SETTINGS, type AnalysisSettings } from '../analysis/settings';
 import type { FileText } from '../circuit/index';
@@ -161,13 +162,11 @@ export class ServerState {
   private publish(file: FileAnalysis, version: number | undefined): void {
     const touched = this.dropContributions(file.uri);
     touched.add(file.uri);
-    const byUri = new Map<string, Finding[]>();
-    for (const f of file.findings) byUri.set(f.uri, [...(byUri.get(f.uri) ?? []), f]);
-    for (const [uri, list] of byUri) {
+    for (const [uri, list] of findingsByFile(file)) {
       let roots = this.findingsByFile.get(uri);
       if (!roots) this.findingsByFile.set(uri, (roots = new Map()));
       roots.set(file.uri, list);
-      touched.add(uri);
+      if (list.length) touched.add(uri);
     }
     for (const uri of touched) this.publishFile(uri, uri === file.uri ? version : undefined);
     // An editor that asked for hints or lenses before this analysis asks again.
@@ -196,9 +195,7 @@ export class ServerState {
    * which reads the first line as a title, is left out then.
    */
   private publishFile(uri: string, version: number | undefined): void {
-    const roots = this.findingsByFile.get(uri) ?? new Map<string, Finding[]>();
-    const included = [...roots.keys()].some((root) => root !== uri);
-    const findings = withoutRepeats([...roots].filter(([root]) => !included || root !== uri).flatMap(([, list]) => list));
+    const findings = findingsOfFile(uri, this.findingsByFile.get(uri) ?? new Map());
     const lines = findings.length ? this.linesOf(uri) : undefined;
     if (findings.length && !lines) return;
     const diagnostics = lines ? findings.map((f) => toDiagnostic(lines, f, this.linesOf)) : [];

@@ -3,7 +3,7 @@
  * (efficiency written beside each bar), and the full table as HTML. Every row carries
  * `data-variant="<id>"` (`as-drawn`, `silicon`, `schottky`, `hybrid`, `synchronous`).
  */
-import type { ComparisonRow, TopologyComparison } from '../compare/index';
+import { verdictSummary, type ComparisonRow, type TopologyComparison } from '../compare/index';
 import { coord, escapeMarkup, niceTicks, tickLabel } from '../presentation/markup';
 import { formatCelsius, formatFixed, formatPercent, formatSi } from '../presentation/format';
 
@@ -114,7 +114,6 @@ const COMPARE_STYLE = `<style>
 function verdictCell(row: ComparisonRow): string {
   const v = row.verdict;
   if (!v) return '<td></td>';
-  if (v.status === 'pass') return '<td class="rl-pass">passes</td>';
-  if (v.status === 'fail') return `<td class="rl-fail">fails ${escapeMarkup([...new Set(v.failures.map((f) => f.code))].join(', '))}</td>`;
-  return '<td class="rl-unjudged">parts not rated</td>';
+  const cls = v.status === 'pass' ? 'rl-pass' : v.status === 'fail' ? 'rl-fail' : 'rl-unjudged';
+  return `<td class="${cls}">${escapeMarkup(verdictSummary(v))}</td>`;
 }
