@@ -43,6 +43,10 @@ const EXPECTED: Record<string, Expectation> = {
     kinds: ['diode-bridge'], present: { 'surge-rating': ['D1', 'D2', 'D3', 'D4'], 'cap-life': ['CBULK'], 'hazardous-voltage': ['VMAINS'] },
     absent: ['piv-margin', 'current-rating', 'cap-voltage', 'cap-ripple', 'junction-temp'], mains: true,
   },
+  'drive-480v-line-reactors.cir': {
+    kinds: ['three-phase-bridge'], present: { 'cap-voltage': ['CA', 'CB'], 'hazardous-voltage': ['VA', 'VB', 'VC'] },
+    absent: ['unmodelled-inductance', 'surge-rating', 'piv-margin', 'cap-ripple', 'junction-temp', 'current-rating'], mains: true,
+  },
   'motor-drive-3ph-400v.cir': {
     kinds: ['three-phase-bridge'], present: { 'surge-rating': [], 'harmonic-limit': [] }, absent: ['piv-margin', 'cap-voltage', 'junction-temp'], mains: true,
   },

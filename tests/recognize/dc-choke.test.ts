@@ -1,7 +1,7 @@
 /**
  * A DC choke between a bridge and its filter capacitor is found and carried into the solve; an
- * inductance the solver cannot model (line inductance of a three-phase bridge: commutation
- * overlap) is a warning naming the figures not checked, never only a note.
+ * inductance the solver cannot model (line inductance of a three-phase bridge together with a DC
+ * choke: commutation overlap) is a warning naming the figures not checked, never only a note.
  */
 import { describe, expect, it } from 'vitest';
 import { analyseText, findingsOf } from '../rules/check';
@@ -64,13 +64,20 @@ CLINK dcp dcn 1000u
 .model DBR D(IS=10n N=1.8)
 .end
 `;
-  it('a three-phase bridge with line reactors gets unmodelled-inductance naming what was not checked', () => {
-    const f = analyseText(drive);
+  it('a three-phase bridge with line reactors and a DC choke gets unmodelled-inductance naming what was not checked', () => {
+    // The overlap solver takes line reactors alone (tests/solve/three-phase-overlap*.test.ts);
+    // with a choke between bridge and capacitor as well the one-path network solves it with L = 0.
+    const withChoke = drive.replace('CLINK dcp dcn 1000u', 'LDC dcp dco 5m\nCLINK dco dcn 1000u');
+    const f = analyseText(withChoke);
+    expect(f.rectifiers[0]!.circuit.choke?.lH).toBe(0.005);
     const found = findingsOf(f, 'unmodelled-inductance');
     expect(found).toHaveLength(1);
     expect(found[0]!.severity).toBe('warning');
     expect(found[0]!.message).toContain('commutation overlap');
     expect(found[0]!.message).toContain('not checked');
+  });
+  it('line reactors alone are solved with overlap: no unmodelled-inductance', () => {
+    expect(findingsOf(analyseText(drive), 'unmodelled-inductance')).toHaveLength(0);
   });
   it('without the reactors there is none', () => {
     const f = analyseText(drive.replace(/^L([ABC]) p([abc]) l([abc]) 1\.2m$/gm, 'R$1 p$2 l$3 0.01'));

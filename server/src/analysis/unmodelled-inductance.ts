@@ -1,9 +1,12 @@
 /**
  * `unmodelled-inductance` — fires when the solver could not model an inductance drawn in a
- * rectifier's loop: the line inductance of a three-phase bridge (during commutation three devices
- * conduct at once), line inductance together with a DC choke in a single-phase bridge or centre
- * tap (the same overlap), or a choke on a doubler. The solver then ran without it (its note is
- * quoted). Called with the solver's other findings (limits.ts `solverFindings`).
+ * rectifier's loop: the line inductance of a three-phase bridge that the overlap solver does not
+ * take (a MOSFET bridge, or line inductance together with a DC choke: during commutation three
+ * devices conduct at once), line inductance together with a DC choke in a single-phase bridge or
+ * centre tap (the same overlap), or a choke on a doubler. The solver then ran without it (its note
+ * is quoted). A three-phase diode bridge with line inductance alone is solved with its overlap
+ * (solve/overlap-corner.ts) and gets none. Called with the solver's other findings (limits.ts
+ * `solverFindings`).
  *
  * Why: inductance lowers the current peaks, the ripple current and the inrush and raises the power
  * factor; figures computed without it are not those of the circuit as drawn. A stress rule passing

@@ -4,7 +4,14 @@
  * parts, slopes times segment phasors), so there is no resampling and no aliasing: the only
  * error is that of the integrator's own solution.
  */
-import type { PeriodRecord } from './record';
+/** What the harmonic analysis reads of a record (the one-path record and the overlap solver's alike). */
+export interface HarmonicSource {
+  count: number;
+  t: number[];
+  net: { omega: number };
+  sourceCurrentA(k: number): number;
+  sourceVoltageV(t: number): number;
+}
 
 /** Harmonic orders reported: 1…40 as in IEC 61000-3-2. */
 export const HARMONIC_ORDERS = 40;
@@ -42,7 +49,7 @@ export function fourierAmplitude(t: ArrayLike<number>, x: ArrayLike<number>, n: 
 }
 
 /** Harmonics 1…40, THD and displacement factor of the source current in a record. */
-export function computeHarmonics(rec: PeriodRecord, scale = 1): HarmonicFigures {
+export function computeHarmonics(rec: HarmonicSource, scale = 1): HarmonicFigures {
   const n = rec.count;
   const x: number[] = [];
   const v: number[] = [];

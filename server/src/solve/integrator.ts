@@ -4,22 +4,17 @@
  * the coefficient d = γ/2. It is L-stable, so the near-instant diode currents of a stiff
  * conduction interval do not ring, and one-step, so steps can stop exactly at conduction edges
  * and gate instants. Along the way it carries dy(t)/dy(t0), the period Jacobian for shooting.
+ * While no path conducts there are no TR-BDF2 steps: off-advance.ts moves the state and the
+ * Jacobian to the next stop or turn-on, exactly for a resistive load, by one scalar equation else.
  */
 import type { Network } from './network';
 import type { PeriodRecord } from './record';
 import { StageOut, type StageSolver } from './stage';
 import { applyGates } from './gates';
+import { OffAdvance } from './off-advance';
 import { copyInto, zeros } from './vec';
 
-const GAMMA = 2 - Math.SQRT2;
-const D = GAMMA / 2;
-const W = Math.SQRT2 / 4;
-const WD = W / D;
-// Third-order quadrature on the nodes 0, γ, 1 (exact for quadratics): the embedded formula of
-// the error estimate, and the record's weights.
-const Q0 = (1 - W) / 3;
-const QG = (3 * W + 1) / 3;
-const Q1 = D / 3;
+import { GAMMA, D, W, WD, Q0, QG, Q1 } from './tr-bdf2';
 /** Length of the backward-Euler restart step, as a fraction of the period. */
 const RESTART_FRACTION = 5e-5;
 
@@ -61,6 +56,8 @@ export class Integrator {
   private o1: StageOut;
   /** Step-size proposal carried from one call to the next. */
   hGuess = 0;
+  /** The step-free advance while no path conducts, where the network allows it. */
+  private readonly off: OffAdvance | undefined;
 
   constructor(private readonly net: Network, private readonly solver: StageSolver) {
     const n = net.n;
@@ -70,6 +67,7 @@ export class Integrator {
     this.r1 = zeros(n); this.r2 = zeros(n);
     this.tmp = zeros(n * n); this.tmpG = zeros(n * n);
     this.oN = new StageOut(n, np); this.oG = new StageOut(n, np); this.o1 = new StageOut(n, np);
+    this.off = OffAdvance.applies(net) ? new OffAdvance(net, solver) : undefined;
   }
 
   /** Integrates from (t0, y0, mode0) to t1. */
@@ -100,6 +98,20 @@ export class Integrator {
     while (t1 - t > 1e-12 * period) {
       if (steps + rejected > o.maxSteps) return { ok: false, steps, rejected, mode };
       const tStop = Math.min(nb < breaks.length ? breaks[nb]! : t1, nc < crests.length ? crests[nc]! : t1, tEdge);
+      if (this.off && mode < 0 && this.oN.mode < 0 && this.oN.phi <= 0) {
+        // Nothing conducts: advance exactly to the next stop or just past a turn-on, then restart.
+        const end = this.off.advance(t, tStop, this.y, o.sensitivity ? this.Y : undefined, o.record, o.hEdgeS);
+        steps++;
+        t = end.t;
+        this.solver.solve(t, 1e-9 * period, this.y, -1, this.oN);
+        copyInto(this.f, this.oN.f);
+        mode = this.oN.mode;
+        if (nb < breaks.length && Math.abs(t - breaks[nb]!) <= 1e-12 * period) nb++;
+        while (nc < crests.length && crests[nc]! <= t + 1e-12 * period) nc++;
+        restart = true; fresh = true; tEdge = Infinity;
+        if (end.turnedOn) hCtrl = Math.min(hCtrl, period * 4 * RESTART_FRACTION);
+        continue;
+      }
       let err = 0;
       let hTry = Math.min(hCtrl, tStop - t, mode >= 0 ? o.hMaxOnS : o.hMaxS);
       if (restart) hTry = Math.min(hTry, period * RESTART_FRACTION);

@@ -219,8 +219,10 @@ export function buildNetwork(
 }
 
 /**
- * Said when a three-phase bridge has line inductance: during commutation three devices conduct
- * at once, which the one-path-at-a-time network cannot hold, so the corner is solved with L = 0.
+ * Said when a three-phase bridge has line inductance and reaches this network (a MOSFET bridge, or
+ * one with a DC choke too; a diode bridge with line inductance alone goes to overlap-corner.ts):
+ * during commutation three devices conduct at once, which the one-path-at-a-time network cannot
+ * hold, so the corner is solved with L = 0.
  * The analysis turns this note into a finding naming what it leaves unchecked.
  */
 export const THREE_PHASE_LINE_L_NOTE = 'three-phase bridge: line inductance not modelled (commutation overlap, three devices conducting at once); solved with L = 0';

@@ -23,9 +23,15 @@ export class PeriodRecord {
   devV: number[] = [];
   private readonly slope = [0];
   private readonly lineV: number[];
+  /** onPath[p·nDevices + d]: device d conducts in path p. */
+  private readonly onPath: boolean[];
+  /** A conducting device's voltage at the current point, computed once per point. */
+  private readonly devOn: number[];
 
   constructor(readonly net: Network) {
     this.lineV = net.lines.map(() => 0);
+    this.onPath = net.paths.flatMap((p) => net.devices.map((_, d) => p.devices.includes(d)));
+    this.devOn = net.devices.map(() => 0);
   }
 
   reset(): void {
@@ -52,7 +58,7 @@ export class PeriodRecord {
   /** Current of device d at point k. */
   deviceCurrentA(k: number, d: number): number {
     const m = this.mode[k]!;
-    return m >= 0 && this.net.paths[m]!.devices.includes(d) ? this.iA[k]! : 0;
+    return m >= 0 && this.onPath[m * this.net.devices.length + d]! ? this.iA[k]! : 0;
   }
 
   /** Source (mains-referred, before the turns ratio) current at point k. */
@@ -84,6 +90,7 @@ export class PeriodRecord {
   private fillDeviceVoltages(t: number, o: StageOut, off: number): void {
     const net = this.net;
     const path = o.mode >= 0 ? net.paths[o.mode]! : undefined;
+    if (path) for (const k of path.devices) this.devOn[k] = deviceVoltageV(net.devices[k]!, o.iA, this.slope);
     const sn = Math.sin(net.omega * t);
     const cs = Math.cos(net.omega * t);
     let vMax = -Infinity, vMin = Infinity;
@@ -101,8 +108,8 @@ export class PeriodRecord {
       const vBus = o.u[0]!;
       if (path && path.upLine >= 0 && path.lowLine >= 0) {
         const [du, dl] = path.devices;
-        vPlus = this.lineV[path.upLine]! - deviceVoltageV(net.devices[du!]!, o.iA, this.slope);
-        vMinus = this.lineV[path.lowLine]! + deviceVoltageV(net.devices[dl!]!, o.iA, this.slope);
+        vPlus = this.lineV[path.upLine]! - this.devOn[du!]!;
+        vMinus = this.lineV[path.lowLine]! + this.devOn[dl!]!;
       } else {
         // All off: the rails float; put them symmetrically about the extreme lines.
         const mid = 0.5 * (vMax + vMin);
@@ -111,11 +118,12 @@ export class PeriodRecord {
     } else {
       for (let j = 0; j < net.ports.length; j++) { vPlus += net.railPlus[j]! * o.u[j]!; vMinus += net.railMinus[j]! * o.u[j]!; }
     }
-    for (let k = 0; k < net.devices.length; k++) {
+    const nd = net.devices.length;
+    for (let k = 0; k < nd; k++) {
       const d = net.devices[k]!;
-      const conducting = path !== undefined && path.devices.includes(k);
+      const conducting = path !== undefined && this.onPath[o.mode * nd + k]!;
       this.devV[off + k] = conducting
-        ? deviceVoltageV(d, o.iA, this.slope)
+        ? this.devOn[k]!
         : d.upper ? this.lineV[d.line]! - vPlus : vMinus - this.lineV[d.line]!;
     }
   }

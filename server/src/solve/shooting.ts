@@ -80,7 +80,9 @@ export function findSteadyState(net: Network, options: SteadyStateOptions = {}, 
   if (guess) { for (let j = 0; j < n; j++) y0[j] = guess.y0[j]!; mode0 = guess.mode0; }
   let iterations = 0;
   let converged = n === 0;
-  let fine = n === 0;
+  // A guess is a neighbouring orbit (the thermal loop's previous one, another corner's): near
+  // enough that its first period may already be the recorded one.
+  let fine = n === 0 || guess !== undefined;
   let lastWorst = Infinity;
   const g = zeros(n);
   const fineOpts = { ...opts, record, hMaxOnS: T * (options.recordStepFraction ?? 1 / 600) };
@@ -146,8 +148,8 @@ export function integrationOptions(net: Network, relTol: number, maxSteps: numbe
   return { atol, rtol: 0, hMaxS: T / 16, hMaxOnS: Infinity, hEdgeS: T * 1e-7, maxSteps, sensitivity: true };
 }
 
-/** Newton correction δ from (Φ − I)·δ = −g; falls back to δ = g when Φ − I is singular. */
-function solveNewton(phi: readonly number[], g: readonly number[], n: number): number[] {
+/** Newton correction δ from (Φ − I)·δ = −g; falls back to δ = g when Φ − I is singular. Both engines' shooting uses it. */
+export function solveNewton(phi: readonly number[], g: readonly number[], n: number): number[] {
   const a = zeros(n * n);
   const b = zeros(n);
   for (let i = 0; i < n; i++) {

@@ -12,8 +12,25 @@ export type SolveFn = (circuit: EquivalentCircuit, corners: Corner[], options?: 
 /** Cache of solutions by the JSON of their inputs; the adapter decides its lifetime. */
 export type SolutionCache = Map<string, RectifierSolution>;
 
-/** Largest cache the analysis fills; beyond it the oldest entries are dropped. */
-const CACHE_LIMIT = 4000;
+/**
+ * The cache is bounded by the numbers its solutions hold, not by their count: a solution with
+ * waveforms is a hundred times one without, and a count limit let a long session keep hundreds of
+ * megabytes. About 4 million numbers (some 32 MB of doubles) keep every rectifier of a large file
+ * and its fix trials; beyond it the least recently used entries are dropped.
+ */
+export const CACHE_NUMBER_BUDGET = 4_000_000;
+
+/** Numbers a solution holds, counted roughly: its corners' figures and every waveform sample. */
+export function solutionWeight(solution: RectifierSolution): number {
+  let weight = 64;
+  for (const corner of solution.corners) {
+    weight += 64 + 16 * corner.devices.length;
+    for (const w of [corner.waveform, corner.inrushWaveform]) {
+      if (w) weight += w.tS.length * (4 + w.deviceA.length);
+    }
+  }
+  return weight;
+}
 
 export function memoisedSolver(cache: SolutionCache | undefined): SolveFn {
   if (!cache) return solveRectifier;
@@ -27,8 +44,19 @@ export function memoisedSolver(cache: SolutionCache | undefined): SolveFn {
       return hit;
     }
     const solution = solveRectifier(circuit, corners, options);
-    if (cache.size >= CACHE_LIMIT) cache.delete(cache.keys().next().value!);
     cache.set(key, solution);
+    trimToBudget(cache);
     return solution;
   };
+}
+
+/** Drops the least recently used solutions until the cache fits its budget (the newest always stays). */
+function trimToBudget(cache: SolutionCache): void {
+  let total = 0;
+  for (const s of cache.values()) total += solutionWeight(s);
+  for (const [key, s] of cache) {
+    if (total <= CACHE_NUMBER_BUDGET || cache.size === 1) return;
+    total -= solutionWeight(s);
+    cache.delete(key);
+  }
 }

@@ -47,6 +47,12 @@ export class StageSolver {
   private readonly k: number[];
   private readonly rp: number[];
   private readonly psiWarm: number[];
+  // Per path, when its devices are ungated diodes with one IS: that IS, ΣN·Vt and ΣRS (else
+  // isRef 0). Read once: a solver lives for one steady state or one inrush case, during which
+  // the devices' temperatures (network.ts setDeviceTemperatures) stay put.
+  private readonly pathIs: number[];
+  private readonly pathNVt: number[];
+  private readonly pathRs: number[];
   private readonly slope = [0];
   // Load solution scratch: voltage, current, dI/dV.
   private vL = 0;
@@ -57,6 +63,17 @@ export class StageSolver {
     this.k = zeros(net.ports.length);
     this.rp = zeros(net.ports.length);
     this.psiWarm = zeros(net.paths.length);
+    this.pathIs = zeros(net.paths.length);
+    this.pathNVt = zeros(net.paths.length);
+    this.pathRs = zeros(net.paths.length);
+    net.paths.forEach((path, p) => {
+      const ds = path.devices.map((k) => net.devices[k]!);
+      const is = ds[0]?.isA ?? 0;
+      if (ds.length === 0 || ds.some((d) => d.gate !== undefined || d.isA !== is)) return;
+      this.pathIs[p] = is;
+      this.pathNVt[p] = ds.reduce((a, d) => a + d.nVtV, 0);
+      this.pathRs[p] = ds.reduce((a, d) => a + d.rsOhm, 0);
+    });
   }
 
   /** Solves one stage at time t with coefficient dh from right-hand side r; modeIn is the path holding the inductor current. */
@@ -104,6 +121,16 @@ export class StageSolver {
   }
 
   private dG = 1;
+
+  /** The load behind a series resistance K at source voltage a, as in a stage: returns its current (off-advance.ts). */
+  loadAt(a: number, K: number): number {
+    this.solveLoad(a, K);
+    return this.g;
+  }
+
+  /** Load voltage and dI/dV of the last `loadAt`. */
+  get loadVoltageV(): number { return this.vL; }
+  get loadSlope(): number { return this.gp; }
 
   /** Load voltage from vL = a − K·g(vL), with the load current g and its slope. */
   private solveLoad(a: number, K: number): void {
@@ -160,8 +187,13 @@ export class StageSolver {
     const net = this.net;
     const path = net.paths[p]!;
     const devs = path.devices;
-    let isRef = Infinity;
-    for (const k of devs) isRef = Math.min(isRef, net.devices[k]!.isA);
+    // Diodes that share IS (a bridge's pair, usually) have ln(1 + i/IS) = ψ itself: their voltage
+    // is ΣN·Vt·ψ + ΣRS·i with no logarithm per iteration.
+    const plain = this.pathIs[p]! > 0;
+    const nVt = this.pathNVt[p]!;
+    const rs = this.pathRs[p]!;
+    let isRef = this.pathIs[p]!;
+    if (!plain) { isRef = Infinity; for (const k of devs) isRef = Math.min(isRef, net.devices[k]!.isA); }
     const lOverDh = path.lH / dh;
     const R = path.rOhm + lOverDh;
     const emf = path.a * sn + path.b * cs + lOverDh * rL;
@@ -182,7 +214,8 @@ export class StageSolver {
     for (let it = 0; it < 100; it++) {
       const i = isRef * Math.expm1(psi);
       let v = 0, dv = 0;
-      for (const k of devs) { v += deviceVoltageV(net.devices[k]!, i, this.slope); dv += this.slope[0]!; }
+      if (plain) { v = nVt * psi + rs * i; dv = nVt / (isRef + i) + rs; }
+      else for (const k of devs) { v += deviceVoltageV(net.devices[k]!, i, this.slope); dv += this.slope[0]!; }
       this.solveLoad(A + B * i, K);
       const G = R * i + v + S1 + S2 * i - B * this.g - emf;
       this.dG = R + dv + S2 - (B * B * this.gp) / (1 + K * this.gp);

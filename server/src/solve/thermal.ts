@@ -1,14 +1,21 @@
 /**
  * The electro-thermal loop: each device's junction sits at Tj = Ta + P·RθJA, while its loss P
- * depends on Tj through the device model. Plain fixed-point iteration is used: for a diode the
- * loss falls as Tj rises (VF drops about 2 mV/K), so it contracts quickly; for a MOSFET the loss
- * rises with rdson(Tj), and when Rθ·dP/dTj reaches 1 there is no fixed point — thermal runaway.
+ * depends on Tj through the device model. For a diode the loss falls as Tj rises (VF drops about
+ * 2 mV/K), so the map T ↦ Ta + P(T)·Rθ contracts quickly; for a MOSFET the loss rises with
+ * rdson(Tj), and when Rθ·dP/dTj reaches 1 there is no fixed point — thermal runaway.
+ *
+ * Every loss evaluation is a full steady state, so the iteration is counted in evaluations: the
+ * first step is the plain fixed-point step, later ones the secant step on the residual
+ * r(T) = Ta + P(T)·Rθ − T (per device; the devices couple only weakly through the circuit), and
+ * the loop stops at the first evaluated Tj whose own residual is within the tolerance — so the
+ * reported Tj, loss and orbit belong together. A start near the answer (a neighbouring corner's
+ * temperature rise) often settles in one or two evaluations.
  */
 
 export interface ThermalOptions {
-  /** Convergence: largest Tj change between iterations, K (default 0.1, per DESIGN.md §5). */
+  /** Convergence: largest |Ta + P(Tj)·Rθ − Tj| at the reported Tj, K (default 0.1, per DESIGN.md §5). */
   toleranceK?: number;
-  /** Iterations at most (default 40). */
+  /** Loss evaluations after the first, at most (default 40). */
   maxIterations?: number;
   /** A junction above this is taken as destroyed: runaway (default 400 °C, far above any rating). */
   runawayTjC?: number;
@@ -23,30 +30,53 @@ export interface ThermalResult {
   runaway: boolean[];
 }
 
+/** Largest secant slope trusted: nearer 1 the fixed point is ill-conditioned or absent, and plain steps decide. */
+const SECANT_SLOPE_LIMIT = 0.9;
+
 /**
  * Iterates Tj = Ta + P(Tj)·Rθ for every device with a thermal resistance; devices without one
- * stay at ambient. `lossAt` must return the per-device loss at the given junction temperatures.
+ * stay at ambient. `lossAt` must return the per-device loss at the given junction temperatures;
+ * `startC`, when given, is the first Tj tried (a guess; the result does not depend on it beyond
+ * the tolerance).
  */
 export function settleJunctionTemperatures(
   ambientC: number, rthKPerW: readonly (number | undefined)[], lossAt: (tjC: number[]) => number[], opts: ThermalOptions = {},
+  startC?: readonly number[],
 ): ThermalResult {
   const tol = opts.toleranceK ?? 0.1;
   const maxIt = opts.maxIterations ?? 40;
   const limit = opts.runawayTjC ?? 400;
-  let tj = rthKPerW.map(() => ambientC);
-  let loss = lossAt(tj);
-  let lastStep = rthKPerW.map(() => Infinity);
-  let iterations = 0;
   const hasRth = rthKPerW.map((r) => r !== undefined && r > 0);
+  const clampStart = (k: number) => {
+    const s = startC?.[k];
+    return hasRth[k] && s !== undefined && Number.isFinite(s) ? Math.min(Math.max(s, ambientC), limit) : ambientC;
+  };
+  let tj = rthKPerW.map((_, k) => clampStart(k));
+  let loss = lossAt(tj);
   if (!hasRth.some(Boolean)) return { tjC: tj, lossW: loss, iterations: 0, converged: true, runaway: tj.map(() => false) };
-  for (; iterations < maxIt; iterations++) {
-    const next = tj.map((_, k) => (hasRth[k] ? ambientC + Math.max(loss[k]!, 0) * rthKPerW[k]! : ambientC));
-    lastStep = next.map((t, k) => Math.abs(t - tj[k]!));
-    tj = next.map((t) => Math.min(t, limit + 1));
-    if (tj.some((t) => t > limit)) break;
+  const image = (l: number[]) => rthKPerW.map((r, k) => (hasRth[k] ? ambientC + Math.max(l[k]!, 0) * r! : ambientC));
+  let f = image(loss);
+  let prevT: number[] | undefined;
+  let prevF: number[] | undefined;
+  let iterations = 0;
+  let hot = false;
+  while (Math.max(...f.map((x, k) => Math.abs(x - tj[k]!))) > tol && iterations < maxIt) {
+    const next = tj.map((t, k) => {
+      if (!hasRth[k]) return ambientC;
+      const plain = f[k]!;
+      if (!prevT || !prevF || prevT[k] === t) return plain;
+      const s = (f[k]! - prevF[k]!) / (t - prevT[k]!);
+      return s < SECANT_SLOPE_LIMIT && Number.isFinite(s) ? t + (f[k]! - t) / (1 - s) : plain;
+    });
+    prevT = tj; prevF = f;
+    tj = next.map((t) => Math.max(Math.min(t, limit + 1), ambientC));
+    iterations++;
+    if (tj.some((t) => t > limit)) { hot = true; break; }
     loss = lossAt(tj);
-    if (Math.max(...lastStep) <= tol) { iterations++; break; }
+    f = image(loss);
   }
-  const runaway = tj.map((t, k) => hasRth[k]! && (t > limit || lastStep[k]! > tol));
+  // After a jump past the limit f still belongs to the previous Tj.
+  const at = hot && prevT ? prevT : tj;
+  const runaway = tj.map((t, k) => hasRth[k]! && (t > limit || Math.abs(f[k]! - at[k]!) > tol));
   return { tjC: tj, lossW: loss, iterations, converged: !runaway.some(Boolean), runaway };
 }

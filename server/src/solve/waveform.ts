@@ -2,7 +2,16 @@
  * Uniformly sampled waveforms of a record, for plotting: source voltage, output voltage, the
  * mains-referred source current and each device's current.
  */
-import type { PeriodRecord } from './record';
+/** What sampling reads of a record (the one-path record and the overlap solver's alike). */
+export interface WaveformSource {
+  count: number;
+  t: number[];
+  vLoadV: number[];
+  net: { devices: readonly { name: string }[] };
+  sourceCurrentA(k: number): number;
+  sourceVoltageV(t: number): number;
+  deviceCurrentA(k: number, d: number): number;
+}
 
 /** Sampled waveforms; every array has the length of tS. */
 export interface Waveform {
@@ -17,7 +26,7 @@ export interface Waveform {
 }
 
 /** Samples a record at `points` uniform instants from its first to its last point. */
-export function sampleWaveform(rec: PeriodRecord, points: number, mainsScale: number): Waveform {
+export function sampleWaveform(rec: WaveformSource, points: number, mainsScale: number): Waveform {
   const n = rec.count;
   const t0 = rec.t[0]!;
   const t1 = rec.t[n - 1]!;

@@ -1,0 +1,98 @@
+/**
+ * Periodic steady state of the overlap system by shooting, with the one-path solver's rules
+ * (shooting.ts): Newton on x ↦ P(x) − x with the period Jacobian from the integrator, coarse
+ * periods until the residual is within 2 tolerances, then recorded fine periods; an orbit is
+ * periodic when a fine residual falls to 0.02 tolerances, or when Newton stalls (improving by
+ * less than 3× from one fine period to the next) at no more than 20, the integrator's noise floor.
+ */
+import { solveNewton, type SteadyStateOptions } from './shooting';
+import { OverlapIntegrator, type OverlapOptions } from './overlap-integrator';
+import { OverlapRecord } from './overlap-record';
+import type { OverlapSystem } from './overlap-stage';
+import { zeros } from './vec';
+
+const NEAR_RESIDUAL = 2;
+const CONVERGED_RESIDUAL = 0.02;
+const STALL_RESIDUAL = 20;
+
+export interface OverlapSteadyState {
+  converged: boolean;
+  iterations: number;
+  periods: number;
+  /** Integration steps over all periods, rejected ones included. */
+  steps: number;
+  /** Evaluations of the bridge's six diodes over all stages, and stages left to the nested searches (overlap-bridge.ts). */
+  evaluations: number;
+  fallbacks: number;
+  y0: number[];
+  residual: number;
+  record: OverlapRecord;
+  problems: string[];
+}
+
+export function findOverlapSteadyState(sys: OverlapSystem, options: SteadyStateOptions = {}, guess?: { y0: readonly number[] }): OverlapSteadyState {
+  const n = sys.n;
+  const T = sys.net.periodS;
+  const relTol = options.relTol ?? 1e-5;
+  const maxIt = options.maxIterations ?? 30;
+  const integ = new OverlapIntegrator(sys);
+  const opts = overlapOptions(sys, relTol, options.maxStepsPerPeriod ?? 20000);
+  const record = new OverlapRecord(sys);
+  const fineOpts: OverlapOptions = { ...opts, record, hMaxOnS: T * (options.recordStepFraction ?? 1 / 600) };
+  const problems: string[] = [];
+  const y0 = guess ? guess.y0.slice() : zeros(n);
+  const g = zeros(n);
+  let periods = 0, iterations = 0;
+  let converged = false, fine = false;
+  let lastWorst = Infinity;
+  for (;;) {
+    const ok = integ.run(0, T, y0, fine ? fineOpts : opts);
+    periods++;
+    if (!ok) { problems.push('steady state: step budget exhausted within one period'); break; }
+    let worst = 0;
+    for (let j = 0; j < n; j++) { g[j] = integ.y[j]! - y0[j]!; worst = Math.max(worst, Math.abs(g[j]!) / opts.atol[j]!); }
+    const stalled = worst <= STALL_RESIDUAL && worst >= 0.3 * lastWorst;
+    const settled = worst <= (fine ? CONVERGED_RESIDUAL : NEAR_RESIDUAL);
+    lastWorst = worst;
+    if (settled || stalled) {
+      if (fine) { converged = true; break; }
+      // A stall is judged between fine periods only, never against the last coarse residual.
+      fine = true;
+      lastWorst = Infinity;
+      continue;
+    }
+    if (iterations >= maxIt) break;
+    iterations++;
+    const delta = solveNewton(integ.Y, g, n);
+    let big = 0;
+    for (let j = 0; j < n; j++) {
+      const lim = opts.atol[j]! / relTol;
+      const step = Math.max(-lim, Math.min(lim, delta[j]!));
+      big = Math.max(big, Math.abs(step) / lim);
+      y0[j] = y0[j]! + step;
+      // The capacitor cannot be charged negative by the bridge.
+      if (j === 2) y0[j] = Math.max(0, y0[j]!);
+    }
+    const wasFine: boolean = fine;
+    fine = fine || big < 0.02;
+    if (fine !== wasFine) lastWorst = Infinity;
+  }
+  if (!converged) problems.push(`steady state not reached in ${iterations} shooting iterations; figures are from the last period`);
+  if (!fine || record.count === 0) { integ.run(0, T, y0, fineOpts); periods++; }
+  let residual = 0;
+  for (let j = 0; j < n; j++) residual = Math.max(residual, Math.abs(integ.y[j]! - y0[j]!) / opts.atol[j]!);
+  return { converged, iterations, periods, steps: integ.work, evaluations: integ.evaluations, fallbacks: integ.fallbacks, y0, residual, record, problems };
+}
+
+/** Tolerances: relTol of the line-to-line peak for the capacitor, that over twice the line impedance for the currents. */
+export function overlapOptions(sys: OverlapSystem, relTol: number, maxSteps: number): OverlapOptions {
+  const net = sys.net;
+  const vTol = relTol * net.vScaleV;
+  const z = Math.max(2 * Math.hypot(sys.rOhm, net.omega * sys.lH), 1e-3);
+  const atol = zeros(sys.n);
+  atol[0] = vTol / z; atol[1] = vTol / z;
+  if (sys.hasCap) atol[2] = vTol;
+  const T = net.periodS;
+  return { atol, hMaxS: T / 48, hMaxOnS: T / 200, maxSteps, sensitivity: true };
+}
+
