@@ -5,14 +5,22 @@ import { runLspBench } from './lsp-bench';
 import { runParseBench } from './parse-bench';
 import { runSolveBench } from './solve-bench';
 import { runRectifierBench } from './rectifier-bench';
+import { runCliBench } from './cli-bench';
+import { runOverlapBench } from './overlap-bench';
 
 async function main(): Promise<void> {
-  const sections: [string, BenchFigure[]][] = [
-    ['parse', runParseBench()],
-    ['steady state', (await runSolveBench()).map(withVerdict)],
-    ['one rectifier', runRectifierBench()],
-    ['language server', await runLspBench()],
+  // `node dist/bench.js parse 'language server'` runs only the named sections.
+  const wanted = process.argv.slice(2);
+  const all: [string, () => BenchFigure[] | Promise<BenchFigure[]>][] = [
+    ['parse', runParseBench],
+    ['steady state', async () => (await runSolveBench()).map(withVerdict)],
+    ['one rectifier', runRectifierBench],
+    ['three-phase overlap', runOverlapBench],
+    ['language server', runLspBench],
+    ['command line', runCliBench],
   ];
+  const sections: [string, BenchFigure[]][] = [];
+  for (const [name, run] of all) if (wanted.length === 0 || wanted.includes(name)) sections.push([name, await run()]);
   for (const [section, figures] of sections) {
     console.log(`\n${section}`);
     for (const f of figures) {

@@ -22,6 +22,8 @@ await Promise.all([
   build({ ...common, entryPoints: ['server/src/lsp/main.ts'], outfile: 'dist/server.js' }),
   // The language server's analysis thread, started by dist/server.js and by `rectilens lsp` in dist/cli.js.
   build({ ...common, entryPoints: ['server/src/lsp/analysis-worker.ts'], outfile: 'dist/analysis-worker.js' }),
+  // The `check` command's worker threads, started by dist/cli.js (`check --jobs N`).
+  build({ ...common, entryPoints: ['server/src/cli/check-worker.ts'], outfile: 'dist/check-worker.js' }),
   build({ ...common, entryPoints: ['client/src/extension.ts'], outfile: 'dist/client.js', external: ['vscode'] }),
   ...(process.argv.includes('--bench') ? [build({ ...common, entryPoints: ['bench/run.ts'], outfile: 'dist/bench.js', external: ['odex'] })] : []),
 ]);

@@ -102,6 +102,6 @@ describe('rectilens: -- ends the options', () => {
   });
 
   it('before --, a name starting with - is an unknown option, and the message says where files go', () => {
-    expect(cli(['check', '-x.cir'])).toMatchObject({ code: 2, stderr: "rectilens: unknown option -x.cir; known: --format, --fail-on, --config, --parts, --output, --help (a file whose name starts with '-' goes after --)\n" });
+    expect(cli(['check', '-x.cir'])).toMatchObject({ code: 2, stderr: "rectilens: unknown option -x.cir; known: --format, --fail-on, --config, --parts, --output, --jobs, --shard, --help (a file whose name starts with '-' goes after --)\n" });
   });
 });

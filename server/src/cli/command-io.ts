@@ -1,4 +1,5 @@
-import { writeFileSync } from 'node:fs';
+import { closeSync, openSync, writeFileSync, writeSync } from 'node:fs';
+import { join } from 'node:path';
 
 /** The command line's window on the world, passed in so commands stay testable in-process. */
 export interface CommandIo {
@@ -8,6 +9,10 @@ export interface CommandIo {
   stderrIsTty: boolean;
   /** Writes a whole file (the HTML report); throws with the system's reason when it cannot. */
   writeFile?: (path: string, text: string) => void;
+  /** Opens a file to be written piece by piece (`check --output`); throws with the system's reason when it cannot. */
+  openOutput?: (path: string) => { write: (text: string) => void; close: () => void };
+  /** The bundled `check` worker; without it `check` runs in this process whatever `--jobs` says. */
+  checkWorker?: string;
 }
 
 /** Set once standard output has failed; later output is dropped rather than failing again. */
@@ -18,6 +23,18 @@ export const processIo: CommandIo = {
   stderr: (text) => process.stderr.write(text),
   stderrIsTty: Boolean(process.stderr.isTTY),
   writeFile: (path, text) => writeFileSync(path, text, 'utf8'),
+  openOutput: (path) => {
+    const fd = openSync(path, 'w');
+    return {
+      write: (text) => {
+        const bytes = Buffer.from(text, 'utf8');
+        for (let at = 0; at < bytes.length;) at += writeSync(fd, bytes, at);
+      },
+      close: () => closeSync(fd),
+    };
+  },
+  // Beside dist/cli.js, which this module is bundled into.
+  checkWorker: join(__dirname, 'check-worker.js'),
 };
 
 /**

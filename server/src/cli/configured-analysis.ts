@@ -11,6 +11,7 @@ import { projectConfigFindings } from '../analysis/project-config-findings';
 import type { FileText } from '../circuit/index';
 import { findProjectConfig } from '../io/project-config-file';
 import type { AnalysisSettings, PartsFile } from '../ratings/index';
+import type { CheckConfiguration } from './check-file';
 import type { CommandIo } from './command-io';
 import type { ReportedFile } from './report-json';
 
@@ -27,19 +28,22 @@ export interface ConfigurationOptions {
   parts?: readonly string[];
 }
 
-/** One analysis per project configuration, each with its settings and parts files; the configuration and parts files' own findings are reported too. */
-export function analyseByConfiguration(
-  files: readonly string[], read: (path: string) => FileText, options: ConfigurationOptions, io: CommandIo,
-): { snapshot: Snapshot; extra: ReportedFile[] } {
+export interface Configurations {
+  /** The configuration key of each file, in the files' order ('' for none). */
+  keyOf: Map<string, string>;
+  /** Settings and parts files by key, in the order the files first name them. */
+  byKey: Map<string, CheckConfiguration>;
+  /** The configuration and parts files' own findings, once each. */
+  extra: ReportedFile[];
+}
+
+/** Each file's project configuration, read once per configuration with the parts files it names. */
+export function loadConfigurations(files: readonly string[], read: (path: string) => FileText, options: ConfigurationOptions): Configurations {
   const forced = options.config;
   const extraParts = options.parts ?? [];
-  const groups = new Map<string, string[]>();
-  for (const file of files) {
-    const config = forced ?? findProjectConfig(file === STDIN_PATH ? resolve('stdin') : file) ?? '';
-    groups.set(config, [...(groups.get(config) ?? []), file]);
-  }
-  const all = new Map<string, FileAnalysis>();
-  const unreadable: string[] = [];
+  const keyOf = new Map<string, string>();
+  for (const file of files) keyOf.set(file, forced ?? findProjectConfig(file === STDIN_PATH ? resolve('stdin') : file) ?? '');
+  const byKey = new Map<string, CheckConfiguration>();
   const extra: ReportedFile[] = [];
   const seenExtra = new Set<string>();
   const report = (path: string, text: string, findings: ReportedFile['findings']) => {
@@ -47,8 +51,7 @@ export function analyseByConfiguration(
     seenExtra.add(path);
     extra.push({ path, text, findings });
   };
-  let done = 0;
-  for (const [configPath, roots] of groups) {
+  for (const configPath of new Set(keyOf.values())) {
     let settings: AnalysisSettings = {};
     const partsPaths = extraParts.map((p) => resolve(p));
     if (configPath) {
@@ -63,7 +66,21 @@ export function analyseByConfiguration(
       report(path, result.text, result.findings);
       if (result.file) partsFiles.push(result.file);
     }
-    for (const root of roots) {
+    byKey.set(configPath, { settings, partsFiles });
+  }
+  return { keyOf, byKey, extra };
+}
+
+/** One analysis per project configuration, each with its settings and parts files; the configuration and parts files' own findings are reported too. */
+export function analyseByConfiguration(
+  files: readonly string[], read: (path: string) => FileText, options: ConfigurationOptions, io: CommandIo,
+): { snapshot: Snapshot; extra: ReportedFile[] } {
+  const { keyOf, byKey, extra } = loadConfigurations(files, read, options);
+  const all = new Map<string, FileAnalysis>();
+  const unreadable: string[] = [];
+  let done = 0;
+  for (const [configPath, { settings, partsFiles }] of byKey) {
+    for (const root of files.filter((f) => keyOf.get(f) === configPath)) {
       if (io.stderrIsTty && files.length >= PROGRESS_MIN_FILES) io.stderr(`\r\x1b[Krectilens: checking ${++done}/${files.length} ${root}`);
       const one = analyze({ roots: [root], readText: read, settings, partsFiles });
       for (const [uri, file] of one.files) all.set(uri, file);
@@ -73,4 +90,3 @@ export function analyseByConfiguration(
   if (io.stderrIsTty && files.length >= PROGRESS_MIN_FILES) io.stderr('\r\x1b[K');
   return { snapshot: { files: all, unreadable }, extra };
 }
-

@@ -18,8 +18,19 @@ const USAGE = `usage:
 Each command takes --help (-h) for its options.
 `;
 
-/** Runs one command line; returns the exit code, or −1 when a long-running server was started. */
+/**
+ * Runs one command line in this process; returns the exit code, or −1 when a long-running server
+ * was started. `check` stays in this process here (an `io` with a worker script goes through
+ * `runCommand`).
+ */
 export function runCommandLine(argv: readonly string[], io: CommandIo): number {
+  const code = runCommand(argv, { ...io, checkWorker: undefined });
+  if (typeof code !== 'number') throw new Error('unreachable: check without a worker script answers synchronously');
+  return code;
+}
+
+/** Runs one command line; `check` with worker threads answers with a promise of its exit code. */
+export function runCommand(argv: readonly string[], io: CommandIo): number | Promise<number> {
   const [command, ...rest] = argv;
   try {
     switch (command) {
@@ -57,8 +68,16 @@ export function runCommandLine(argv: readonly string[], io: CommandIo): number {
 if (require.main === module) {
   // The language server owns its standard output (the protocol); every other command reports a failed write.
   if (process.argv[2] !== 'lsp') exitOnOutputFailure();
-  const code = runCommandLine(process.argv.slice(2), processIo);
-  if (code >= 0) process.exitCode = code;
+  const code = runCommand(process.argv.slice(2), processIo);
+  if (typeof code === 'number') {
+    if (code >= 0) process.exitCode = code;
+  } else {
+    // A failed write to standard output may have set 2 already; it wins, as above.
+    code.then((c) => void (process.exitCode ??= c), (error: unknown) => {
+      process.stderr.write(`rectilens: ${error instanceof Error ? error.stack ?? error.message : String(error)}\n`);
+      process.exitCode = 2;
+    });
+  }
 }
 
 function startLanguageServer(): void {

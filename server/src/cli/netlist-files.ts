@@ -47,7 +47,8 @@ export function emptyFolderMessage(path: string): string {
 }
 
 function walk(folder: string, into: string[]): void {
-  const entries = readdirSync(folder, { withFileTypes: true }).sort((a, b) => a.name.localeCompare(b.name));
+  // Code-unit order, not the locale's: the list (and so every shard of it) is the same on every machine.
+  const entries = readdirSync(folder, { withFileTypes: true }).sort((a, b) => (a.name < b.name ? -1 : a.name > b.name ? 1 : 0));
   for (const entry of entries) {
     const path = join(folder, entry.name);
     if (entry.isDirectory()) {

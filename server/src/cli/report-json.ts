@@ -168,7 +168,7 @@ function diagnosticKey(d: JsonDiagnostic): string {
   return `${d.line}:${d.column}:${d.endLine}:${d.endColumn}:${d.code}:${d.message}`;
 }
 
-function toJsonDiagnostic(f: Finding, linesOf: (uri: string) => LineIndex, withFixes: boolean): JsonDiagnostic {
+export function toJsonDiagnostic(f: Finding, linesOf: (uri: string) => LineIndex, withFixes: boolean): JsonDiagnostic {
   const lines = linesOf(f.uri);
   const start = lines.positionAt(f.span.start);
   const end = lines.positionAt(f.span.end);
@@ -195,7 +195,7 @@ function toJsonDiagnostic(f: Finding, linesOf: (uri: string) => LineIndex, withF
 
 const WORST_FIGURES = ['vOutAvgV', 'vOutMaxV', 'rippleVpp', 'efficiency', 'powerFactor', 'inrushPeakA', 'capRippleIrmsA', 'thd', 'inrushI2tA2s', 'holdUpS'] as const;
 
-function toJsonRectifier(analysis: RectifierAnalysis, lines: LineIndex): JsonRectifier {
+export function toJsonRectifier(analysis: RectifierAnalysis, lines: LineIndex): JsonRectifier {
   const { rectifier, solution } = analysis;
   const worst: Record<string, number | undefined> = {};
   const worstCorner: Record<string, string | undefined> = {};
