@@ -27,6 +27,10 @@ import { copyInto, zeros } from './vec';
 const GRID_FRACTION = 1 / 64;
 /** Largest Runge–Kutta substep as a fraction of the local time constant. */
 const RK_FRACTION = 0.05;
+/** Most Runge–Kutta substeps of one advance; a stiffer load takes the backward-Euler path. */
+const MAX_RK_SUBSTEPS = 256;
+/** Backward-Euler substeps of one stiff advance. */
+const STIFF_SUBSTEPS = 32;
 
 /** Where an advance ended: at the limit, or just past a turn-on. */
 export interface OffAdvanceEnd {
@@ -111,6 +115,11 @@ export class OffAdvance {
     const gp = Math.abs(this.solver.loadSlope);
     const rate = Math.max(gp / (c * (1 + this.rEq * gp)), v > 0 ? Math.abs(g) / (c * v) : 0);
     const n = Math.max(1, Math.ceil((dt * rate) / RK_FRACTION));
+    // A load far stiffer than the interval (a current or power load fading below its floor into a
+    // small capacitor) would need millions of substeps: there V falls onto its floor within a
+    // substep, and backward Euler (stable and monotone, since g grows with V) follows it in a
+    // bounded number of steps instead.
+    if (n > MAX_RK_SUBSTEPS) return this.decayStiff(v, dt);
     const h = dt / n;
     const f = (x: number) => -this.solver.loadAt(x, this.rEq) / c;
     for (let k = 0; k < n; k++) {
@@ -119,6 +128,31 @@ export class OffAdvance {
       const k3 = f(v + 0.5 * h * k2);
       const k4 = f(v + h * k3);
       v += (h / 6) * (k1 + 2 * k2 + 2 * k3 + k4);
+    }
+    return v;
+  }
+
+  /** V after dt by backward-Euler substeps: x + (h/C)·g(x) = v, solved by safeguarded Newton on its bracket. */
+  private decayStiff(v: number, dt: number): number {
+    const c = this.cEq;
+    const h = dt / STIFF_SUBSTEPS;
+    for (let k = 0; k < STIFF_SUBSTEPS; k++) {
+      const g0 = this.solver.loadAt(v, this.rEq);
+      // g grows with x, so F(x) = x + (h/C)·g(x) − v changes sign between v − (h/C)·g(v) and v.
+      let lo = Math.min(v, v - (h / c) * g0);
+      let hi = Math.max(v, v - (h / c) * g0);
+      let x = v;
+      for (let it = 0; it < 60; it++) {
+        const g = this.solver.loadAt(x, this.rEq);
+        const F = x + (h / c) * g - v;
+        if (F > 0) hi = x; else lo = x;
+        const slope = 1 + (h / c) * Math.abs(this.solver.loadSlope);
+        let next = x - F / slope;
+        if (!(next > lo && next < hi)) next = 0.5 * (lo + hi);
+        if (Math.abs(next - x) <= 1e-12 * Math.max(1, Math.abs(v)) || hi - lo <= 1e-12 * Math.max(1, Math.abs(v))) { x = next; break; }
+        x = next;
+      }
+      v = x;
     }
     return v;
   }
