@@ -25,6 +25,20 @@ export function elementSyntax(letter: string): string | undefined {
   return ELEMENT_SYNTAX[letter];
 }
 
+/**
+ * The one empty list that every card without parameters, ports or words shares (frozen, so no
+ * consumer can fill it by mistake): a tree of a large file holds one per card otherwise.
+ */
+export const NONE: never[] = Object.freeze([]) as never[];
+
+/**
+ * A list built by `push` keeps room for sixteen entries; the tree keeps its lists for as long as
+ * the file is open, so each is stored at its exact length (or as `NONE`).
+ */
+export function exact<T>(list: T[]): T[] {
+  return list.length === 0 ? NONE : list.slice();
+}
+
 export function nameOf(token: IToken): Name {
   return { text: token.image, span: { start: token.startOffset, end: tokenEnd(token) } };
 }
@@ -74,7 +88,7 @@ function sortArgs(args: RawArg[], diagnostics: Diagnostics) {
     else if (arg.kind === 'group') groups.push(arg);
     else bare.push(arg);
   }
-  return { bare, params, groups };
+  return { bare, params: exact(params), groups };
 }
 
 function wordName(arg: RawArg | undefined, role: string, diagnostics: Diagnostics): Name | undefined {
@@ -100,29 +114,49 @@ function reportShort(head: IToken, args: RawArg[], message: string, diagnostics:
 }
 
 function nodes(bare: RawArg[], count: number, diagnostics: Diagnostics): Name[] {
-  return bare.slice(0, count).flatMap((a) => wordName(a, 'a node name', diagnostics) ?? []);
+  const picked = bare.length > count ? bare.slice(0, count) : bare;
+  if (picked.length === 0) return NONE;
+  // Words and paths always name a node; only an expression is refused (with its diagnostic).
+  if (picked.every((a) => a.kind !== 'expr')) return picked.map((a) => wordName(a, 'a node name', diagnostics)!);
+  return exact(picked.flatMap((a) => wordName(a, 'a node name', diagnostics) ?? []));
 }
 
 function buildPassive(raw: RawCard, span: Span, letter: 'R' | 'C' | 'L', d: Diagnostics): PassiveCard {
+  const [a, b, c] = raw.args;
+  // The card as it is nearly always written, two nodes and a value, built without sorting its arguments.
+  if (raw.args.length === 3 && a!.kind === 'word' && b!.kind === 'word' && c!.kind === 'word') {
+    return { kind: 'passive', letter, name: nameOf(raw.head), nodes: [nameOf(a!.token), nameOf(b!.token)], params: NONE, span, value: valueOf(c!, d) };
+  }
   const { bare, params, groups } = sortArgs(raw.args, d);
   reportGroups(groups, `a ${letter} card`, d);
-  const card: PassiveCard = { kind: 'passive', letter, name: nameOf(raw.head), nodes: nodes(bare, 2, d), params, span };
-  if (bare[2]) card.value = valueOf(bare[2], d);
-  else reportShort(raw.head, raw.args, `${raw.head.image} needs two nodes and a value (${ELEMENT_SYNTAX[letter]})`, d);
-  reportExtra(bare.slice(3), 'value', d);
+  const name = nameOf(raw.head);
+  const two = nodes(bare, 2, d);
+  // One literal with every field, so the card holds its fields in itself rather than in a second store.
+  let card: PassiveCard;
+  if (bare[2]) card = { kind: 'passive', letter, name, nodes: two, params, span, value: valueOf(bare[2], d) };
+  else {
+    card = { kind: 'passive', letter, name, nodes: two, params, span };
+    reportShort(raw.head, raw.args, `${raw.head.image} needs two nodes and a value (${ELEMENT_SYNTAX[letter]})`, d);
+  }
+  if (bare.length > 3) reportExtra(bare.slice(3), 'value', d);
   return card;
 }
 
 function buildDiode(raw: RawCard, span: Span, d: Diagnostics): DiodeCard {
+  const [a, b, c] = raw.args;
+  // Anode, cathode and model, as nearly every diode is written: no arguments to sort.
+  if (raw.args.length === 3 && a!.kind === 'word' && b!.kind === 'word' && c!.kind === 'word') {
+    return { kind: 'diode', name: nameOf(raw.head), nodes: [nameOf(a!.token), nameOf(b!.token)], params: NONE, span, model: nameOf(c!.token) };
+  }
   const { bare, card } = modelledCard(raw, span, d, 'diode', 2, `anode, cathode and a model (${ELEMENT_SYNTAX.D})`);
   if (bare[3]) card.area = valueOf(bare[3], d);
-  reportExtra(bare.slice(4), 'value', d);
+  if (bare.length > 4) reportExtra(bare.slice(4), 'value', d);
   return card;
 }
 
 function buildMosfet(raw: RawCard, span: Span, d: Diagnostics): MosfetCard {
   const { bare, card } = modelledCard(raw, span, d, 'mosfet', 4, `drain, gate, source, bulk and a model (${ELEMENT_SYNTAX.M})`);
-  reportExtra(bare.slice(5), 'value', d);
+  if (bare.length > 5) reportExtra(bare.slice(5), 'value', d);
   return card;
 }
 
@@ -130,8 +164,9 @@ function buildMosfet(raw: RawCard, span: Span, d: Diagnostics): MosfetCard {
 function modelledCard<K extends 'diode' | 'mosfet'>(raw: RawCard, span: Span, d: Diagnostics, kind: K, nodeCount: number, needs: string) {
   const { bare, params, groups } = sortArgs(raw.args, d);
   reportGroups(groups, kind === 'diode' ? 'a diode card' : 'a MOSFET card', d);
-  const card = { kind, name: nameOf(raw.head), nodes: nodes(bare, nodeCount, d), params, span } as Extract<DiodeCard | MosfetCard, { kind: K }>;
-  card.model = wordName(bare[nodeCount], 'a model name', d);
+  const name = nameOf(raw.head);
+  const nodeNames = nodes(bare, nodeCount, d);
+  const card = { kind, name, nodes: nodeNames, params, span, model: wordName(bare[nodeCount], 'a model name', d) } as Extract<DiodeCard | MosfetCard, { kind: K }>;
   if (!bare[nodeCount]) reportShort(raw.head, raw.args, `${raw.head.image} needs ${needs}`, d);
   return { bare, card };
 }
@@ -156,6 +191,8 @@ function buildSource(raw: RawCard, span: Span, letter: 'V' | 'I', d: Diagnostics
     } else if (card.dc === undefined && arg.kind !== 'path') card.dc = valueOf(arg, d);
     else reportExtra([arg], 'value', d);
   }
+  card.nodes = exact(card.nodes);
+  card.params = exact(card.params);
   return card;
 }
 
@@ -169,8 +206,8 @@ function buildInstance(raw: RawCard, span: Span, d: Diagnostics): InstanceCard {
   const { bare, params, groups } = sortArgs(raw.args, d);
   reportGroups(groups, 'a subcircuit instance', d);
   const words = bare.flatMap((a) => wordName(a, 'a node or subcircuit name', d) ?? []);
-  const card: InstanceCard = { kind: 'instance', name: nameOf(raw.head), nodes: words.slice(0, -1), params, span };
-  card.subckt = words[words.length - 1];
+  const name = nameOf(raw.head);
+  const card: InstanceCard = { kind: 'instance', name, nodes: words.length > 1 ? words.slice(0, -1) : NONE, params, span, subckt: words[words.length - 1] };
   if (!card.subckt) reportShort(raw.head, raw.args, `${raw.head.image} needs nodes and a subcircuit name (${ELEMENT_SYNTAX.X})`, d);
   return card;
 }
@@ -187,14 +224,14 @@ export function buildElement(raw: RawCard, span: Span, d: Diagnostics): Card {
     case 'K': {
       const { bare, groups } = sortArgs(raw.args, d);
       reportGroups(groups, 'a coupling card', d);
-      const inductors = bare.slice(0, -1).flatMap((a) => wordName(a, 'an inductor name', d) ?? []);
+      const inductors = exact(bare.slice(0, -1).flatMap((a) => wordName(a, 'an inductor name', d) ?? []));
       if (inductors.length < 2) reportShort(raw.head, raw.args, `${raw.head.image} needs two inductors and a coefficient (${ELEMENT_SYNTAX.K})`, d);
       const last = bare[bare.length - 1];
       return { kind: 'coupling', name: nameOf(raw.head), inductors, coefficient: last && inductors.length >= 2 ? valueOf(last, d) : undefined, span };
     }
     default: {
       d.push({ span: nameOf(raw.head).span, severity: 'hint', code: 'unknown-element', message: `element letter '${letter}' is not modelled here; the card is kept but not analysed` });
-      const words = raw.args.flatMap((a) => (a.kind === 'word' ? [nameOf(a.token)] : []));
+      const words = exact(raw.args.flatMap((a) => (a.kind === 'word' ? [nameOf(a.token)] : [])));
       return { kind: 'opaque', name: nameOf(raw.head), words, span };
     }
   }

@@ -1,6 +1,6 @@
 /** Gives the arguments of a dot card (`.model`, `.subckt`, `.param`, `.include`…) their meaning. */
 import type { RawArg, RawCard } from './card-parser';
-import { nameOf, reportExtra, reportShort, sortArgs, spanOf, valueOf, wordName } from './card-builder';
+import { exact, NONE, nameOf, reportExtra, reportShort, sortArgs, spanOf, valueOf, wordName } from './card-builder';
 import type { Card, ModelCard, Param, Span, SyntaxDiagnostic } from './syntax-tree';
 
 type Diagnostics = SyntaxDiagnostic[];
@@ -15,7 +15,7 @@ export function buildDotCard(raw: RawCard, span: Span, d: Diagnostics): Card {
       reportExtra(groups, 'parenthesised list', d);
       const words = bare.flatMap((a) => wordName(a, 'a port name', d) ?? []).filter((w) => w.text.toLowerCase() !== 'params:');
       if (!words[0]) reportShort(raw.head, raw.args, '.subckt needs a name and its ports (.subckt name node…)', d);
-      return { kind: 'subckt', keyword, name: words[0], ports: words.slice(1), params, span };
+      return { kind: 'subckt', keyword, name: words[0], ports: words.length > 1 ? words.slice(1) : NONE, params, span };
     }
     case 'DotEnds': {
       const { bare } = sortArgs(raw.args, d);
@@ -39,7 +39,7 @@ export function buildDotCard(raw: RawCard, span: Span, d: Diagnostics): Card {
     case 'DotEndl': return { kind: 'endl', keyword, span };
     case 'DotEnd': return { kind: 'end', keyword, span };
     default: {
-      const words = raw.args.flatMap((a) => (a.kind === 'word' ? [nameOf(a.token)] : []));
+      const words = exact(raw.args.flatMap((a) => (a.kind === 'word' ? [nameOf(a.token)] : [])));
       return { kind: 'control', keyword, words, span };
     }
   }
@@ -51,7 +51,7 @@ function buildModel(raw: RawCard, span: Span, d: Diagnostics): ModelCard {
   const typed = groups[0];
   if (typed) {
     card.type = typed.name ? nameOf(typed.name) : wordName(bare[1], 'a model type', d);
-    card.params = [...groupParams(typed.args, d), ...params];
+    card.params = exact([...groupParams(typed.args, d), ...params]);
     reportExtra(groups.slice(1), 'parenthesised list', d);
   } else {
     card.type = wordName(bare[1], 'a model type', d);

@@ -1,18 +1,21 @@
 /**
- * `parseNetlist(text)` never throws: it returns the tree and the diagnostics. The text is lexed
- * once; its tokens are cut into cards at line breaks; each card is parsed on its own, so a broken
- * card costs one diagnostic and nothing else.
+ * `parseNetlist(text)` never throws: it returns the tree and the diagnostics. The text is scanned
+ * once (scanner.ts); its tokens are cut into cards at line breaks; each card is parsed on its own,
+ * so a broken card costs one diagnostic and nothing else.
  */
 import type { IToken } from 'chevrotain';
 import { parseCardTokens } from './card-parser';
-import { buildElement, elementSyntax } from './card-builder';
+import { buildElement, elementSyntax, NONE } from './card-builder';
 import { parseDirective } from './directives';
 import { buildDotCard } from './dot-card-builder';
 import { planReparse } from './reparse';
 import { nestBlocks } from './structure';
 import type { Card, Netlist, Span, SyntaxDiagnostic, TitleCard } from './syntax-tree';
 import { detectForeignEncoding, withoutByteOrderMark, type ForeignEncoding } from './encoding';
-import { DotKeyword, netlistLexer, Newline, tokenEnd, Word } from './tokens';
+import { isShapingHead, rememberMarks } from './card-marks';
+import { readFlatCard } from './fast-card';
+import { Scan, Scanner } from './scanner';
+import { DotKeyword, tokenEnd, Word } from './tokens';
 import { tokenMatcher } from 'chevrotain';
 
 export interface ParseOptions {
@@ -23,6 +26,12 @@ export interface ParseOptions {
    * outside the changed lines are reused. The result equals a parse without it.
    */
   previous?: Netlist;
+  /**
+   * Whether `previous` may be consumed: its cards after the edit are then moved (offsets updated
+   * in place, the same objects) instead of copied. Only for a caller that drops the previous tree
+   * (and everything that shares its nodes) once this parse returns.
+   */
+  consumePrevious?: boolean;
 }
 
 export function parseNetlist(source: string, options: ParseOptions = {}): Netlist {
@@ -41,7 +50,7 @@ function parseText(source: string, options: ParseOptions): Netlist {
   const encoding = detectForeignEncoding(source);
   if (encoding) return encodingRefusal(source, encoding);
   const text = withoutByteOrderMark(source);
-  const plan = options.previous ? planReparse(options.previous, text) : undefined;
+  const plan = options.previous ? planReparse(options.previous, text, options.consumePrevious ? 'move' : 'copy') : undefined;
   if (plan) return assemble(text, options.previous!.title, [plan.prefix, scanRegion(text, plan.start, plan.end), plan.suffix]);
   const title = options.titleLine === false ? undefined : readTitle(text);
   return assemble(text, title, [scanRegion(text, title ? title.span.end : 0, text.length)]);
@@ -60,59 +69,75 @@ interface RegionParse {
   cards: Card[];
   comments: Span[];
   diagnostics: SyntaxDiagnostic[];
+  /** Indices into `cards` of the cards that shape the file (card-marks.ts). */
+  marks: readonly number[];
 }
 
 /**
- * A region is lexed in pieces of about this many characters, cut at line starts that do not
- * continue the line before, so the tokens of a large file are never all alive at once (they cost
- * some fifty times the text they cover).
+ * Scans and parses the lines in [from, to) of the text (both at line starts, or the text's end).
+ * The scanner hands over one token at a time and each card is built as soon as its line ends, so
+ * only one card's tokens are alive at once.
  */
-const PIECE_CHARS = 1 << 20;
-const PIECE_CUT = /\n(?![ \t]*\+)/g;
-
-/** Lexes and parses the lines in [from, to) of the text (both at line starts, or the text's end). */
 function scanRegion(text: string, from: number, to: number): RegionParse {
-  const pieces: RegionParse[] = [];
-  for (let start = from; start < to; ) {
-    PIECE_CUT.lastIndex = start + PIECE_CHARS;
-    const cut = to - start > PIECE_CHARS ? PIECE_CUT.exec(text) : null;
-    const end = cut && cut.index + 1 < to ? cut.index + 1 : to;
-    pieces.push(scanPiece(text, start, end));
-    start = end;
+  const cards: Card[] = [];
+  const comments: Span[] = [];
+  const diagnostics: SyntaxDiagnostic[] = [];
+  const marks: number[] = [];
+  const scanner = new Scanner(text, from, to);
+  const tokens: IToken[] = [];
+  for (;;) {
+    const found = scanner.next();
+    if (found === Scan.Token) {
+      tokens.push(scanner.token());
+      continue;
+    }
+    if (found === Scan.Comment) comments.push({ start: scanner.start, end: scanner.end });
+    else if (found === Scan.Error) {
+      const span = { start: scanner.start, end: scanner.end };
+      diagnostics.push({ span, severity: 'error', code: 'syntax-error', message: `unexpected '${text.slice(span.start, span.end)}'` });
+    } else {
+      // A line break, a directive (which only ever starts a line) or the end closes the card.
+      if (tokens.length) {
+        if (isShapingHead(tokens[0]!.tokenType)) marks.push(cards.length);
+        cards.push(buildCard(tokens, diagnostics));
+        tokens.length = 0;
+      }
+      if (found === Scan.End) break;
+      if (found === Scan.Directive) cards.push(directiveCard(text.slice(scanner.start, scanner.end), scanner.start, diagnostics));
+    }
   }
-  if (pieces.length === 1) return pieces[0]!;
-  return { cards: pieces.flatMap((p) => p.cards), comments: pieces.flatMap((p) => p.comments), diagnostics: pieces.flatMap((p) => p.diagnostics) };
+  return { cards, comments, diagnostics, marks };
 }
 
-function scanPiece(text: string, from: number, to: number): RegionParse {
-  const diagnostics: SyntaxDiagnostic[] = [];
-  const lexed = netlistLexer.tokenize(text.slice(from, to));
-  if (from > 0) {
-    for (const token of lexed.tokens) token.startOffset += from;
-    for (const group of Object.values(lexed.groups)) for (const token of group) token.startOffset += from;
-  }
-  for (const error of lexed.errors) {
-    const span = { start: error.offset + from, end: error.offset + from + Math.max(1, error.length) };
-    diagnostics.push({ span, severity: 'error', code: 'syntax-error', message: `unexpected '${text.slice(span.start, span.end)}'` });
-  }
-  const elementCards = splitCards(lexed.tokens).map((tokens) => buildCard(tokens, diagnostics));
-  const directiveCards: Card[] = (lexed.groups.directives ?? []).map((token) => {
-    const parsed = parseDirective(token.image, token.startOffset);
-    // One line may hold any number of problems; spreading them into push() could pass the argument limit.
-    for (const d of parsed.diagnostics) diagnostics.push(d);
-    return { kind: 'directive', directive: parsed.directive, span: spanOfTokens(token, token) };
-  });
-  const comments = (lexed.groups.comments ?? []).map((t) => spanOfTokens(t, t));
-  return { cards: mergeByOffset(elementCards, directiveCards), comments, diagnostics };
+function directiveCard(line: string, start: number, diagnostics: SyntaxDiagnostic[]): Card {
+  const parsed = parseDirective(line, start);
+  // One line may hold any number of problems; spreading them into push() could pass the argument limit.
+  for (const d of parsed.diagnostics) diagnostics.push(d);
+  return { kind: 'directive', directive: parsed.directive, span: { start, end: start + line.length } };
 }
 
 /** Joins region parses (in text order) and runs the passes over the whole card list. */
 function assemble(text: string, title: TitleCard | undefined, regions: RegionParse[]): Netlist {
-  const diagnostics = regions.flatMap((r) => r.diagnostics);
-  const cards = truncateAtEnd(regions.flatMap((r) => r.cards), diagnostics);
-  const items = nestBlocks(cards, diagnostics);
+  const diagnostics = joined(regions.map((r) => r.diagnostics));
+  let marks: number[] = [];
+  let before = 0;
+  for (const region of regions) {
+    for (const mark of region.marks) marks.push(before + mark);
+    before += region.cards.length;
+  }
+  const all = joined(regions.map((r) => r.cards));
+  const cards = truncateAtEnd(all, marks, diagnostics);
+  if (cards.length < all.length) marks = marks.filter((m) => m < cards.length);
+  const items = nestBlocks(cards, diagnostics, marks);
   diagnostics.sort((a, b) => a.span.start - b.span.start);
-  return { text, title, cards: title ? [title, ...cards] : cards, items, comments: regions.flatMap((r) => r.comments), diagnostics };
+  const netlist: Netlist = { text, title, cards: title ? ([title] as Card[]).concat(cards) : cards, items, comments: joined(regions.map((r) => r.comments)), diagnostics };
+  rememberMarks(netlist, marks);
+  return netlist;
+}
+
+/** The lists one after the other; `concat` copies whole arrays, where `flatMap` pushes element by element. */
+function joined<T>(lists: T[][]): T[] {
+  return lists.length === 1 ? lists[0]! : ([] as T[]).concat(...lists);
 }
 
 function spanOfTokens(first: IToken, last: IToken): Span {
@@ -125,26 +150,25 @@ function readTitle(text: string): TitleCard | undefined {
   const line = text.slice(0, end);
   const trimmed = line.trim();
   if (trimmed === '' || trimmed.startsWith('*') || trimmed.startsWith('.')) return undefined;
-  const lexed = netlistLexer.tokenize(line);
-  if (lexed.errors.length === 0 && lexed.tokens.length > 0) {
+  const { tokens, errors } = scanLine(text, end);
+  if (errors === 0 && tokens.length > 0) {
     const probe: SyntaxDiagnostic[] = [];
-    const card = buildCard(lexed.tokens, probe);
+    const card = buildCard(tokens, probe);
     if (probe.every((d) => d.severity !== 'error') && card.kind !== 'opaque') return undefined;
   }
   return { kind: 'title', text: trimmed, span: { start: 0, end } };
 }
 
-function splitCards(tokens: IToken[]): IToken[][] {
-  const cards: IToken[][] = [];
-  let current: IToken[] = [];
-  for (const token of tokens) {
-    if (token.tokenType === Newline) {
-      if (current.length) cards.push(current);
-      current = [];
-    } else current.push(token);
+/** The tokens of the text's first `end` characters as if they were the whole text, and how many lexing errors. */
+function scanLine(text: string, end: number): { tokens: IToken[]; errors: number } {
+  const scanner = new Scanner(text, 0, end);
+  const tokens: IToken[] = [];
+  let errors = 0;
+  for (let found = scanner.next(); found !== Scan.End; found = scanner.next()) {
+    if (found === Scan.Token) tokens.push(scanner.token());
+    else if (found === Scan.Error) errors++;
   }
-  if (current.length) cards.push(current);
-  return cards;
+  return { tokens, errors };
 }
 
 function buildCard(tokens: IToken[], diagnostics: SyntaxDiagnostic[]): Card {
@@ -153,8 +177,10 @@ function buildCard(tokens: IToken[], diagnostics: SyntaxDiagnostic[]): Card {
   const isDot = tokenMatcher(head, DotKeyword);
   if (!isDot && head.tokenType !== Word) {
     diagnostics.push({ span: spanOfTokens(head, head), severity: 'error', code: 'syntax-error', message: `a card starts with an element name or a dot keyword, not '${head.image}'` });
-    return { kind: 'opaque', name: { text: head.image, span: spanOfTokens(head, head) }, words: [], span };
+    return { kind: 'opaque', name: { text: head.image, span: spanOfTokens(head, head) }, words: NONE, span };
   }
+  const flat = readFlatCard(tokens);
+  if (flat) return isDot ? buildDotCard(flat, span, diagnostics) : buildElement(flat, span, diagnostics);
   const parsed = parseCardTokens(tokens);
   if (parsed.error) {
     const at = parsed.error.token ?? tokens[tokens.length - 1]!;
@@ -169,21 +195,9 @@ function buildCard(tokens: IToken[], diagnostics: SyntaxDiagnostic[]): Card {
   return isDot ? buildDotCard(parsed.card!, span, diagnostics) : buildElement(parsed.card!, span, diagnostics);
 }
 
-function mergeByOffset(a: Card[], b: Card[]): Card[] {
-  if (b.length === 0) return a;
-  const out: Card[] = [];
-  let i = 0;
-  let j = 0;
-  while (i < a.length || j < b.length) {
-    if (j >= b.length || (i < a.length && a[i]!.span.start < b[j]!.span.start)) out.push(a[i++]!);
-    else out.push(b[j++]!);
-  }
-  return out;
-}
-
 /** SPICE stops reading at `.end`; what follows is dropped with a hint. */
-function truncateAtEnd(cards: Card[], diagnostics: SyntaxDiagnostic[]): Card[] {
-  const end = cards.findIndex((c) => c.kind === 'end');
+function truncateAtEnd(cards: Card[], marks: readonly number[], diagnostics: SyntaxDiagnostic[]): Card[] {
+  const end = marks.find((m) => cards[m]!.kind === 'end') ?? -1;
   if (end < 0 || end === cards.length - 1) return cards;
   const rest = cards.slice(end + 1).filter((c) => c.kind !== 'directive');
   if (rest.length) {

@@ -1,13 +1,19 @@
 /**
  * Re-parsing after an edit: the cards before and after the changed lines are taken from the
  * previous parse (those after it shifted by the change in length) and only the changed lines,
- * widened to whole cards, are lexed and parsed again. The result equals a full parse of the new
+ * widened to whole cards, are scanned and parsed again. The result equals a full parse of the new
  * text; where that cannot be guaranteed cheaply (the title line, text after `.end`), it is one.
+ *
+ * The cards after the edit carry offsets of the old text. By default they are copied with their
+ * offsets shifted, so the previous tree stays valid for whoever still holds it; a caller that drops
+ * the previous tree may let them be moved instead (`consumePrevious`): the same objects, their
+ * offsets updated in place, no allocation — and unchanged cards keep their identity.
  */
+import { marksOf } from './card-marks';
 import type { Card, Netlist, Span, SyntaxDiagnostic } from './syntax-tree';
 
 /** Diagnostics that the post-passes over the whole card list produce; never reused. */
-export const WHOLE_FILE_CODES: ReadonlySet<string> = new Set(['unclosed-block', 'unmatched-end', 'after-end']);
+export const WHOLE_FILE_CODES: ReadonlySet<string> = new Set(['unclosed-block', 'unmatched-end', 'after-end', 'subckt-depth']);
 
 export interface ReparsePlan {
   /** The changed region of the new text: [start, end), both at line starts (or the text's end). */
@@ -15,53 +21,127 @@ export interface ReparsePlan {
   end: number;
   /** New length minus old length. */
   delta: number;
-  prefix: { cards: Card[]; comments: Span[]; diagnostics: SyntaxDiagnostic[] };
-  suffix: { cards: Card[]; comments: Span[]; diagnostics: SyntaxDiagnostic[] };
+  prefix: KeptRegion;
+  suffix: KeptRegion;
 }
 
-/** What can be kept from `old` for `text`, or undefined when a full parse is the safe choice. */
-export function planReparse(old: Netlist, text: string): ReparsePlan | undefined {
+export interface KeptRegion {
+  cards: Card[];
+  comments: Span[];
+  diagnostics: SyntaxDiagnostic[];
+  /** Indices into `cards` of the cards that shape the file (card-marks.ts). */
+  marks: readonly number[];
+}
+
+/**
+ * What can be kept from `old` for `text`, or undefined when a full parse is the safe choice.
+ * Finding the changed lines costs a comparison of the texts (block by block) and binary searches
+ * over the cards; what is kept after the change is shifted by `delta` (`moved` says how).
+ */
+export function planReparse(old: Netlist, text: string, moved: 'copy' | 'move' = 'copy'): ReparsePlan | undefined {
   if (old.diagnostics.some((d) => d.code === 'after-end')) return undefined;
   const oldText = old.text;
   const delta = text.length - oldText.length;
-  let prefixLength = 0;
-  const limit = Math.min(oldText.length, text.length);
-  while (prefixLength < limit && oldText.charCodeAt(prefixLength) === text.charCodeAt(prefixLength)) prefixLength++;
-  let suffixLength = 0;
-  while (suffixLength < limit - prefixLength && oldText.charCodeAt(oldText.length - 1 - suffixLength) === text.charCodeAt(text.length - 1 - suffixLength)) suffixLength++;
+  const prefixLength = commonPrefix(oldText, text);
+  const suffixLength = commonSuffix(oldText, text, Math.min(oldText.length, text.length) - prefixLength);
   if (old.title && prefixLength <= old.title.span.end + 1) return undefined;
-  const items = [...old.cards.filter((c) => c.kind !== 'title').map((c) => c.span), ...old.comments];
+  const body = old.title ? old.cards.slice(1) : old.cards;
   let start = lineStartAt(text, prefixLength);
   let end = lineEndAfter(text, text.length - suffixLength);
-  for (let moved = true; moved; ) {
-    moved = false;
-    while (start > 0 && isContinuation(text, start)) { start = lineStartAt(text, start - 1); moved = true; }
-    while (end < text.length && isContinuation(text, end)) { end = nextLineStart(text, end); moved = true; }
-    for (const span of items) {
-      if (span.start < start && span.end > start) { start = lineStartAt(text, span.start); moved = true; }
-      const oldEnd = end - delta;
-      if (span.start < oldEnd && span.end > oldEnd) { end = lineEndAfter(text, span.end + delta); moved = true; }
+  for (let widened = true; widened; ) {
+    widened = false;
+    while (start > 0 && isContinuation(text, start)) { start = lineStartAt(text, start - 1); widened = true; }
+    while (end < text.length && isContinuation(text, end)) { end = nextLineStart(text, end); widened = true; }
+    // A card or comment that straddles either end of the region is parsed again whole.
+    for (const spans of [body, old.comments]) {
+      const across = straddling(spans, start);
+      if (across) { start = lineStartAt(text, across.start); widened = true; }
+      const overEnd = straddling(spans, end - delta);
+      if (overEnd) { end = lineEndAfter(text, overEnd.end + delta); widened = true; }
     }
   }
   if (old.title && start <= old.title.span.end) return undefined;
   const oldEnd = end - delta;
-  const before = (s: Span) => s.end <= start;
-  const after = (s: Span) => s.start >= oldEnd;
   const kept = (d: SyntaxDiagnostic) => !WHOLE_FILE_CODES.has(d.code);
-  const body = old.cards.filter((c) => c.kind !== 'title');
-  return {
-    start, end, delta,
-    prefix: {
-      cards: body.filter((c) => before(c.span)),
-      comments: old.comments.filter(before),
-      diagnostics: old.diagnostics.filter((d) => kept(d) && before(d.span)),
-    },
-    suffix: {
-      cards: body.filter((c) => after(c.span)).map((c) => shifted(c, delta)),
-      comments: old.comments.filter(after).map((s) => shifted(s, delta)),
-      diagnostics: old.diagnostics.filter((d) => kept(d) && after(d.span)).map((d) => shifted(d, delta)),
-    },
+  const firstAfter = firstStartingAt(body, oldEnd);
+  const commentsAfter = firstStartingAt(old.comments, oldEnd);
+  const marks = marksOf(old);
+  const prefixCount = firstEndingAfter(body, start);
+  const prefix = {
+    cards: body.slice(0, prefixCount),
+    marks: marks.filter((m) => m < prefixCount),
+    comments: old.comments.slice(0, firstEndingAfter(old.comments, start)),
+    diagnostics: old.diagnostics.filter((d) => kept(d) && d.span.end <= start),
   };
+  // Diagnostics are copied before any card moves: a diagnostic may hold the very span of a node.
+  const diagnostics = old.diagnostics.filter((d) => kept(d) && d.span.start >= oldEnd).map((d) => shifted(d, delta));
+  const shift = moved === 'move' ? movedBy : shifted;
+  const suffix = {
+    cards: shiftAll(body.slice(firstAfter), delta, shift),
+    comments: shiftAll(old.comments.slice(commentsAfter), delta, shift),
+    diagnostics,
+    marks: marks.filter((m) => m >= firstAfter).map((m) => m - firstAfter),
+  };
+  return { start, end, delta, prefix, suffix };
+}
+
+/** Items in text order that never overlap one another, each with a span (or a span itself). */
+type Spanned = { span: Span } | Span;
+const spanOf = (item: Spanned): Span => ('span' in item ? item.span : item);
+
+/** The item that starts before `offset` and ends after it, if any (binary search). */
+function straddling(items: readonly Spanned[], offset: number): Span | undefined {
+  const index = firstStartingAt(items, offset) - 1;
+  const span = index >= 0 ? spanOf(items[index]!) : undefined;
+  return span && span.start < offset && span.end > offset ? span : undefined;
+}
+
+/** The index of the first item that starts at or after `offset`. */
+function firstStartingAt(items: readonly Spanned[], offset: number): number {
+  let low = 0;
+  let high = items.length;
+  while (low < high) {
+    const mid = (low + high) >>> 1;
+    if (spanOf(items[mid]!).start < offset) low = mid + 1;
+    else high = mid;
+  }
+  return low;
+}
+
+/** The index of the first item that ends after `offset` (items end in order too, never overlapping). */
+function firstEndingAfter(items: readonly Spanned[], offset: number): number {
+  let low = 0;
+  let high = items.length;
+  while (low < high) {
+    const mid = (low + high) >>> 1;
+    if (spanOf(items[mid]!).end <= offset) low = mid + 1;
+    else high = mid;
+  }
+  return low;
+}
+
+/** How far two texts agree from the start, compared a block at a time (a block compare is a memcmp). */
+function commonPrefix(a: string, b: string): number {
+  const limit = Math.min(a.length, b.length);
+  let at = 0;
+  while (at + BLOCK <= limit && a.slice(at, at + BLOCK) === b.slice(at, at + BLOCK)) at += BLOCK;
+  while (at < limit && a.charCodeAt(at) === b.charCodeAt(at)) at++;
+  return at;
+}
+
+/** How far two texts agree from the end, at most `limit` characters. */
+function commonSuffix(a: string, b: string, limit: number): number {
+  let length = 0;
+  while (length + BLOCK <= limit && a.slice(a.length - length - BLOCK, a.length - length) === b.slice(b.length - length - BLOCK, b.length - length)) length += BLOCK;
+  while (length < limit && a.charCodeAt(a.length - 1 - length) === b.charCodeAt(b.length - 1 - length)) length++;
+  return length;
+}
+const BLOCK = 4096;
+
+function shiftAll<T>(items: T[], delta: number, shift: <U>(value: U, delta: number) => U): T[] {
+  if (delta === 0) return items;
+  for (let i = 0; i < items.length; i++) items[i] = shift(items[i]!, delta);
+  return items;
 }
 
 function isLineBreak(code: number): boolean {
@@ -103,12 +183,35 @@ function isContinuation(text: string, offset: number): boolean {
 
 /** A copy with every offset (`start`/`end` numbers, in spans and expressions) moved by `delta`. */
 export function shifted<T>(value: T, delta: number): T {
-  if (delta === 0) return value;
-  if (Array.isArray(value)) return value.map((v) => shifted(v, delta)) as T;
-  if (value === null || typeof value !== 'object') return value;
-  const out: Record<string, unknown> = {};
-  for (const [k, v] of Object.entries(value as Record<string, unknown>)) {
-    out[k] = (k === 'start' || k === 'end') && typeof v === 'number' ? v + delta : shifted(v, delta);
+  if (delta === 0 || value === null || typeof value !== 'object') return value;
+  if (Array.isArray(value)) return (value.length === 0 ? value : value.map((v) => shifted(v, delta))) as T;
+  // A spread copy keeps the original's layout (one hidden class per node kind), unlike building a new object key by key.
+  const out = { ...value } as Record<string, unknown>;
+  for (const key in out) {
+    const field = out[key];
+    if (typeof field === 'number') {
+      if (key === 'start' || key === 'end') out[key] = field + delta;
+    } else if (field !== null && typeof field === 'object') out[key] = shifted(field, delta);
   }
   return out as T;
+}
+
+/**
+ * The same value with its offsets moved in place: no copy, so the node keeps its identity (what
+ * re-uses work per card needs) and the old tree that held it no longer describes the old text.
+ */
+export function movedBy<T>(value: T, delta: number): T {
+  if (delta === 0 || value === null || typeof value !== 'object') return value;
+  if (Array.isArray(value)) {
+    for (const item of value) movedBy(item, delta);
+    return value;
+  }
+  const fields = value as Record<string, unknown>;
+  for (const key in fields) {
+    const field = fields[key];
+    if (typeof field === 'number') {
+      if (key === 'start' || key === 'end') fields[key] = field + delta;
+    } else if (field !== null && typeof field === 'object') movedBy(field, delta);
+  }
+  return value;
 }

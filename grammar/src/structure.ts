@@ -9,26 +9,44 @@ type OpenBlock = { header: SubcktCard; body: Item[]; kind: 'subckt-block' } | { 
  */
 export const MAX_BLOCK_DEPTH = 64;
 
-export function nestBlocks(cards: Card[], diagnostics: SyntaxDiagnostic[]): Item[] {
+/**
+ * `marks`, when given, are the indices of every `.subckt`, `.ends`, `.lib`, `.endl` (and `.end`)
+ * card (card-marks.ts): the cards between them are placed as a run without reading each one.
+ */
+export function nestBlocks(cards: Card[], diagnostics: SyntaxDiagnostic[], marks?: readonly number[]): Item[] {
   const top: Item[] = [];
   const stack: OpenBlock[] = [];
   const current = (): Item[] => (stack.length ? stack[stack.length - 1]!.body : top);
   // Blocks opened past the limit and not yet closed: their cards are left out of the items.
   let tooDeep = 0;
-  for (const card of cards) {
+  const placeRun = (from: number, to: number): void => {
+    if (tooDeep > 0) return;
+    const body = current();
+    for (let i = from; i < to; i++) body.push(cards[i]!);
+  };
+  const place = (card: Card): void => {
     const opens = card.kind === 'subckt' || (card.kind === 'lib' && !card.path && card.section !== undefined);
     if (tooDeep > 0 || (opens && stack.length >= MAX_BLOCK_DEPTH)) {
       if (opens && tooDeep++ === 0) {
         diagnostics.push({ span: card.span, severity: 'error', code: 'subckt-depth', message: `definitions nest deeper than ${MAX_BLOCK_DEPTH} levels (limit: definition nesting); this block and everything in it are not read` });
       } else if (card.kind === 'ends' || card.kind === 'endl') tooDeep--;
-      continue;
+      return;
     }
     if (card.kind === 'subckt') stack.push({ kind: 'subckt-block', header: card, body: [] });
     else if (card.kind === 'lib' && !card.path && card.section) stack.push({ kind: 'lib-section', header: card, body: [] });
     else if (card.kind === 'ends') closeSubckt(card, stack, current, diagnostics);
     else if (card.kind === 'endl') closeLib(card, stack, current, diagnostics);
     else current().push(card);
-  }
+  };
+  if (marks) {
+    let next = 0;
+    for (const mark of marks) {
+      placeRun(next, mark);
+      place(cards[mark]!);
+      next = mark + 1;
+    }
+    placeRun(next, cards.length);
+  } else for (const card of cards) place(card);
   while (stack.length) {
     const open = stack.pop()!;
     const what = open.kind === 'subckt-block' ? `.subckt ${open.header.name?.text ?? ''}`.trim() : `.lib ${open.header.section?.text ?? ''}`;
