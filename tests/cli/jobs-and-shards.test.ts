@@ -34,16 +34,16 @@ function bridge(k: number): string {
 function library(crossIncludes: boolean): string {
   const dir = mkdtempSync(join(tmpdir(), 'rectilens-jobs-'));
   for (let k = 1; k <= 5; k++) writeFileSync(join(dir, `b${k}.cir`), bridge(k));
-  writeFileSync(join(dir, 'shared.inc'), 'R9 q 0 2k2\n');
+  writeFileSync(join(dir, 'common.inc'), 'R9 q 0 2k2\n');
   if (crossIncludes) {
-    writeFileSync(join(dir, 'a-first.cir'), 'First (our own)\n.include "b2.cir"\n.include "shared.inc"\nR1 a 0 1k\n');
-    writeFileSync(join(dir, 'z-last.cir'), 'Last (our own)\n.include "b1.cir"\n.include "shared.inc"\nR1 a 0 4k7\n');
+    writeFileSync(join(dir, 'a-first.cir'), 'First (our own)\n.include "b2.cir"\n.include "common.inc"\nR1 a 0 1k\n');
+    writeFileSync(join(dir, 'z-last.cir'), 'Last (our own)\n.include "b1.cir"\n.include "common.inc"\nR1 a 0 4k7\n');
   }
   writeFileSync(join(dir, 'broken.cir'), 'broken\nD1 a\n');
   mkdirSync(join(dir, 'sub'));
   writeFileSync(join(dir, 'sub', 'rectilens.json'), JSON.stringify({ partsFiles: ['parts.json'], notASetting: 1 }));
   writeFileSync(join(dir, 'sub', 'parts.json'), JSON.stringify({ version: 1, parts: [] }));
-  writeFileSync(join(dir, 'sub', 'c.cir'), `${bridge(6)}.include "../shared.inc"\n`);
+  writeFileSync(join(dir, 'sub', 'c.cir'), `${bridge(6)}.include "../common.inc"\n`);
   return dir;
 }
 
@@ -66,7 +66,7 @@ describe('check --jobs', () => {
     const paths: string[] = report.files.map((f: { path: string }) => f.path);
     const roots = ['a-first.cir', 'b1.cir', 'b2.cir', 'b3.cir', 'b4.cir', 'b5.cir', 'broken.cir', 'sub/c.cir', 'z-last.cir'].map((n) => join(dir, n));
     expect(paths.slice(0, roots.length)).toEqual(roots);
-    expect(paths.filter((p) => p === join(dir, 'shared.inc'))).toHaveLength(1);
+    expect(paths.filter((p) => p === join(dir, 'common.inc'))).toHaveLength(1);
     // Every bridge was solved: one rectifier in each of b1…b5 and sub/c, and in a-first and z-last,
     // which include b2 and b1.
     expect(report.files.filter((f: { rectifiers: unknown[] }) => f.rectifiers.length === 1)).toHaveLength(8);

@@ -8,15 +8,10 @@ import { fileURLToPath } from 'node:url';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { CodeActionRequest, type CodeAction, type Diagnostic } from 'vscode-languageserver-protocol/node';
 import { startTestClient, type TestClient } from './protocol-client';
+import { PACKAGED_BRIDGE } from './packaged-bridge';
 
 const URI = 'file:///w/packaged.cir';
-// A packaged 230 V bridge of our own whose 440 V diodes lack margin at high line (358 V > 0.8 × 440 V = 352 V).
-const TEXT = [
-  'packaged bridge', '*@ mains 230V 50Hz', '*@ load 20W', '*@ rate DR vrrm=440V ifav=1A ifsm=60A tjmax=150C rthja=80',
-  '.subckt BR4 ac1 ac2 p n', 'D1 ac1 p DR', 'D2 ac2 p DR', 'D3 n ac1 DR', 'D4 n ac2 DR', '.ends BR4',
-  'VAC L N SIN(0 325 50)', 'RS L A 10', 'XB A N P 0 BR4', 'CB P 0 47u',
-  '.model DR D(IS=5n N=1.8 RS=0.05)', '.end', '',
-].join('\n');
+const TEXT = PACKAGED_BRIDGE;
 
 let client: TestClient;
 let diagnostics: Diagnostic[];

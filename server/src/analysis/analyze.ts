@@ -7,7 +7,8 @@ import { parseNetlist, type Netlist } from '../../../grammar/src/index';
 import { elaborate, isRefusal, type FileText, type FlatCircuit, type ReadRefusal } from '../circuit/index';
 import { resolvePolicy, type DeratingPolicy, type PartsFile } from '../ratings/index';
 import { recognizeRectifiers, type NearMiss } from '../recognize/index';
-import { applyRules } from '../rules/registry';
+import { applyRules, type RuleInput } from '../rules/registry';
+import { compactAfterRules } from '../rules/rule-context';
 import { allowance, boundMessages, compareFindings, withoutRepeats, type Finding } from '../findings/index';
 import { includedErrorFindings, withIncludingPlace } from './included-errors';
 import { analyseRectifiers, type RectifierAnalysis } from '../equivalent/index';
@@ -35,6 +36,11 @@ export interface AnalysisInput {
   solutionCache?: SolutionCache;
   /** Overrides of the hard limits (tests lower them); see limits.ts. */
   limits?: Partial<AnalysisLimits>;
+  /**
+   * For an adapter that keeps analyses (the language server): `FileAnalysis.flat` is cut down
+   * after the rules to what views, fixes and hovers read (rules/rule-context.ts `compactAfterRules`).
+   */
+  compactFlat?: boolean;
 }
 
 export interface FileAnalysis {
@@ -104,9 +110,10 @@ function analyzeRoot(uri: string, input: AnalysisInput, cache: Map<string, Netli
     ...solverFindings(analyses),
   ];
   const syntax = [...parsed].flatMap(([fileUri, n]) => n.diagnostics.map((d) => ({ uri: fileUri, ...d })));
-  const ruleFindings = applyRules({
+  const ruleInput: RuleInput = {
     rootUri: uri, netlist, flat, rectifiers: analyses, nearMisses: recognition.nearMisses, policy, partsFiles: input.partsFiles ?? [], parsed, solve,
-  });
+  };
+  const ruleFindings = applyRules(ruleInput);
   // The one place `*@ allow` applies: to every judgement about the design (recognition, assumed
   // defaults, limits, rules, errors behind an include). What is wrong with the text itself
   // (syntax, elaboration) is not a judgement and no allowance hides it.
@@ -116,7 +123,8 @@ function analyzeRoot(uri: string, input: AnalysisInput, cache: Map<string, Netli
   const included = includedErrorFindings(uri, parsed, own).filter((f) => !allowed(f));
   const findings = boundMessages(withIncludingPlace(uri, parsed, [...own, ...included])).sort(compareFindings);
   return {
-    uri, text: netlist.text, netlist, findings, dependencies: flat.dependencies.filter((d) => d !== uri), parsed, flat, policy,
+    uri, text: netlist.text, netlist, findings, dependencies: flat.dependencies.filter((d) => d !== uri), parsed,
+    flat: input.compactFlat ? compactAfterRules(ruleInput) : flat, policy,
     rectifiers: analyses, nearMisses: recognition.nearMisses,
   };
 }

@@ -181,7 +181,7 @@ class Elaborator {
     const lookup = instanceScope(
       { params: header.params, uri: def.uri },
       { params: card.params, uri: frame.uri, lookup: frame.lookup },
-      paramsOf(body), global, this.sink,
+      (def.params ??= paramsOf(body)), global, this.sink,
     );
     const step = { name: card.name.text, subckt: key(header.name ?? card.subckt!), uri: frame.uri, span: card.span, nameSpan: card.name.span };
     const keyPrefix = `${frame.keyPrefix}${key(card.name)}.`;

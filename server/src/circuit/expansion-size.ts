@@ -6,6 +6,7 @@
  */
 import { key, type SubcktBlock } from '../../../grammar/src/index';
 import type { PlacedItem } from './includes';
+import type { PlacedParam } from './scope';
 
 /** A subcircuit definition and where it is written; its expanded body and nested definitions once needed. */
 export interface SubcktDef {
@@ -13,6 +14,8 @@ export interface SubcktDef {
   uri: string;
   body?: PlacedItem[];
   own?: Map<string, SubcktDef>;
+  /** The body's `.param` lines, gathered once for every instance of the definition. */
+  params?: PlacedParam[];
 }
 
 /** Definitions visible in a scope: its own, then the enclosing ones. */

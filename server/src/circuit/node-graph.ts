@@ -29,11 +29,13 @@ export function buildNodeGraph(flat: FlatCircuit): NodeGraph {
   const byKey = new Map<string, FlatElement>();
   for (const element of flat.elements) {
     byKey.set(element.key, element);
-    element.terminals.forEach((t, terminal) => {
-      let list = byNode.get(t.node);
-      if (!list) byNode.set(t.node, (list = []));
-      list.push({ element, terminal });
-    });
+    const terminals = element.terminals;
+    for (let terminal = 0; terminal < terminals.length; terminal++) {
+      const node = terminals[terminal]!.node;
+      const list = byNode.get(node);
+      if (list) list.push({ element, terminal });
+      else byNode.set(node, [{ element, terminal }]);
+    }
   }
   const instancesByNode = new Map<string, FlatCircuit['instances'][number][]>();
   for (const instance of flat.instances) {

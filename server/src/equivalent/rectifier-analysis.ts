@@ -63,7 +63,7 @@ export function analyseRectifiers(
     const corners = cornersFor(rectifier, circuit, flat, settings);
     const solution = solve(circuit, corners);
     periods += solverPeriods(solution);
-    const devices = rated.map((d, k): DeviceAnalysis => ({ ...d, figures: deviceFiguresOf(circuit, solution, k) }));
+    const devices = rated.map((d, k): DeviceAnalysis => ({ ...d, figures: figuresOf(circuit, solution, k) }));
     const shares = new Map(rectifier.surroundings.capacitors.flatMap((g) => [...stringSharesOf(g, parts.capacitors, resistors)]));
     const capacitors = [...(parts.capacitors ?? [])].map(([name, ratings]): CapacitorAnalysis => {
       const stress = capacitorStressOf(rectifier, flat, solution, name, ratings);
@@ -77,6 +77,20 @@ export function analyseRectifiers(
     analyses.push(analysis);
   }
   return { analyses, findings };
+}
+
+/**
+ * Each device's figures, once per solution object: a cached solution is the one for exactly this
+ * circuit and these corners (its key is their JSON), and the figures are a function of those, so
+ * an edit that leaves a rectifier's inputs alone gets the very same figures objects back. The
+ * language server relies on that sameness to post only what changed (lsp/posted-analysis.ts).
+ */
+const figuresBySolution = new WeakMap<RectifierSolution, DeviceFigures[]>();
+
+function figuresOf(circuit: EquivalentCircuit, solution: RectifierSolution, k: number): DeviceFigures {
+  let known = figuresBySolution.get(solution);
+  if (!known) figuresBySolution.set(solution, (known = []));
+  return (known[k] ??= deviceFiguresOf(circuit, solution, k));
 }
 
 /** The solver's work for one rectifier: periods integrated, each corner's shooting iterations and its recorded period. */

@@ -4,24 +4,40 @@
  */
 import type { Fix } from './finding';
 
-export interface DistinctFix {
-  fix: Fix;
+export interface DistinctFix<T = Fix> {
+  fix: T;
   /** The findings (by their index in the caller's list) that offered it. */
   offeredBy: number[];
 }
 
-/** `fixesOf[i]` are the fixes of finding `findings[i]`; fixes with the same edits are merged, in first-offered order. */
-export function distinctFixes(findings: readonly number[], fixesOf: readonly (readonly Fix[] | undefined)[]): DistinctFix[] {
-  const byEdits = new Map<string, DistinctFix>();
+/**
+ * `fixesOf[i]` are the fixes (or offers) of finding `findings[i]`; those with the same key (for
+ * finished fixes `editsKey`, their edits) are merged, in first-offered order. Each finding keeps at most one
+ * preferred fix, its first: an editor applies the preferred fix of a diagnostic without asking.
+ */
+export function distinctFixes<T extends { preferred?: boolean }>(
+  findings: readonly number[], fixesOf: readonly (readonly T[] | undefined)[], keyOf: (fix: T) => string,
+): DistinctFix<T>[] {
+  const byKey = new Map<string, DistinctFix<T>>();
   findings.forEach((finding, i) => {
     for (const fix of fixesOf[i] ?? []) {
-      const key = JSON.stringify(fix.edits.map((e) => [e.uri, e.span.start, e.span.end, e.newText]));
-      const known = byEdits.get(key);
+      const key = keyOf(fix);
+      const known = byKey.get(key);
       if (known) {
         if (!known.offeredBy.includes(finding)) known.offeredBy.push(finding);
         if (fix.preferred && !known.fix.preferred) known.fix = { ...known.fix, preferred: true };
-      } else byEdits.set(key, { fix, offeredBy: [finding] });
+      } else byKey.set(key, { fix, offeredBy: [finding] });
     }
   });
-  return [...byEdits.values()];
+  return onePreferredPerFinding([...byKey.values()]);
+}
+
+function onePreferredPerFinding<T extends { preferred?: boolean }>(fixes: DistinctFix<T>[]): DistinctFix<T>[] {
+  const served = new Set<number>();
+  return fixes.map((d) => {
+    if (!d.fix.preferred) return d;
+    const clash = d.offeredBy.some((f) => served.has(f));
+    d.offeredBy.forEach((f) => served.add(f));
+    return clash ? { ...d, fix: { ...d.fix, preferred: false } } : d;
+  });
 }

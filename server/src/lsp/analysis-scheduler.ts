@@ -10,6 +10,7 @@ import type { AnalysisSettings } from '../analysis/settings';
 import type { PartsFile } from '../ratings/index';
 import type { AnalysisStop, AnalysisWorkerHost } from './analysis-worker-host';
 import type { ViewContent, ViewRequest } from '../protocol/custom-protocol';
+import { mainThreadParse, restoredForm } from './posted-analysis';
 
 /** How long the editor waits for one file's analysis before it stops it and says so. */
 export const EDITOR_PATIENCE_MS = 60_000;
@@ -103,6 +104,11 @@ export class AnalysisScheduler {
     return this.worker.fixes(file.uri, current.sequence, findings);
   }
 
+  /** The worker's number of a root's last finished analysis: code actions planned on it are resolved against it. */
+  sequenceOf(uri: string): number | undefined {
+    return this.results.get(uri)?.sequence;
+  }
+
   viewOf(request: ViewRequest): Promise<ViewContent | null> {
     const current = this.results.get(request.uri);
     return current ? this.worker.view(request.uri, current.sequence, request) : Promise.resolve(null);
@@ -165,13 +171,19 @@ export class AnalysisScheduler {
     const documents = this.hooks.openDocuments();
     const version = documents.find((d) => d.uri === uri)?.version;
     const open = new Map(documents.map((d) => [d.uri, d.text]));
-    const outcome = await this.worker.analyse(uri, open, this.hooks.settings(uri), this.hooks.partsFiles(), this.patienceMs);
+    // The answer may point into the analysis held now (posted-analysis.ts), so that one is kept for it.
+    const held = this.results.get(uri);
+    const analysed = this.worker.analyse(uri, open, this.hooks.settings(uri), this.hooks.partsFiles(), this.patienceMs, held?.sequence);
+    // The root's parse is made here while the worker analyses, instead of crossing in the answer (posted-analysis.ts).
+    const parsedHere = mainThreadParse(open.get(uri), held?.file.netlist);
+    const outcome = await analysed;
     if (outcome.kind === 'stopped') {
       this.results.delete(uri);
       this.hooks.onStopped(uri, version, outcome);
     } else if (outcome.file) {
-      this.results.set(uri, { file: outcome.file, sequence: outcome.sequence, version });
-      this.hooks.onAnalysed(outcome.file, version);
+      const file = restoredForm(outcome.file, { text: open.get(uri), parsed: parsedHere, held: held?.file });
+      this.results.set(uri, { file, sequence: outcome.sequence, version });
+      this.hooks.onAnalysed(file, version);
     }
   }
 }

@@ -5,12 +5,12 @@
  * this: it has no one waiting).
  */
 import { Worker } from 'node:worker_threads';
-import type { FileAnalysis } from '../analysis/analyze';
-import type { Fix } from '../findings/index';
+import type { Fix, OfferSummary } from '../findings/index';
 import type { AnalysisSettings } from '../analysis/settings';
 import type { PartsFile } from '../ratings/index';
-import type { DocumentUpdate, PostedAnswer, WorkerAnswer, WorkerRequest, WorkerSetup } from './analysis-messages';
+import type { DocumentUpdate, PostedAnswer, ResolveOutcome, WorkerAnswer, WorkerRequest, WorkerSetup } from './analysis-messages';
 import type { ViewContent, ViewRequest } from '../protocol/custom-protocol';
+import type { PostedAnalysis } from './posted-analysis';
 
 /** One worker's heap; a file needing more is reported, not analysed, and the server carries on. */
 export const DEFAULT_WORKER_HEAP_MB = 3072;
@@ -32,7 +32,7 @@ export interface AnalysisStop {
 }
 
 export type AnalysisOutcome =
-  | { kind: 'analysed'; file: FileAnalysis | undefined; sequence: number }
+  | { kind: 'analysed'; file: PostedAnalysis | undefined; sequence: number }
   | ({ kind: 'stopped' } & AnalysisStop);
 
 interface Waiting {
@@ -50,8 +50,8 @@ export class AnalysisWorkerHost {
   constructor(private readonly options: WorkerHostOptions) {}
 
   /** Analyses a root; `patienceMs` bounds how long the editor waits before abandoning it. */
-  async analyse(uri: string, open: ReadonlyMap<string, string>, settings: AnalysisSettings, partsFiles: readonly PartsFile[], patienceMs: number): Promise<AnalysisOutcome> {
-    const request: WorkerRequest = { kind: 'analyse', uri, documents: this.updatesFor(open), settings, partsFiles };
+  async analyse(uri: string, open: ReadonlyMap<string, string>, settings: AnalysisSettings, partsFiles: readonly PartsFile[], patienceMs: number, held?: number): Promise<AnalysisOutcome> {
+    const request: WorkerRequest = { kind: 'analyse', uri, documents: this.updatesFor(open), settings, partsFiles, ...(held === undefined ? {} : { held }) };
     let timer: NodeJS.Timeout | undefined;
     const overdue = new Promise<AnalysisOutcome>((resolve) => {
       timer = setTimeout(() => {
@@ -75,6 +75,18 @@ export class AnalysisWorkerHost {
   async fixes(uri: string, sequence: number, findings: number[]): Promise<Fix[][]> {
     const answer = await this.post({ kind: 'fixes', uri, sequence, findings }).catch(() => undefined);
     return answer?.kind === 'fixes' ? answer.fixes : findings.map(() => []);
+  }
+
+  /** The offers of the given findings without their trial solves; none if the worker no longer has the analysis. */
+  async plans(uri: string, sequence: number, findings: number[]): Promise<OfferSummary[][]> {
+    const answer = await this.post({ kind: 'plans', uri, sequence, findings }).catch(() => undefined);
+    return answer?.kind === 'plans' ? answer.plans : findings.map(() => []);
+  }
+
+  /** One offer of a posted analysis verified by its trial solves. */
+  async resolve(uri: string, sequence: number, finding: number, offer: number): Promise<ResolveOutcome> {
+    const answer = await this.post({ kind: 'resolve', uri, sequence, finding, offer }).catch(() => undefined);
+    return answer?.kind === 'resolved' ? answer.outcome : { kind: 'gone' };
   }
 
   async view(uri: string, sequence: number, request: ViewRequest): Promise<ViewContent | null> {

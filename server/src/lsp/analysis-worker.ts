@@ -5,14 +5,17 @@
  *
  * It keeps what makes the next analysis cheap (the parse of each file, the solution cache) and the
  * last two analyses of each root, so that quick fixes and views are computed on the analysis the
- * main thread is showing even when a newer one has just been posted.
+ * main thread is showing even when a newer one has just been posted; the older of the two goes
+ * when the next analysis of that root is asked for. What it posts is the compact form the main
+ * thread answers from (posted-analysis.ts).
  */
 import { parentPort, workerData } from 'node:worker_threads';
 import { analyze, type FileAnalysis } from '../analysis/analyze';
-import type { Finding } from '../findings/index';
+import { offeredFixes, summariseOffer, verifyOffer, type Finding, type Verified } from '../findings/index';
 import type { SolutionCache } from '../solve/index';
 import { memoisedSolver } from '../solve/index';
-import type { PostedAnswer, PostedRequest, WorkerAnswer, WorkerRequest, WorkerSetup } from './analysis-messages';
+import type { PostedAnswer, PostedRequest, ResolveOutcome, WorkerAnswer, WorkerRequest, WorkerSetup } from './analysis-messages';
+import { postedForm } from './posted-analysis';
 import { renderView } from './views';
 import { createWorkspaceReader } from './workspace-reader';
 
@@ -41,19 +44,33 @@ function handle(request: WorkerRequest): WorkerAnswer {
         if (update.text === null) openDocuments.delete(update.uri);
         else openDocuments.set(update.uri, update.text);
       }
-      const previous = kept.get(request.uri)?.[0]?.file;
+      // The main thread asks for the next analysis only once it has the last one, so from here it
+      // asks about none older than that: the one before it is released before the new one is built.
+      const previous = kept.get(request.uri)?.[0];
+      if (previous) kept.set(request.uri, [previous]);
+      const base = request.held === undefined ? undefined : keptAnalysis(request.uri, request.held);
       const file = analyze({
-        roots: [request.uri], readText, settings: request.settings, partsFiles: request.partsFiles, solutionCache,
-        previousParse: (target) => previous?.parsed.get(target),
+        roots: [request.uri], readText, settings: request.settings, partsFiles: request.partsFiles, solutionCache, compactFlat: true,
+        previousParse: (target) => previous?.file.parsed.get(target),
       }).files.get(request.uri);
       if (!file) return { kind: 'analysed', file: undefined, sequence: 0 };
       const sequence = nextSequence++;
       kept.set(request.uri, [{ sequence, file }, ...(kept.get(request.uri) ?? []).slice(0, 1)]);
-      return { kind: 'analysed', file: { ...file, findings: file.findings.map(withoutFixes) }, sequence };
+      return { kind: 'analysed', file: postedForm({ ...file, findings: file.findings.map(withoutFixes) }, openDocuments.get(request.uri), base), sequence };
     }
     case 'fixes': {
       const file = keptAnalysis(request.uri, request.sequence);
       return { kind: 'fixes', fixes: request.findings.map((index) => file?.findings[index]?.fixes ?? []) };
+    }
+    case 'plans': {
+      const file = keptAnalysis(request.uri, request.sequence);
+      const findings = request.findings.map((index) => file?.findings[index]);
+      return { kind: 'plans', plans: findings.map((f) => (f ? offeredFixes(f).map(summariseOffer) : [])) };
+    }
+    case 'resolve': {
+      const finding = keptAnalysis(request.uri, request.sequence)?.findings[request.finding];
+      const offer = finding && offeredFixes(finding)[request.offer];
+      return { kind: 'resolved', outcome: offer ? outcomeOf(verifyOffer(offer)) : { kind: 'gone' } };
     }
     case 'view':
       return { kind: 'view', view: renderView(keptAnalysis(request.uri, request.sequence), request.request, memoisedSolver(solutionCache)) };
@@ -67,8 +84,15 @@ function keptAnalysis(uri: string, sequence: number): FileAnalysis | undefined {
   return kept.get(uri)?.find((k) => k.sequence === sequence)?.file;
 }
 
+function outcomeOf(verified: Verified): ResolveOutcome {
+  return verified.fix ? { kind: 'fix', fix: verified.fix } : { kind: 'unverified', reason: verified.reason };
+}
+
 /** A copy of a finding without its lazily computed fixes (reading them would run the trial solves). */
 function withoutFixes(finding: Finding): Finding {
-  const { fixes: _lazy, ...fields } = Object.getOwnPropertyDescriptors(finding);
-  return Object.defineProperties({}, fields) as Finding;
+  // Field by field, never through `fixes`: a rest pattern would read that getter. Plain assignment
+  // is also several times cheaper than copying descriptors, for the hundreds of findings of each edit.
+  const copy: Record<string, unknown> = {};
+  for (const key of Object.keys(finding)) if (key !== 'fixes') copy[key] = (finding as unknown as Record<string, unknown>)[key];
+  return copy as unknown as Finding;
 }

@@ -14,7 +14,7 @@ const CAPABILITIES: InitializeResult['capabilities'] = {
   hoverProvider: true,
   inlayHintProvider: true,
   codeLensProvider: { resolveProvider: false },
-  codeActionProvider: { codeActionKinds: [CodeActionKind.QuickFix] },
+  codeActionProvider: { codeActionKinds: [CodeActionKind.QuickFix], resolveProvider: true },
   documentSymbolProvider: true,
   definitionProvider: true,
   referencesProvider: true,
@@ -34,6 +34,12 @@ export function registerConfiguration(state: ServerState): void {
     state.progressSupport = Boolean(params.capabilities.window?.workDoneProgress);
     const formats = params.capabilities.textDocument?.hover?.contentFormat;
     state.hoverMarkdown = !formats || formats.includes('markdown');
+    // The edit is left to `codeAction/resolve` only for an editor that resolves it and keeps `data` for the resolve.
+    const codeAction = params.capabilities.textDocument?.codeAction;
+    state.codeActionResolve = {
+      edit: Boolean(codeAction?.dataSupport && codeAction.resolveSupport?.properties.includes('edit')),
+      disabled: Boolean(codeAction?.disabledSupport),
+    };
     state.watchSupport = Boolean(params.capabilities.workspace?.didChangeWatchedFiles?.dynamicRegistration);
     state.refreshSupport = {
       inlayHints: Boolean(params.capabilities.workspace?.inlayHint?.refreshSupport),

@@ -1,38 +1,19 @@
-/** Hover, inlay hints, code lenses, quick fixes and the views: the features that show analysis results. */
-import { CodeActionKind, InlayHintKind, MarkupKind, type CodeAction, type CodeLens, type InlayHint } from 'vscode-languageserver/node';
-import { distinctFixes, findingsInRange } from '../findings/index';
+/** Hover, inlay hints, code lenses, quick fixes (code-actions.ts) and the views: the features that show analysis results. */
+import { InlayHintKind, MarkupKind, type CodeLens, type InlayHint } from 'vscode-languageserver/node';
 import { codeLensesOf } from '../editor/code-lens';
 import { inlayHintsIn } from '../editor/inlay-hints';
 import { hoverInFile } from '../editor/stress-hover';
 import { markdownToPlainText } from '../presentation/markup';
 import { VIEW_REQUEST, type ViewRequest } from '../protocol/custom-protocol';
-import { toRange, toWorkspaceEdit } from './convert';
+import { registerCodeActions } from './code-actions';
+import { toRange } from './convert';
 import type { Guard } from './request-guard';
 import type { ServerState } from './server-state';
 
 export function registerEditorFeatures(state: ServerState, guard: Guard): void {
   const { connection, scheduler } = state;
 
-  connection.onCodeAction(guard([], async (params) => {
-    // Every action we offer is a quick fix; a request for other kinds only (source actions, refactors) gets none.
-    if (!wantsKind(params.context.only, CodeActionKind.QuickFix)) return [];
-    const place = await state.freshPlaceIn(params.textDocument.uri, params.range.start);
-    if (!place) return [];
-    const { file, lines } = place;
-    const inRange = findingsInRange(file.findings, file.uri, place.offset, lines.offsetAt(params.range.end));
-    // The fixes run trial solves, so the worker computes them on its copy of this analysis.
-    const fixes = await scheduler.fixesOf(file, inRange);
-    return distinctFixes(inRange, fixes).map(({ fix, offeredBy }): CodeAction => {
-      const codes = new Set(offeredBy.map((index) => file.findings[index]!.code));
-      return {
-        title: fix.title,
-        kind: CodeActionKind.QuickFix,
-        isPreferred: fix.preferred,
-        diagnostics: params.context.diagnostics.filter((d) => codes.has(String(d.code))),
-        edit: toWorkspaceEdit(fix.edits, state.linesOf),
-      };
-    });
-  }));
+  registerCodeActions(state, guard);
 
   connection.onHover(guard(null, async (params) => {
     const place = await state.freshPlaceIn(params.textDocument.uri, params.position);
@@ -60,9 +41,4 @@ export function registerEditorFeatures(state: ServerState, guard: Guard): void {
   }));
 
   connection.onRequest(VIEW_REQUEST, guard(null, (params: ViewRequest) => scheduler.viewOf(params)));
-}
-
-/** Whether a code-action request's `only` filter admits a kind (a requested kind covers its sub-kinds). */
-export function wantsKind(only: readonly string[] | undefined, kind: string): boolean {
-  return !only || only.some((k) => k === kind || kind.startsWith(`${k}.`));
 }

@@ -45,6 +45,8 @@ export class ServerState {
   hoverMarkdown = true;
   /** Whether the editor shows server-created progress (`window.workDoneProgress`). */
   progressSupport = false;
+  /** Whether the editor resolves a code action's edit later (`codeAction/resolve`) and can mark one disabled. */
+  codeActionResolve = { edit: false, disabled: false };
   /** Whether the editor registers file watchers the server asks for. */
   watchSupport = false;
   /** The settings the editor gave (before the project configuration is layered under them). */
@@ -177,6 +179,8 @@ export class ServerState {
   /** A closed root's findings leave the files they were about; what other roots say of them stays published. */
   forgetRoot(uri: string): void {
     this.scheduler.forget(uri);
+    // A closed document's diagnostics go out again even when unchanged: an editor may drop them on close.
+    this.lastSent.delete(uri);
     for (const touched of this.dropContributions(uri)) this.publishFile(touched, undefined);
   }
 
@@ -199,13 +203,23 @@ export class ServerState {
     const lines = findings.length ? this.linesOf(uri) : undefined;
     if (findings.length && !lines) return;
     const diagnostics = lines ? findings.map((f) => toDiagnostic(lines, f, this.linesOf)) : [];
+    // An include's diagnostics go out again after every analysis of each root that reads it; the
+    // same list again (no version to carry) is left unsent. A root's always goes: its version is
+    // how the editor knows the analysis caught up.
+    const sent = JSON.stringify(diagnostics);
+    if (version === undefined && this.lastSent.get(uri) === sent) return;
+    this.lastSent.set(uri, sent);
     void this.connection.sendDiagnostics(version === undefined ? { uri, diagnostics } : { uri, version, diagnostics });
   }
+
+  /** The diagnostics last sent for each file, as JSON, so that an unchanged list is not sent again. */
+  private readonly lastSent = new Map<string, string>();
 
   private publishStopped(uri: string, version: number | undefined, stop: AnalysisStop): void {
     const text = this.documents.get(uri)?.getText() ?? '';
     this.connection.console.error(`rectilens: ${uri} was not analysed: ${stop.reason}`);
     const diagnostic = toDiagnostic(new LineIndex(text), stoppedFinding(uri, text, stop), this.linesOf);
+    this.lastSent.set(uri, JSON.stringify([diagnostic]));
     void this.connection.sendDiagnostics({ uri, version, diagnostics: [diagnostic] });
   }
 }

@@ -16,7 +16,7 @@ import type { Severity } from '../../../grammar/src/index';
 import type { Finding } from '../findings/index';
 import type { FlatElement } from '../circuit/index';
 import type { Rule } from './registry';
-import { devicesOf, fmt, nodePairKey, pct, placeOf, type DeviceView } from './rule-context';
+import { circuitIndexOf, devicesOf, fmt, nodePairKey, pct, placeOf, type DeviceView } from './rule-context';
 
 /** Below this share of the device's average current the bypass is negligible. */
 export const NEGLIGIBLE_BYPASS_SHARE = 0.01;
@@ -24,7 +24,7 @@ export const NEGLIGIBLE_BYPASS_SHARE = 0.01;
 export const bypassedDeviceRule: Rule = {
   code: 'bypassed-device',
   check(input) {
-    const across = resistorsByNodePair(input.flat.elements);
+    const across = circuitIndexOf(input).resistorsByNodePair;
     if (across.size === 0) return [];
     return devicesOf(input).flatMap((view) => {
       const { anode, cathode } = view.device.ref;
@@ -34,18 +34,6 @@ export const bypassedDeviceRule: Rule = {
 };
 
 /** Resistors of a known, non-negative value by the pair of nodes they join (a negative one is implausible-value's). */
-function resistorsByNodePair(elements: readonly FlatElement[]): Map<string, FlatElement[]> {
-  const byPair = new Map<string, FlatElement[]>();
-  for (const e of elements) {
-    if (e.kind !== 'resistor' || e.value === undefined || e.value < 0 || e.terminals.length !== 2) continue;
-    const key = nodePairKey(e.terminals[0]!.node, e.terminals[1]!.node);
-    const list = byPair.get(key);
-    if (list) list.push(e);
-    else byPair.set(key, [e]);
-  }
-  return byPair;
-}
-
 function bypassFinding(r: FlatElement, view: DeviceView): Finding {
   const ohm = (r as { value: number }).value;
   const { severity, message } = judge(r.name, ohm, view);

@@ -20,7 +20,7 @@ import type { PassiveElement } from '../circuit/index';
 import type { CapacitorRatings } from '../ratings/index';
 import { rippleShareOf } from '../recognize/index';
 import type { WorstValue } from '../solve/index';
-import { fmt, pct } from './rule-context';
+import { circuitIndexOf, fmt, pct } from './rule-context';
 import type { RuleInput } from './registry';
 
 export interface CapacitorView {
@@ -41,9 +41,17 @@ export interface CapacitorView {
   steadyV?: WorstValue;
 }
 
-/** Every named filter capacitor of every rectifier of the file. */
-export function capacitorsOf(input: RuleInput): CapacitorView[] {
-  const byKey = new Map(input.flat.elements.filter((e): e is PassiveElement => e.kind === 'capacitor').map((e) => [e.key, e]));
+const views = new WeakMap<RuleInput, readonly CapacitorView[]>();
+
+/** Every named filter capacitor of every rectifier of the file, worked out once per analysis (five rules read them). */
+export function capacitorsOf(input: RuleInput): readonly CapacitorView[] {
+  let found = views.get(input);
+  if (!found) views.set(input, (found = capacitorViews(input)));
+  return found;
+}
+
+function capacitorViews(input: RuleInput): CapacitorView[] {
+  const byKey = circuitIndexOf(input).capacitorsByKey;
   return input.rectifiers.flatMap((analysis) =>
     analysis.rectifier.surroundings.capacitors.flatMap((found, group) => {
       const elements = found.names.map((n) => byKey.get(n.toLowerCase())).filter((e): e is PassiveElement => e !== undefined);

@@ -14,7 +14,7 @@
 import type { Finding } from '../findings/index';
 import { anchorOf } from '../circuit/index';
 import type { Rule } from './registry';
-import { fmt } from './rule-context';
+import { circuitIndexOf, fmt } from './rule-context';
 
 export const controllerOvervoltageRule: Rule = {
   code: 'controller-overvoltage',
@@ -28,7 +28,7 @@ export const controllerOvervoltageRule: Rule = {
       const crestV = controllerCrestV(high.lineVrms);
       if (crestV <= vmaxV) continue;
       const ref = analysis.rectifier.devices.flatMap((d) => d.controllers ?? [])[0];
-      const instance = ref && input.flat.instances.find((i) => i.key === ref.name.toLowerCase());
+      const instance = ref && circuitIndexOf(input).instancesByKey.get(ref.name.toLowerCase());
       const place = instance ? anchorOf(instance.origin) : analysis.rectifier.anchor;
       findings.push({
         ...place, severity: 'error', code: 'controller-overvoltage',

@@ -12,7 +12,7 @@
 import type { Finding } from '../findings/index';
 import { anchorOf } from '../circuit/index';
 import type { Rule } from './registry';
-import { fmt } from './rule-context';
+import { circuitIndexOf, fmt } from './rule-context';
 
 export const controllerUndervoltageRule: Rule = {
   code: 'controller-undervoltage',
@@ -26,7 +26,7 @@ export const controllerUndervoltageRule: Rule = {
       const crestV = low.lineVrms * Math.SQRT2;
       if (crestV >= vminV) continue;
       const ref = analysis.rectifier.devices.flatMap((d) => d.controllers ?? [])[0];
-      const instance = ref && input.flat.instances.find((i) => i.key === ref.name.toLowerCase());
+      const instance = ref && circuitIndexOf(input).instancesByKey.get(ref.name.toLowerCase());
       const place = instance ? anchorOf(instance.origin) : analysis.rectifier.anchor;
       const rated = analysis.controller?.vminV ? 'rated' : 'assumed, none rated';
       const always = analysis.solution.corners.every((c) => c.lineVrms * Math.SQRT2 < vminV);

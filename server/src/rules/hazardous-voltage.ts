@@ -24,7 +24,7 @@ export const hazardousVoltageRule: Rule = {
     const done = new Set<string>();
     for (const analysis of input.rectifiers) {
       const src = analysis.rectifier.surroundings.source;
-      const element = sourceElements(input).find((e) => src.elements.some((n) => n.toLowerCase() === e.key));
+      const element = firstSourceNamed(input, src.elements);
       if (element) done.add(element.key);
       if (isAboveExtraLowVoltage({ acRmsV: src.mainsVrms })) {
         const place = element ? anchorOf(element.origin) : analysis.rectifier.anchor;
@@ -46,6 +46,29 @@ export const hazardousVoltageRule: Rule = {
     return findings;
   },
 };
+
+/** The first voltage source in element order whose key is one of `names`. */
+function firstSourceNamed(input: RuleInput, names: readonly string[]): SourceElement | undefined {
+  const first = firstSourceByKey(input);
+  let found: [SourceElement, number] | undefined;
+  for (const n of names) {
+    const hit = first.get(n.toLowerCase());
+    if (hit && (!found || hit[1] < found[1])) found = hit;
+  }
+  return found?.[0];
+}
+
+const firstSources = new WeakMap<RuleInput, Map<string, [SourceElement, number]>>();
+
+/** Each key's first voltage source with its place in element order, built once per analysis. */
+function firstSourceByKey(input: RuleInput): Map<string, [SourceElement, number]> {
+  let first = firstSources.get(input);
+  if (!first) {
+    firstSources.set(input, (first = new Map()));
+    sourceElements(input).forEach((e, i) => { if (!first!.has(e.key)) first!.set(e.key, [e, i]); });
+  }
+  return first;
+}
 
 function sourceElements(input: RuleInput): readonly SourceElement[] {
   return circuitIndexOf(input).voltageSources;

@@ -17,7 +17,7 @@ import type { Origin } from '../circuit/index';
 import { withLazyFixes, type Finding } from '../findings/index';
 import type { DeviceView } from './rule-context';
 import { capacitorsOf, type CapacitorView } from './capacitor-view';
-import { rateTemplateFix } from './fixes/rate-template';
+import { rateTemplateFix, rateTemplatePlan } from './fixes/rate-template';
 import { devicesOf, placeOf } from './rule-context';
 import type { Rule, RuleInput } from './registry';
 import { capacitorTemplate, deviceTemplate } from './template-values';
@@ -59,7 +59,7 @@ function deviceFinding(input: RuleInput, view: DeviceView): Finding[] {
   // The template may re-solve (to prove an RθJA), so it is computed when the editor asks.
   return [withLazyFixes(finding, () => (renames.length
     ? renames.map((fix) => ({ ...fix }))
-    : [rateTemplateFix(target, deviceTemplate(input, view, missing), place, files(input))]))];
+    : [rateTemplatePlan(target, () => deviceTemplate(input, view, missing), place, files(input), missing.includes('rthja'))]))];
 }
 
 const unknownModels = new WeakMap<RuleInput, Finding[]>();

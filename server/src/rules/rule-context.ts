@@ -4,11 +4,11 @@
  * ratings/stress-checks.ts.
  */
 import { displayNumber, displayPercent } from '../../../grammar/src/index';
-import { anchorOf, type FlatElement, type Origin, type SourceElement } from '../circuit/index';
+import { anchorOf, type FlatCircuit, type FlatElement, type FlatInstance, type Origin, type PassiveElement, type SourceElement } from '../circuit/index';
 import type { Finding, RelatedPlace } from '../findings/index';
 import type { DeviceAnalysis, RectifierAnalysis } from '../equivalent/index';
 import {
-  describeOrigin, describePolicyOrigin, stressVerdict, type PolicyEntry, type Rated, type StressKind, type StressVerdict,
+  describeOrigin, describePolicyOrigin, stressVerdicts, type PolicyEntry, type Rated, type StressKind, type StressVerdict,
 } from '../ratings/index';
 import type { DeviceWorst } from '../solve/index';
 import type { RuleInput } from './registry';
@@ -29,10 +29,16 @@ export interface DeviceView {
   worst: DeviceWorst | undefined;
 }
 
-/** Every device of every rectifier of the file. */
-export function devicesOf(input: RuleInput): DeviceView[] {
-  return input.rectifiers.flatMap((analysis) =>
-    analysis.devices.map((device, index) => ({ analysis, index, device, worst: device.figures.worst })));
+const deviceViews = new WeakMap<RuleInput, readonly DeviceView[]>();
+
+/** Every device of every rectifier of the file, listed once per analysis (most rules walk them). */
+export function devicesOf(input: RuleInput): readonly DeviceView[] {
+  let views = deviceViews.get(input);
+  if (!views) {
+    views = input.rectifiers.flatMap((analysis) => analysis.devices.map((device, index) => ({ analysis, index, device, worst: device.figures.worst })));
+    deviceViews.set(input, views);
+  }
+  return views;
 }
 
 /** A stress verdict that fails the policy: its status is the finding's severity. */
@@ -47,10 +53,24 @@ export function stressFindings(
 ): Finding[] {
   return devicesOf(input).flatMap((view) => {
     const kind = typeof stress === 'function' ? stress(view.device) : stress;
-    const verdict = stressVerdict(kind, view.device.figures, view.device.ratings.ratings, input.policy);
+    const verdict = verdictsOf(input, view.device).find((v) => v.stress === kind);
     if (verdict?.status !== 'warning' && verdict?.status !== 'error') return [];
     return build(view, verdict as FailedStress) ?? [];
   });
+}
+
+const verdictLists = new WeakMap<RuleInput, Map<DeviceAnalysis, readonly StressVerdict[]>>();
+
+/**
+ * Every stress verdict of a device under the file's policy, judged once per analysis: each stress
+ * rule picks its own from the list (`stressVerdict` would judge them all again for each rule).
+ */
+function verdictsOf(input: RuleInput, device: DeviceAnalysis): readonly StressVerdict[] {
+  let byDevice = verdictLists.get(input);
+  if (!byDevice) verdictLists.set(input, (byDevice = new Map()));
+  let verdicts = byDevice.get(device);
+  if (!verdicts) byDevice.set(device, (verdicts = stressVerdicts(device.figures, device.ratings.ratings, input.policy)));
+  return verdicts;
 }
 
 /** A number for a message: three significant digits, never NaN or a raw double (grammar/src/display.ts). */
@@ -83,27 +103,87 @@ export function nodePairKey(a: string, b: string): string {
   return a < b ? `${a}\u0000${b}` : `${b}\u0000${a}`;
 }
 
-/** Look-ups over the flat circuit that several rules need, built once per analysis. */
+/**
+ * Look-ups over the flat circuit that the rules need, built in one pass per analysis so that no
+ * rule scans the whole circuit for each rectifier or device (at 50 bridges the scans were most of
+ * the rules' time). The node names are only wanted by fixes, so they are gathered on first use.
+ */
 export interface CircuitIndex {
   elementKeys: ReadonlySet<string>;
-  nodeNames: ReadonlySet<string>;
+  readonly nodeNames: ReadonlySet<string>;
   voltageSources: readonly SourceElement[];
   byKey: ReadonlyMap<string, FlatElement>;
+  capacitorsByKey: ReadonlyMap<string, PassiveElement>;
+  /** Resistors of known value ≥ 0 with two terminals, by `nodePairKey` of their nodes (the same node twice included). */
+  resistorsByNodePair: ReadonlyMap<string, readonly FlatElement[]>;
+  /** Two-terminal resistors of exactly 0 Ω, in element order. */
+  zeroOhmResistors: readonly FlatElement[];
+  instancesByKey: ReadonlyMap<string, FlatInstance>;
 }
 
 const indexes = new WeakMap<RuleInput, CircuitIndex>();
 
 export function circuitIndexOf(input: RuleInput): CircuitIndex {
   let index = indexes.get(input);
-  if (!index) {
-    const elements = input.flat.elements;
-    index = {
-      elementKeys: new Set(elements.map((e) => e.key)),
-      nodeNames: new Set(elements.flatMap((e) => e.terminals.map((t) => t.node))),
-      voltageSources: elements.filter((e): e is SourceElement => e.kind === 'vsource'),
-      byKey: new Map(elements.map((e) => [e.key, e])),
-    };
-    indexes.set(input, index);
-  }
+  if (!index) indexes.set(input, (index = buildIndex(input.flat)));
   return index;
+}
+
+function buildIndex(flat: FlatCircuit): CircuitIndex {
+  const byKey = new Map<string, FlatElement>();
+  const voltageSources: SourceElement[] = [];
+  const capacitorsByKey = new Map<string, PassiveElement>();
+  const resistorsByNodePair = new Map<string, FlatElement[]>();
+  const zeroOhmResistors: FlatElement[] = [];
+  for (const e of flat.elements) {
+    // A later element of the same key replaces an earlier one (a duplicate is its own finding).
+    byKey.set(e.key, e);
+    if (e.kind === 'vsource') voltageSources.push(e);
+    else if (e.kind === 'capacitor') capacitorsByKey.set(e.key, e);
+    else if (e.kind === 'resistor' && e.terminals.length === 2 && e.value !== undefined && e.value >= 0) {
+      if (e.value === 0) zeroOhmResistors.push(e);
+      const pair = nodePairKey(e.terminals[0]!.node, e.terminals[1]!.node);
+      const list = resistorsByNodePair.get(pair);
+      if (list) list.push(e);
+      else resistorsByNodePair.set(pair, [e]);
+    }
+  }
+  const instancesByKey = new Map<string, FlatInstance>();
+  // The first instance of a key, as a search in card order finds it.
+  for (const i of flat.instances) if (!instancesByKey.has(i.key)) instancesByKey.set(i.key, i);
+  let nodeNames: Set<string> | undefined;
+  return {
+    elementKeys: new Set(byKey.keys()),
+    get nodeNames() {
+      if (!nodeNames) {
+        nodeNames = new Set();
+        for (const e of flat.elements) for (const t of e.terminals) nodeNames.add(t.node);
+      }
+      return nodeNames;
+    },
+    voltageSources, byKey, capacitorsByKey, resistorsByNodePair, zeroOhmResistors, instancesByKey,
+  };
+}
+
+/**
+ * The flat circuit cut down, once the rules have run, to what is still read afterwards: the views,
+ * the review record and the capacitor hover (the rectifiers' filter capacitors and the sources),
+ * the fixes computed on request (the models, and the names in use, which the index keeps from the
+ * whole circuit so that a fix never picks a name that is taken). Every element of every card is
+ * otherwise most of an analysis's memory, twice over in an adapter that keeps two analyses.
+ */
+export function compactAfterRules(input: RuleInput): FlatCircuit {
+  const whole = circuitIndexOf(input);
+  const nodeNames = whole.nodeNames;
+  const wanted = new Set<string>();
+  for (const a of input.rectifiers) {
+    for (const found of a.rectifier.surroundings.capacitors) for (const n of found.names) wanted.add(n.toLowerCase());
+    for (const d of a.rectifier.devices) wanted.add(d.key);
+  }
+  const elements = input.flat.elements.filter((e) => e.kind === 'vsource' || wanted.has(e.key));
+  const flat: FlatCircuit = { ...input.flat, elements, instances: [] };
+  const index = buildIndex(flat);
+  indexes.set(input, { ...index, elementKeys: whole.elementKeys, nodeNames });
+  input.flat = flat;
+  return flat;
 }

@@ -64,8 +64,8 @@ function shortedOutputs(input: RuleInput): Finding[] {
         'it shorts the output; the rectifier was solved with no load, so its figures understate every device stress', 'error')));
 }
 
-function zeroOhmResistors(input: RuleInput): FlatElement[] {
-  return input.flat.elements.filter((r) => r.kind === 'resistor' && r.value === 0 && r.terminals.length === 2);
+function zeroOhmResistors(input: RuleInput): readonly FlatElement[] {
+  return circuitIndexOf(input).zeroOhmResistors;
 }
 
 /** The node pair of a two-terminal element on two different nodes. */

@@ -11,8 +11,9 @@
  * turns ratio — and bisecting the E12 ladder from 0.1 Ω to 1 kΩ (surge falls monotonically as
  * series resistance rises). The title states the steady-state dissipation I²R at high line, which
  * the designer must rate the resistor for (or choose an NTC thermistor of that cold value).
+ * Offered as a plan (the resistor's place and name), the bisection's re-solves run when it is chosen.
  */
-import type { Fix } from '../../findings/index';
+import type { Fix, FixPlan } from '../../findings/index';
 import type { RectifierAnalysis } from '../../equivalent/index';
 import type { SourceElement } from '../../circuit/index';
 import { E_SERIES_SOURCE, nextPreferredValue, stressVerdict, type DeratingPolicy } from '../../ratings/index';
@@ -25,20 +26,31 @@ import { cardAt, insertLinesAfter, spiceNumber } from './text-edits';
 /** The E12 ladder the fix searches, 0.1 Ω … 1 kΩ. */
 export const INRUSH_LADDER_OHM: readonly number[] = ladder(0.1, 1000);
 
-const cache = new WeakMap<RuleInput, Map<string, Fix | null>>();
+const cache = new WeakMap<RuleInput, Map<string, FixPlan | null>>();
 
-/** The inrush-resistor fix for a rectifier, or undefined when none of the ladder suffices. */
-export function inrushResistorFix(input: RuleInput, analysis: RectifierAnalysis): Fix | undefined {
-  const perInput = cache.get(input) ?? new Map<string, Fix | null>();
+/** The inrush-resistor plan for a rectifier, or undefined when it has no single source card to put it beside. */
+export function inrushResistorFix(input: RuleInput, analysis: RectifierAnalysis): FixPlan | undefined {
+  const perInput = cache.get(input) ?? new Map<string, FixPlan | null>();
   cache.set(input, perInput);
-  if (!perInput.has(analysis.rectifier.id)) perInput.set(analysis.rectifier.id, buildFix(input, analysis) ?? null);
+  if (!perInput.has(analysis.rectifier.id)) perInput.set(analysis.rectifier.id, planResistor(input, analysis) ?? null);
   return perInput.get(analysis.rectifier.id) ?? undefined;
 }
 
-function buildFix(input: RuleInput, analysis: RectifierAnalysis): Fix | undefined {
+function planResistor(input: RuleInput, analysis: RectifierAnalysis): FixPlan | undefined {
   const source = sourceOf(input, analysis);
   const card = source && cardAt(input.netlist, source.origin.span);
   if (!source || card?.kind !== 'source' || !card.nodes[0]) return undefined;
+  return {
+    title: `Find the smallest E12 series resistor for ${source.name} that holds the switch-on surge within IFSM (re-solved)`,
+    key: `inrush-resistor|${analysis.rectifier.id}`,
+    unverified: `no E12 value from ${fmt(INRUSH_LADDER_OHM[0]!)} Ω to ${fmt(INRUSH_LADDER_OHM.at(-1)!)} Ω holds the switch-on surge within IFSM`,
+    verify: () => buildFix(input, analysis, source),
+  };
+}
+
+function buildFix(input: RuleInput, analysis: RectifierAnalysis, source: SourceElement): Fix | undefined {
+  const card = cardAt(input.netlist, source.origin.span);
+  if (card?.kind !== 'source' || !card.nodes[0]) return undefined;
   const policy = input.policy;
   const trial = (ohm: number) => solveWithSeries(analysis, ohm, input.solve);
   let lo = 0;

@@ -9,12 +9,15 @@
  * model reference and, when the file has no `.model` of that name, adds one with the part's
  * forward model; a thermal resistance the old model's ratings gave is carried over in a `rate`
  * line, since RθJA belongs to the mounting as much as to the part.
+ *
+ * The ranking is cheap and the re-solves are not, so the fix is offered as a plan naming the first
+ * candidate, and verified (the re-solves run) only when the editor resolves it or `fixes` is read.
  */
-import type { Fix, TextEdit } from '../../findings/index';
+import type { Fix, FixPlan, TextEdit } from '../../findings/index';
 import { diodeParamsOfForwardModel, type RectifierAnalysis } from '../../equivalent/index';
 import {
   diodePartsFromFiles, diodeRequirementFromStress, DIODE_CATALOG, passesEveryStress, selectPassingPart,
-  type DeratingPolicy, type DiodePart, type Rated,
+  type DeratingPolicy, type DiodePart, type DiodeRequirement, type Rated,
 } from '../../ratings/index';
 import { deviceFiguresOf, solveRectifier, type EquivalentCircuit, type SolveFn } from '../../solve/index';
 import type { RuleInput } from '../registry';
@@ -24,16 +27,20 @@ import { cardAt, insertLinesAfter, insertLinesBefore } from './text-edits';
 /** How many ranked candidates are re-solved before giving up. */
 const MAX_VERIFIED = 3;
 
-const cache = new WeakMap<RuleInput, Map<string, Fix | null>>();
+const cache = new WeakMap<RuleInput, Map<string, FixPlan | null>>();
 
-/** The swap fix for the diode at `index` of `analysis`, or undefined when no part passes. */
-export function diodeSwapFix(input: RuleInput, analysis: RectifierAnalysis, index: number): Fix | undefined {
+/**
+ * The swap plan for the diode at `index` of `analysis`, or undefined when no candidate meets the
+ * present stresses even before re-solving. One plan per group, so the findings of a bridge's four
+ * diodes share it and its re-solves.
+ */
+export function diodeSwapFix(input: RuleInput, analysis: RectifierAnalysis, index: number): FixPlan | undefined {
   const group = groupOf(analysis, index);
-  const cacheKey = `${analysis.rectifier.id}|${group.join(',')}`;
-  const perInput = cache.get(input) ?? new Map<string, Fix | null>();
+  const key = `swap-diode|${analysis.rectifier.id}|${group.join(',')}`;
+  const perInput = cache.get(input) ?? new Map<string, FixPlan | null>();
   cache.set(input, perInput);
-  if (!perInput.has(cacheKey)) perInput.set(cacheKey, buildFix(input, analysis, group) ?? null);
-  return perInput.get(cacheKey) ?? undefined;
+  if (!perInput.has(key)) perInput.set(key, planSwap(input, analysis, group, key) ?? null);
+  return perInput.get(key) ?? undefined;
 }
 
 /** Indices of the devices of the rectifier (same type) that share the device's model (the device alone without one). */
@@ -43,18 +50,41 @@ export function groupOf(analysis: RectifierAnalysis, index: number): number[] {
   return analysis.devices.flatMap((d, k) => (d.ref.type === type && d.ref.model === model ? [k] : []));
 }
 
-function buildFix(input: RuleInput, analysis: RectifierAnalysis, group: readonly number[]): Fix | undefined {
-  const policy = input.policy;
+function planSwap(input: RuleInput, analysis: RectifierAnalysis, group: readonly number[], key: string): FixPlan | undefined {
   const current = analysis.devices[group[0]!]!.model?.name.toLowerCase();
-  let candidates = [...DIODE_CATALOG, ...diodePartsFromFiles(input.partsFiles ?? [])].filter((p) => p.name.toLowerCase() !== current);
-  const requirement = diodeRequirementFromStress(groupStress(analysis, group), policy);
+  const candidates = [...DIODE_CATALOG, ...diodePartsFromFiles(input.partsFiles ?? [])].filter((p) => p.name.toLowerCase() !== current);
+  const requirement = diodeRequirementFromStress(groupStress(analysis, group), input.policy);
+  const first = selectPassingPart(requirement, candidates);
+  if (!first) return undefined;
+  return {
+    title: `Find a part that passes every stress check for ${namesOf(analysis, group)} (re-solved; first candidate ${first.name}, ${ratingsText(first)})`,
+    key,
+    preferred: true,
+    unverified: `no part among the first ${MAX_VERIFIED} candidates passes every stress check once re-solved with its own forward model`,
+    verify: () => verifySwap(input, analysis, group, requirement, candidates),
+  };
+}
+
+/** Re-solves the best-ranked candidates in turn; the first that passes every stress check is the fix. */
+function verifySwap(
+  input: RuleInput, analysis: RectifierAnalysis, group: readonly number[], requirement: DiodeRequirement, all: DiodePart[],
+): Fix | undefined {
+  let candidates = all;
   for (let tries = 0; tries < MAX_VERIFIED; tries++) {
     const part = selectPassingPart(requirement, candidates);
     if (!part) return undefined;
-    if (passesAfterSwap(analysis, group, part, policy, input.solve)) return toFix(input, analysis, group, part);
+    if (passesAfterSwap(analysis, group, part, input.policy, input.solve)) return toFix(input, analysis, group, part);
     candidates = candidates.filter((p) => p !== part);
   }
   return undefined;
+}
+
+function namesOf(analysis: RectifierAnalysis, group: readonly number[]): string {
+  return group.map((k) => analysis.devices[k]!.ref.name).join(', ');
+}
+
+function ratingsText(part: DiodePart): string {
+  return `${fmt(part.ratings.vrrmV?.value ?? 0)} V, ${fmt(part.ratings.ifavA?.value ?? 0)} A`;
 }
 
 function groupStress(analysis: RectifierAnalysis, group: readonly number[]) {
@@ -110,9 +140,7 @@ function toFix(input: RuleInput, analysis: RectifierAnalysis, group: readonly nu
   }
   const added = addedLines(input, analysis, group, part);
   if (added.length) edits.push(placeLines(input, analysis, group, added));
-  const names = group.map((k) => analysis.devices[k]!.ref.name).join(', ');
-  const r = part.ratings;
-  return { title: `Use ${part.name} (${fmt(r.vrrmV?.value ?? 0)} V, ${fmt(r.ifavA?.value ?? 0)} A) for ${names}`, edits, preferred: true };
+  return { title: `Use ${part.name} (${ratingsText(part)}) for ${namesOf(analysis, group)}`, edits, preferred: true };
 }
 
 /** A `.model` for the part when the circuit has none of that name, and the carried-over RθJA. */

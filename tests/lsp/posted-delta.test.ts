@@ -1,0 +1,96 @@
+/**
+ * After an edit the worker posts a rectifier whose solution the main thread already holds without
+ * that solution and its device figures (lsp/posted-analysis.ts): restored against the analysis the
+ * main thread holds, it must be the very analysis a whole post gives, and a rectifier whose inputs
+ * changed must cross whole.
+ */
+import { serialize } from 'node:v8';
+import { describe, expect, it } from 'vitest';
+import { parseNetlist } from '../../grammar/src/index';
+import { analyze, type FileAnalysis } from '../../server/src/analysis/analyze';
+import { codeLensesOf } from '../../server/src/editor/code-lens';
+import { inlayHintsOf } from '../../server/src/editor/inlay-hints';
+import { hoverInFile } from '../../server/src/editor/stress-hover';
+import { postedForm, restoredForm } from '../../server/src/lsp/posted-analysis';
+import type { SolutionCache } from '../../server/src/solve/index';
+
+const URI = 'file:///delta.cir';
+
+/** Two plain bridges of our own invention, the second one's reservoir given by `c2`. */
+function twoBridges(c2: string, comment = ''): string {
+  return [
+    'two bridges',
+    '*@ mains 230V 50Hz',
+    '.model DX D(IS=2n N=1.8 RS=0.05)',
+    '*@ rate DX vrrm=600V ifav=1A ifsm=30A tjmax=150C rthja=90',
+    ...(comment ? [comment] : []),
+    'V1 l1 n1 SIN(0 325 50)', 'RS1 l1 a1 1',
+    'D1a a1 p1 DX', 'D1b n1 p1 DX', 'D1c m1 a1 DX', 'D1d m1 n1 DX',
+    'C1 p1 m1 100u', 'RL1 p1 m1 2k',
+    'V2 l2 n2 SIN(0 325 50)', 'RS2 l2 a2 1',
+    'D2a a2 p2 DX', 'D2b n2 p2 DX', 'D2c m2 a2 DX', 'D2d m2 n2 DX',
+    `C2 p2 m2 ${c2}`, 'RL2 p2 m2 2k',
+    '',
+  ].join('\n');
+}
+
+function analysed(text: string, cache: SolutionCache, previous?: FileAnalysis): FileAnalysis {
+  const file = analyze({ roots: [URI], readText: () => text, solutionCache: cache, compactFlat: true, previousParse: (u) => previous?.parsed.get(u) }).files.get(URI)!;
+  // As the worker posts it: findings without their lazily computed fixes.
+  return { ...file, findings: file.findings.map(({ uri, span, severity, code, message, related }) => ({ uri, span, severity, code, message, ...(related ? { related } : {}) })) };
+}
+
+/** What the main thread holds after the first analysis: a whole post, restored. */
+function held(file: FileAnalysis, text: string): FileAnalysis {
+  return restoredForm(postedForm(file, text), { text, parsed: parseNetlist(text), held: undefined });
+}
+
+describe('a posted analysis that points at the one the main thread holds', () => {
+  it('leaves out the solutions and figures of unchanged rectifiers and restores to the whole post', () => {
+    const cache: SolutionCache = new Map();
+    const first = analysed(twoBridges('100u'), cache);
+    expect(first.rectifiers).toHaveLength(2);
+    const before = held(first, twoBridges('100u'));
+    // A comment line above both bridges moves every offset but changes no rectifier's inputs.
+    const text = twoBridges('100u', '* a new comment');
+    const second = analysed(text, cache, first);
+    const posted = postedForm(second, text, first);
+    expect(posted.rectifiers.map((r) => 'sameSolutionAs' in r)).toEqual([true, true]);
+    for (const r of posted.rectifiers) for (const d of r.devices) expect(d.figures).toBeUndefined();
+    // Not a speed claim: without its solutions the message must be smaller, or nothing was left out.
+    expect(serialize(posted).length).toBeLessThan(serialize(postedForm(second, text)).length);
+
+    const restored = restoredForm(posted, { text, parsed: parseNetlist(text), held: before });
+    const whole = held(second, text);
+    expect(restored.rectifiers).toEqual(whole.rectifiers);
+    expect(restored.text).toBe(text);
+    expect(inlayHintsOf(restored, 'full')).toEqual(inlayHintsOf(whole, 'full'));
+    expect(codeLensesOf(restored)).toEqual(codeLensesOf(whole));
+    const diodes = whole.netlist.cards.filter((c) => /^D/.test(text.slice(c.span.start, c.span.end)));
+    expect(diodes.length).toBeGreaterThan(0);
+    const hovers = diodes.map((c) => hoverInFile(whole, c.span.start)?.markdown);
+    expect(hovers.some((h) => h !== undefined)).toBe(true);
+    expect(diodes.map((c) => hoverInFile(restored, c.span.start)?.markdown)).toEqual(hovers);
+  });
+
+  it('posts a rectifier whose inputs changed whole, and only that one', () => {
+    const cache: SolutionCache = new Map();
+    const first = analysed(twoBridges('100u'), cache);
+    const before = held(first, twoBridges('100u'));
+    const text = twoBridges('47u');
+    const second = analysed(text, cache, first);
+    const posted = postedForm(second, text, first);
+    expect(posted.rectifiers.map((r) => 'sameSolutionAs' in r)).toEqual([true, false]);
+    const restored = restoredForm(posted, { text, parsed: parseNetlist(text), held: before });
+    expect(restored.rectifiers).toEqual(held(second, text).rectifiers);
+    expect(restored.rectifiers[1]!.solution).not.toEqual(before.rectifiers[1]!.solution);
+  });
+
+  it('refuses to restore a pointer without the analysis it points into', () => {
+    const cache: SolutionCache = new Map();
+    const first = analysed(twoBridges('100u'), cache);
+    const text = twoBridges('100u', '* moved');
+    const posted = postedForm(analysed(text, cache, first), text, first);
+    expect(() => restoredForm(posted, { text, parsed: undefined, held: undefined })).toThrow(/does not hold/);
+  });
+});
