@@ -29,5 +29,5 @@ export const FINDING_CODES: Readonly<Record<string, string>> = {
   'project-config': 'the project configuration (rectilens.json) holds an entry that is not a setting or not a valid value; that entry does not apply',
   'no-rectifier': 'a file with an AC source and diodes or MOSFETs in which no rectifier was recognised: nothing was checked',
   'unsolved-rectifier': 'a recognised rectifier could not be solved at some corner (the solver\'s reason quoted); its parts were not checked there',
-  'unmodelled-inductance': 'an inductance drawn in a rectifier\'s loop could not be modelled (commutation overlap); the figures it shapes were computed without it and not checked against the circuit as drawn',
+  'unmodelled-inductance': 'an inductance drawn in a rectifier\'s loop could not be modelled (line inductance with a DC choke or in a MOSFET three-phase bridge, a choke on a doubler); the figures it shapes were computed without it and not checked against the circuit as drawn',
 };
