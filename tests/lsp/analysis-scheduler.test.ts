@@ -3,7 +3,7 @@
  * rejection in the scheduler, which ends a Node process. Now the file gets an internal-error
  * stop and the scheduler keeps serving the next edit.
  */
-import { describe, expect, it } from 'vitest';
+import { describe, expect, it, vi } from 'vitest';
 import { analyze } from '../../server/src/analysis/analyze';
 import { AnalysisScheduler, type AnalysisRunner } from '../../server/src/lsp/analysis-scheduler';
 import type { AnalysisStop } from '../../server/src/lsp/analysis-worker-host';
@@ -44,5 +44,49 @@ describe('the analysis scheduler', () => {
     expect(stops).toEqual([{ uri: 'file:///a.cir', stop: { cause: 'fault', reason: expect.stringMatching(/a fault outside the rules/) } }]);
     expect(unhandled).toEqual([]);
     expect(scheduler.get('file:///a.cir')?.uri).toBe('file:///a.cir');
+  });
+
+  it('starts at once when idle, and gathers the edits that arrive while an analysis runs', async () => {
+    vi.useFakeTimers({ toFake: ['setTimeout', 'clearTimeout'] });
+    try {
+      let calls = 0;
+      let release: () => void = () => {};
+      const gate = new Promise<void>((r) => (release = r));
+      const runner: AnalysisRunner = {
+        analyse: async (uri, open) => {
+          calls++;
+          if (calls === 1) await gate; // the first analysis is still running when the next edits come
+          const file = analyze({ roots: [uri], readText: (u) => open.get(u) }).files.get(uri);
+          return { kind: 'analysed', file, sequence: calls };
+        },
+        fixes: async () => [],
+        view: async () => null,
+        forget: () => {},
+      };
+      const versions: (number | undefined)[] = [];
+      let version = 1;
+      const uri = 'file:///a.cir';
+      const scheduler = new AnalysisScheduler(runner, {
+        openDocuments: () => [{ uri, version, text: 'a\nR1 x 0 1k\n' }],
+        settings: () => ({}),
+        partsFiles: () => [],
+        onAnalysed: (_file, v) => versions.push(v),
+        onStopped: () => {},
+      }, 1000);
+      scheduler.schedule([uri]);
+      await vi.advanceTimersByTimeAsync(0); // idle: no debounce
+      expect(calls).toBe(1);
+      for (version = 2; version <= 4; version++) scheduler.schedule([uri]);
+      version = 4;
+      release();
+      await vi.advanceTimersByTimeAsync(999); // busy when they came: they wait for the debounce
+      expect(calls).toBe(1);
+      await vi.advanceTimersByTimeAsync(1);
+      await vi.waitFor(() => expect(versions).toEqual([1, 4]));
+      // The three edits typed during the first analysis were analysed once, at the newest version.
+      expect(calls).toBe(2);
+    } finally {
+      vi.useRealTimers();
+    }
   });
 });

@@ -1,5 +1,5 @@
 /**
- * Keeps one analysis per open netlist, recomputed after edits: debounced, newest edit first, a batch
+ * Keeps one analysis per open netlist, recomputed after edits: at once when idle, debounced while busy, newest edit first, a batch
  * abandoned between files when a newer edit arrives. The analyses themselves run in the worker
  * (analysis-worker-host.ts), so requests are answered from the last finished analysis of each
  * file while the next one runs.
@@ -133,7 +133,9 @@ export class AnalysisScheduler {
     for (const uri of uris) this.pending.add(uri);
     this.generation++;
     clearTimeout(this.timer);
-    this.timer = setTimeout(() => void this.run(), this.debounceMs);
+    // An idle worker starts at once (the edits that arrived together are merged by then); while one
+    // runs, the debounce gathers the keystrokes of a burst into the next analysis.
+    this.timer = setTimeout(() => void this.run(), this.running ? this.debounceMs : 0);
   }
 
   private async run(): Promise<void> {
