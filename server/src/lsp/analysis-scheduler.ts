@@ -35,6 +35,8 @@ export interface SchedulerHooks {
   onAnalysed: (file: FileAnalysis, version: number | undefined) => void;
   /** Called when a file could not be analysed at all (the worker died or was stopped). */
   onStopped: (uri: string, version: number | undefined, stop: AnalysisStop) => void;
+  /** Settles when analyses may start (the editor's settings are in); none start before. */
+  ready?: () => Promise<void>;
   /** Called when a batch starts or ends, e.g. to show a busy indicator. */
   onBusy?: (busy: boolean, pending: number) => void;
 }
@@ -140,6 +142,7 @@ export class AnalysisScheduler {
 
   private async run(): Promise<void> {
     this.timer = undefined;
+    await this.hooks.ready?.();
     if (this.running) await this.running;
     const generation = this.generation;
     this.running = this.analysePending(generation).finally(() => (this.running = undefined));

@@ -51,7 +51,8 @@ export function registerConfiguration(state: ServerState): void {
   connection.onInitialized(() => {
     // The project configuration applies from the start, with the settings given up front on top.
     applySettings(state, state.editorSettings);
-    void refreshConfiguration(state);
+    // Analyses wait for the first pull, but not for an editor that never answers it.
+    state.settingsReady = Promise.race([refreshConfiguration(state), new Promise<void>((r) => setTimeout(r, SETTINGS_PATIENCE_MS).unref())]);
     askToWatchFiles(state);
   });
   registerFileWatching(state);
@@ -62,6 +63,9 @@ export function registerConfiguration(state: ServerState): void {
     else applySettings(state, pushed);
   });
 }
+
+/** How long the first analyses wait for the editor to answer the settings pull. */
+const SETTINGS_PATIENCE_MS = 2000;
 
 /** Pulls the window's settings and each folder's (scoped to it), then applies them. */
 async function refreshConfiguration(state: ServerState): Promise<void> {

@@ -63,6 +63,11 @@ export class ServerState {
   partsFiles: PartsFile[] = [];
   /** Parts files with diagnostics published, so that fixed ones are cleared. */
   partsFilesWithFindings: ReadonlySet<string> = new Set();
+  /**
+   * Settles when the editor's settings have first been pulled (or could not be): no analysis starts
+   * before, so the first diagnostics of a file are never those of the wrong settings.
+   */
+  settingsReady: Promise<void> = Promise.resolve();
   readonly readText: (uri: string) => FileText;
   readonly worker: AnalysisWorkerHost;
   readonly scheduler: AnalysisScheduler;
@@ -85,6 +90,7 @@ export class ServerState {
       onAnalysed: (file, version) => this.publish(file, version),
       onStopped: (uri, version, stop) => this.publishStopped(uri, version, stop),
       onBusy: (busy, pending) => this.progress.update(busy, pending),
+      ready: () => this.settingsReady,
     }, 10, positiveNumber(env.RECTILENS_EDITOR_PATIENCE_MS));
   }
 
