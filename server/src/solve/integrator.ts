@@ -14,7 +14,7 @@ import { applyGates } from './gates';
 import { OffAdvance } from './off-advance';
 import { copyInto, zeros } from './vec';
 
-import { GAMMA, D, W, WD, Q0, QG, Q1 } from './tr-bdf2';
+import { GAMMA, D, WD, Q0, QG, Q1, filteredError, matMul, propagateSensitivity as carrySensitivity } from './tr-bdf2';
 /** Length of the backward-Euler restart step, as a fraction of the period. */
 const RESTART_FRACTION = 5e-5;
 
@@ -225,31 +225,18 @@ export class Integrator {
 
   private errorNorm(h: number, o: IntegrateOptions): number {
     const n = this.net.n;
-    const M = this.o1.dydr;
     let err = 0;
     for (let j = 0; j < n; j++) {
-      // Hosea & Shampine: filter the estimate through (I − dhJ)⁻¹ = dy/dr so stiff components
-      // do not inflate it.
-      let e = 0;
-      for (let m = 0; m < n; m++) {
-        const est = h * ((Q0 - W) * this.f[m]! + (QG - W) * this.oG.f[m]! + (Q1 - D) * this.o1.f[m]!);
-        e += M[j * n + m]! * est;
-      }
+      const e = filteredError(j, n, h, this.o1.dydr, this.f, this.oG.f, this.o1.f);
       err = Math.max(err, Math.abs(e) / (o.atol[j]! + o.rtol * Math.abs(this.o1.y[j]!)));
     }
     return err;
   }
 
   private propagateSensitivity(h: number): void {
-    const n = this.net.n;
-    const dh = D * h;
-    const R = this.tmp;
-    for (let k = 0; k < n * n; k++) R[k] = this.Y[k]! + dh * this.F[k]!;
-    matMul(this.oG.dydr, R, this.tmpG, n);
-    for (let k = 0; k < n * n; k++) R[k] = (1 - WD) * this.Y[k]! + WD * this.tmpG[k]!;
-    matMul(this.o1.dydr, R, this.Y, n);
-    matMul(this.o1.dfdr, R, this.F, n);
+    carrySensitivity(h, this.net.n, this.Y, this.F, this.oG.dydr, this.o1.dydr, this.o1.dfdr, this.tmp, this.tmpG);
   }
+
 
   private accept(t: number, h: number, rec: PeriodRecord | undefined, fresh: boolean): void {
     copyInto(this.y, this.o1.y);
@@ -273,13 +260,3 @@ function shortenedStep(tCross: number, h: number, hEdge: number): number {
   return h - tCross <= hEdge ? 0 : tCross + 0.5 * hEdge;
 }
 
-/** c = a·b for n×n row-major matrices (c must not alias a or b). */
-function matMul(a: readonly number[], b: readonly number[], c: number[], n: number): void {
-  for (let i = 0; i < n; i++) {
-    for (let j = 0; j < n; j++) {
-      let s = 0;
-      for (let k = 0; k < n; k++) s += a[i * n + k]! * b[k * n + j]!;
-      c[i * n + j] = s;
-    }
-  }
-}

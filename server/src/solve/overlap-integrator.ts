@@ -9,7 +9,7 @@ import type { OverlapRecord } from './overlap-record';
 import { OverlapPoint, OverlapStage, type OverlapSystem } from './overlap-stage';
 import { copyInto, zeros } from './vec';
 
-import { GAMMA, D, W, WD, Q0, QG, Q1 } from './tr-bdf2';
+import { GAMMA, D, WD, Q0, QG, Q1, filteredError, matMul, propagateSensitivity } from './tr-bdf2';
 /** The backward-Euler start step, as a fraction of the period. */
 const START_FRACTION = 5e-5;
 
@@ -117,29 +117,18 @@ export class OverlapIntegrator {
 
   private errorNorm(h: number, atol: number[]): number {
     const n = this.sys.n;
-    const M = this.o1.dydr;
     let err = 0;
     for (let j = 0; j < n; j++) {
-      let e = 0;
-      for (let m = 0; m < n; m++) {
-        const est = h * ((Q0 - W) * this.f[m]! + (QG - W) * this.oG.f[m]! + (Q1 - D) * this.o1.f[m]!);
-        e += M[j * n + m]! * est;
-      }
+      const e = filteredError(j, n, h, this.o1.dydr, this.f, this.oG.f, this.o1.f);
       err = Math.max(err, Math.abs(e) / atol[j]!);
     }
     return err;
   }
 
   private propagate(h: number): void {
-    const n = this.sys.n;
-    const dh = D * h;
-    const R = this.R;
-    for (let k = 0; k < n * n; k++) R[k] = this.Y[k]! + dh * this.F[k]!;
-    matMul(this.oG.dydr, R, this.tmp, n);
-    for (let k = 0; k < n * n; k++) R[k] = (1 - WD) * this.Y[k]! + WD * this.tmp[k]!;
-    matMul(this.o1.dydr, R, this.Y, n);
-    matMul(this.o1.dfdr, R, this.F, n);
+    propagateSensitivity(h, this.sys.n, this.Y, this.F, this.oG.dydr, this.o1.dydr, this.o1.dfdr, this.R, this.tmp);
   }
+
 }
 
 /** Absolute instants of a periodic list strictly inside (t0, t1). */
@@ -152,24 +141,4 @@ function crestsBetween(t0: number, t1: number, list: number[], T: number): numbe
     }
   }
   return out.sort((a, b) => a - b);
-}
-
-function matMul(a: readonly number[], b: readonly number[], c: number[], n: number): void {
-  // Three states (two line currents and the capacitor) is the common case, three products a
-  // step: written out, without the loops' index arithmetic.
-  if (n === 3) {
-    const a0 = a[0]!, a1 = a[1]!, a2 = a[2]!, a3 = a[3]!, a4 = a[4]!, a5 = a[5]!, a6 = a[6]!, a7 = a[7]!, a8 = a[8]!;
-    const b0 = b[0]!, b1 = b[1]!, b2 = b[2]!, b3 = b[3]!, b4 = b[4]!, b5 = b[5]!, b6 = b[6]!, b7 = b[7]!, b8 = b[8]!;
-    c[0] = a0 * b0 + a1 * b3 + a2 * b6; c[1] = a0 * b1 + a1 * b4 + a2 * b7; c[2] = a0 * b2 + a1 * b5 + a2 * b8;
-    c[3] = a3 * b0 + a4 * b3 + a5 * b6; c[4] = a3 * b1 + a4 * b4 + a5 * b7; c[5] = a3 * b2 + a4 * b5 + a5 * b8;
-    c[6] = a6 * b0 + a7 * b3 + a8 * b6; c[7] = a6 * b1 + a7 * b4 + a8 * b7; c[8] = a6 * b2 + a7 * b5 + a8 * b8;
-    return;
-  }
-  for (let i = 0; i < n; i++) {
-    for (let j = 0; j < n; j++) {
-      let s = 0;
-      for (let k = 0; k < n; k++) s += a[i * n + k]! * b[k * n + j]!;
-      c[i * n + j] = s;
-    }
-  }
 }

@@ -10,10 +10,8 @@ import { OverlapIntegrator, type OverlapOptions } from './overlap-integrator';
 import { OverlapRecord } from './overlap-record';
 import type { OverlapSystem } from './overlap-stage';
 import { zeros } from './vec';
+import { PeriodicityTest } from './periodicity';
 
-const NEAR_RESIDUAL = 2;
-const CONVERGED_RESIDUAL = 0.02;
-const STALL_RESIDUAL = 20;
 
 export interface OverlapSteadyState {
   converged: boolean;
@@ -43,24 +41,15 @@ export function findOverlapSteadyState(sys: OverlapSystem, options: SteadyStateO
   const y0 = guess ? guess.y0.slice() : zeros(n);
   const g = zeros(n);
   let periods = 0, iterations = 0;
-  let converged = false, fine = false;
-  let lastWorst = Infinity;
+  let converged = false;
+  const test = new PeriodicityTest(false);
   for (;;) {
-    const ok = integ.run(0, T, y0, fine ? fineOpts : opts);
+    const ok = integ.run(0, T, y0, test.fine ? fineOpts : opts);
     periods++;
     if (!ok) { problems.push('steady state: step budget exhausted within one period'); break; }
-    let worst = 0;
-    for (let j = 0; j < n; j++) { g[j] = integ.y[j]! - y0[j]!; worst = Math.max(worst, Math.abs(g[j]!) / opts.atol[j]!); }
-    const stalled = worst <= STALL_RESIDUAL && worst >= 0.3 * lastWorst;
-    const settled = worst <= (fine ? CONVERGED_RESIDUAL : NEAR_RESIDUAL);
-    lastWorst = worst;
-    if (settled || stalled) {
-      if (fine) { converged = true; break; }
-      // A stall is judged between fine periods only, never against the last coarse residual.
-      fine = true;
-      lastWorst = Infinity;
-      continue;
-    }
+    const { verdict } = test.judge(integ.y, y0, opts.atol, g);
+    if (verdict === 'periodic') { converged = true; break; }
+    if (verdict === 'record') continue;
     if (iterations >= maxIt) break;
     iterations++;
     const delta = solveNewton(integ.Y, g, n);
@@ -73,12 +62,10 @@ export function findOverlapSteadyState(sys: OverlapSystem, options: SteadyStateO
       // The capacitor cannot be charged negative by the bridge.
       if (j === 2) y0[j] = Math.max(0, y0[j]!);
     }
-    const wasFine: boolean = fine;
-    fine = fine || big < 0.02;
-    if (fine !== wasFine) lastWorst = Infinity;
+    test.setFine(test.fine || big < 0.02);
   }
   if (!converged) problems.push(`steady state not reached in ${iterations} shooting iterations; figures are from the last period`);
-  if (!fine || record.count === 0) { integ.run(0, T, y0, fineOpts); periods++; }
+  if (!test.fine || record.count === 0) { integ.run(0, T, y0, fineOpts); periods++; }
   let residual = 0;
   for (let j = 0; j < n; j++) residual = Math.max(residual, Math.abs(integ.y[j]! - y0[j]!) / opts.atol[j]!);
   return { converged, iterations, periods, steps: integ.work, evaluations: integ.evaluations, fallbacks: integ.fallbacks, y0, residual, record, problems };

@@ -9,6 +9,7 @@ import { StageSolver } from './stage';
 import { Integrator, type IntegrateOptions } from './integrator';
 import { PeriodRecord } from './record';
 import { zeros } from './vec';
+import { PeriodicityTest } from './periodicity';
 
 /** Accuracy and effort settings; all optional. */
 export interface SteadyStateOptions {
@@ -36,31 +37,6 @@ export interface SteadyState {
   problems: string[];
 }
 
-/**
- * Largest |P(x) − x|, in absolute tolerances of the state (relTol × the voltage scale), at which
- * coarse periods give way to recorded fine ones.
- */
-const NEAR_RESIDUAL = 2;
-
-/**
- * Largest |P(x) − x| of a recorded (fine) period accepted as periodic. A capacitor-input filter's
- * currents follow the small difference between charge in and charge out per period, so the
- * imbalance between a bridge's diode pairs grows as the residual over the ripple: an orbit
- * accepted at 2 tolerances left 0.1 % at 1.7 % ripple, one at 0.2 still 0.016 % at 1.5 %. The
- * coarse and fine step sequences differ by a few tenths of a tolerance, so the first fine period
- * after coarse ones rarely passes this; one Newton step on fine periods lands below 0.001
- * (tests/solve/warm-start-symmetry.test.ts, pairs equal to 0.01 % over random bridges).
- */
-const CONVERGED_RESIDUAL = 0.02;
-
-/**
- * Largest residual accepted when Newton stops improving (by less than 3× per period): the
- * integrator's noise floor, from the adaptive step sequence. Across the solver, rule and report
- * suites the stalls sat at 0.5–7.7 tolerances; beyond 20 an orbit is not called periodic, the
- * iterations go on and, if they run out, the corner is reported as not converged.
- */
-const STALL_RESIDUAL = 20;
-
 /** Finds the periodic steady state of a network, starting from `guess` when given. */
 export function findSteadyState(net: Network, options: SteadyStateOptions = {}, guess?: { y0: readonly number[]; mode0: number }): SteadyState {
   const n = net.n;
@@ -82,32 +58,18 @@ export function findSteadyState(net: Network, options: SteadyStateOptions = {}, 
   let converged = n === 0;
   // A guess is a neighbouring orbit (the thermal loop's previous one, another corner's): near
   // enough that its first period may already be the recorded one.
-  let fine = n === 0 || guess !== undefined;
-  let lastWorst = Infinity;
+  const test = new PeriodicityTest(n === 0 || guess !== undefined);
   const g = zeros(n);
   const fineOpts = { ...opts, record, hMaxOnS: T * (options.recordStepFraction ?? 1 / 600) };
   // Coarse periods until the orbit is near; then every period is recorded at the fine step, so
   // the period that passes the periodicity test is the one whose figures are reported.
   for (;;) {
-    const res = integ.run(0, T, y0, mode0, fine ? fineOpts : opts);
+    const res = integ.run(0, T, y0, mode0, test.fine ? fineOpts : opts);
     periods++;
     if (!res.ok) { problems.push('steady state: step budget exhausted within one period'); break; }
-    let worst = 0;
-    for (let j = 0; j < n; j++) { g[j] = integ.y[j]! - y0[j]!; worst = Math.max(worst, Math.abs(g[j]!) / opts.atol[j]!); }
-    // Converged at the tolerance, or stalled at the integrator's noise floor (the discrete period
-    // map is only as smooth as the adaptive step sequence: a few dozen local tolerances).
-    const stalled = worst <= STALL_RESIDUAL && worst >= 0.3 * lastWorst;
-    const settled = worst <= (fine ? CONVERGED_RESIDUAL : NEAR_RESIDUAL);
-    lastWorst = worst;
-    if (settled || stalled) {
-      if (fine) { converged = true; break; }
-      fine = true;
-      // A stall is judged between periods of one step regime: the first fine period is compared
-      // with fine periods only, never with the last coarse residual (which would accept an orbit
-      // several tolerances from periodic).
-      lastWorst = Infinity;
-      continue;
-    }
+    const { verdict } = test.judge(integ.y, y0, opts.atol, g);
+    if (verdict === 'periodic') { converged = true; break; }
+    if (verdict === 'record') continue;
     if (iterations >= maxIt) break;
     iterations++;
     const delta = solveNewton(integ.Y, g, n);
@@ -118,12 +80,10 @@ export function findSteadyState(net: Network, options: SteadyStateOptions = {}, 
       y0[j] = Math.max(0, y0[j]! + step);
     }
     mode0 = res.mode;
-    const wasFine = fine;
-    fine = big < 0.02 || maxAbs(integ.Y) < 0.05;
-    if (fine !== wasFine) lastWorst = Infinity;
+    test.setFine(big < 0.02 || maxAbs(integ.Y) < 0.05);
   }
   if (!converged) problems.push(`steady state not reached in ${iterations} shooting iterations; figures are from the last period`);
-  if (!fine) {
+  if (!test.fine) {
     const res = integ.run(0, T, y0, mode0, fineOpts);
     periods++;
     if (!res.ok) problems.push('steady state: step budget exhausted in the recorded period');

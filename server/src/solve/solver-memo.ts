@@ -20,8 +20,13 @@ export type SolutionCache = Map<string, RectifierSolution>;
  */
 export const CACHE_NUMBER_BUDGET = 4_000_000;
 
+/** Weights counted once per solution: trimming sums them on every store. */
+const weights = new WeakMap<RectifierSolution, number>();
+
 /** Numbers a solution holds, counted roughly: its corners' figures and every waveform sample. */
 export function solutionWeight(solution: RectifierSolution): number {
+  const known = weights.get(solution);
+  if (known !== undefined) return known;
   let weight = 64;
   for (const corner of solution.corners) {
     weight += 64 + 16 * corner.devices.length;
@@ -29,6 +34,7 @@ export function solutionWeight(solution: RectifierSolution): number {
       if (w) weight += w.tS.length * (4 + w.deviceA.length);
     }
   }
+  weights.set(solution, weight);
   return weight;
 }
 
