@@ -116,6 +116,16 @@ export class EditedText {
     return { range: { start: { line: this.at, character: line.length }, end: { line: this.at, character: line.length } }, text: ch };
   }
 
+  /** Replaces the first match of `pattern` on line `line` with `by` (a value typed over another). */
+  replaceOnLine(line: number, pattern: RegExp, by: string): TextDocumentContentChangeEvent {
+    this.version++;
+    const old = this.lines[line]!;
+    const match = pattern.exec(old);
+    if (!match) throw new Error(`line ${line} has no ${pattern}`);
+    this.lines[line] = old.slice(0, match.index) + by + old.slice(match.index + match[0].length);
+    return { range: { start: { line, character: match.index }, end: { line, character: match.index + match[0].length } }, text: by };
+  }
+
   get hasInsertedLine(): boolean {
     return this.inserted === 1;
   }

@@ -70,9 +70,26 @@ export const MESSAGE_MAX_CHARS = 2000;
 export function boundMessage(message: string): string {
   const shown = escapeControlChars(message);
   if (shown.length <= MESSAGE_WORD_MAX_CHARS) return shown;
+  // Most messages are already within bounds: a scan is cheaper than the split below, which every edit's findings pay.
+  if (shown.length <= MESSAGE_MAX_CHARS && longestAsciiWord(shown) <= MESSAGE_WORD_MAX_CHARS) return shown;
   // Split on spaces rather than match long runs: a quantified run over a 10 MB word overflows the regex engine's stack.
   const words = shown.split(/(\s+)/).map((word) => (word.length > MESSAGE_WORD_MAX_CHARS ? clipText(word) : word)).join('');
   return words.length <= MESSAGE_MAX_CHARS ? words : `${keepPairs(words, MESSAGE_MAX_CHARS - 1)}…`;
+}
+
+/**
+ * The longest run without an ASCII blank (space, tab, line break, vertical tab, form feed). Every
+ * such blank is also `\s`, so no `\s`-separated word is longer: a bound on what the split would see.
+ */
+function longestAsciiWord(text: string): number {
+  let longest = 0;
+  let run = 0;
+  for (let i = 0; i < text.length; i++) {
+    const code = text.charCodeAt(i);
+    if (code === 32 || (code >= 9 && code <= 13)) run = 0;
+    else if (++run > longest) longest = run;
+  }
+  return longest;
 }
 
 /**

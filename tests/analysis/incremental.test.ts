@@ -46,8 +46,11 @@ function fresh(text: string): FileAnalysis | undefined {
   return analyze({ roots: [URI], readText: () => text }).files.get(URI);
 }
 
+/** As the language server's worker analyses: the previous trees consumed (their cards moved), the cache shared, the flat circuit compacted. */
 function incremental(text: string, previous: FileAnalysis | undefined, cache: SolutionCache): FileAnalysis | undefined {
-  return analyze({ roots: [URI], readText: () => text, solutionCache: cache, compactFlat: true, previousParse: (u) => previous?.parsed.get(u) }).files.get(URI);
+  return analyze({
+    roots: [URI], readText: () => text, solutionCache: cache, compactFlat: true, previousParse: (u) => previous?.parsed.get(u), consumePreviousParse: true,
+  }).files.get(URI);
 }
 
 /** Edits an editor makes: a character typed or deleted anywhere, a value changed, a line added or taken out. */
@@ -118,5 +121,45 @@ describe('the analysis after an edit, from the previous one', () => {
     expect(compactAfterRules(input).elements.some((e) => e.key === 'rfiller')).toBe(false);
     expect(circuitIndexOf(input).elementKeys.has('rfiller')).toBe(true);
     expect(circuitIndexOf(input).nodeNames.has('nfill')).toBe(true);
+  });
+});
+
+describe('consuming the previous trees', () => {
+  const consuming = (files: Record<string, string>, previous: FileAnalysis | undefined, limits = {}) =>
+    analyze({ roots: [URI], readText: (u) => files[u], limits, previousParse: (u) => previous?.parsed.get(u), consumePreviousParse: true }).files.get(URI);
+  const freshOf = (files: Record<string, string>, limits = {}) => analyze({ roots: [URI], readText: (u) => files[u], limits }).files.get(URI);
+  const bridge = (extra: string) =>
+    `consumed trees\nV1 ac1 ac2 SIN(0 325 50)\n${extra}D1 ac1 p DX\nD2 ac2 p DX\nD3 m ac1 DX\nD4 m ac2 DX\nC1 p m 100u\nR1 p m 1k\n.include parts.inc\n.model DX D(IS=1n)\n.end\n`;
+
+  it('re-parses a file cut at the card limit from scratch the second time, so the cut text is right (the limit parses twice)', () => {
+    const limits = { maxCards: 6 };
+    let files = { [URI]: bridge(''), 'file:///parts.inc': 'RX ac1 0 1meg\n' };
+    let previous = consuming(files, undefined, limits);
+    for (const extra of ['* a note\n', '', 'R9 ac1 ac2 1meg\n* two\n', '']) {
+      files = { ...files, [URI]: bridge(extra) };
+      previous = consuming(files, previous, limits);
+      expect(said(previous)).toEqual(said(freshOf(files, limits)));
+    }
+  });
+
+  it('reads an include it parsed before from its own previous tree, and an include that changed, right', () => {
+    let files = { [URI]: bridge(''), 'file:///parts.inc': 'RX ac1 0 1meg\n' };
+    let previous = consuming(files, undefined);
+    for (const include of ['RX ac1 0 1meg\n* more\n', 'RX ac1 0 2meg\n', 'RX ac1 0 2meg\n']) {
+      files = { [URI]: bridge('* edit\n'), 'file:///parts.inc': include };
+      previous = consuming(files, previous);
+      expect(said(previous)).toEqual(said(freshOf(files)));
+      expect(previous!.parsed.get('file:///parts.inc')!.text).toBe(include);
+    }
+  });
+
+  it('analyses a root that includes itself right with its trees consumed', () => {
+    let files = { [URI]: bridge('').replace('.include parts.inc', `.include ${URI}`) };
+    let previous = consuming(files, undefined);
+    for (const extra of ['* a\n', '* b\n']) {
+      files = { [URI]: bridge(extra).replace('.include parts.inc', `.include ${URI}`) };
+      previous = consuming(files, previous);
+      expect(said(previous)).toEqual(said(freshOf(files)));
+    }
   });
 });

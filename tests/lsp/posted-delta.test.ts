@@ -11,7 +11,7 @@ import { analyze, type FileAnalysis } from '../../server/src/analysis/analyze';
 import { codeLensesOf } from '../../server/src/editor/code-lens';
 import { inlayHintsOf } from '../../server/src/editor/inlay-hints';
 import { hoverInFile } from '../../server/src/editor/stress-hover';
-import { postedForm, restoredForm } from '../../server/src/lsp/posted-analysis';
+import { postedBaseOf, postedForm, restoredForm, type PostedRectifier } from '../../server/src/lsp/posted-analysis';
 import type { SolutionCache } from '../../server/src/solve/index';
 
 const URI = 'file:///delta.cir';
@@ -34,15 +34,18 @@ function twoBridges(c2: string, comment = ''): string {
   ].join('\n');
 }
 
-function analysed(text: string, cache: SolutionCache, previous?: FileAnalysis): FileAnalysis {
-  const file = analyze({ roots: [URI], readText: () => text, solutionCache: cache, compactFlat: true, previousParse: (u) => previous?.parsed.get(u) }).files.get(URI)!;
+function analysed(text: string, cache: SolutionCache, previous?: FileAnalysis, consumePreviousParse = false): FileAnalysis {
+  const file = analyze({ roots: [URI], readText: () => text, solutionCache: cache, compactFlat: true, previousParse: (u) => previous?.parsed.get(u), consumePreviousParse }).files.get(URI)!;
   // As the worker posts it: findings without their lazily computed fixes.
   return { ...file, findings: file.findings.map(({ uri, span, severity, code, message, related }) => ({ uri, span, severity, code, message, ...(related ? { related } : {}) })) };
 }
 
-/** What the main thread holds after the first analysis: a whole post, restored. */
+/** How a rectifier crossed: as a pointer to the held one moved by the edit, without its solution, or whole. */
+const crossed = (r: PostedRectifier) => ('movedFrom' in r ? 'moved' : 'sameSolutionAs' in r ? 'solution' : 'whole');
+
+/** What the main thread holds after the first analysis: a whole post, cloned as it crosses, restored. */
 function held(file: FileAnalysis, text: string): FileAnalysis {
-  return restoredForm(postedForm(file, text), { text, parsed: parseNetlist(text), held: undefined });
+  return restoredForm(structuredClone(postedForm(file, text)), { text, parsed: parseNetlist(text), held: undefined });
 }
 
 describe('a posted analysis that points at the one the main thread holds', () => {
@@ -55,8 +58,7 @@ describe('a posted analysis that points at the one the main thread holds', () =>
     const text = twoBridges('100u', '* a new comment');
     const second = analysed(text, cache, first);
     const posted = postedForm(second, text, first);
-    expect(posted.rectifiers.map((r) => 'sameSolutionAs' in r)).toEqual([true, true]);
-    for (const r of posted.rectifiers) for (const d of r.devices) expect(d.figures).toBeUndefined();
+    expect(posted.rectifiers.map(crossed)).toEqual(['moved', 'moved']);
     // Not a speed claim: without its solutions the message must be smaller, or nothing was left out.
     expect(serialize(posted).length).toBeLessThan(serialize(postedForm(second, text)).length);
 
@@ -80,10 +82,38 @@ describe('a posted analysis that points at the one the main thread holds', () =>
     const text = twoBridges('47u');
     const second = analysed(text, cache, first);
     const posted = postedForm(second, text, first);
-    expect(posted.rectifiers.map((r) => 'sameSolutionAs' in r)).toEqual([true, false]);
+    // The first bridge lies before the edit, so nothing of it moved; the second one's inputs changed.
+    expect(posted.rectifiers.map(crossed)).toEqual(['moved', 'whole']);
     const restored = restoredForm(posted, { text, parsed: parseNetlist(text), held: before });
     expect(restored.rectifiers).toEqual(held(second, text).rectifiers);
     expect(restored.rectifiers[1]!.solution).not.toEqual(before.rectifiers[1]!.solution);
+  });
+
+  it('points at the held rectifier after the worker\'s parse moved the previous trees, which share offsets with it', () => {
+    const cache: SolutionCache = new Map();
+    const first = analysed(twoBridges('100u'), cache);
+    const before = held(first, twoBridges('100u'));
+    // Kept before the next parse: that parse moves the cards, and the first analysis's offsets with them.
+    const base = postedBaseOf(first);
+    const text = twoBridges('100u', '* a new comment that moves both bridges');
+    const second = analysed(text, cache, first, true);
+    const posted = postedForm(second, text, base);
+    expect(posted.rectifiers.map(crossed)).toEqual(['moved', 'moved']);
+    const restored = restoredForm(posted, { text, parsed: parseNetlist(text), held: before });
+    expect(restored.rectifiers).toEqual(held(second, text).rectifiers);
+    expect(inlayHintsOf(restored, 'full')).toEqual(inlayHintsOf(held(second, text), 'full'));
+  });
+
+  it('posts whole a rectifier that differs in anything but the edit\'s move, even with the same solution', () => {
+    const cache: SolutionCache = new Map();
+    const first = analysed(twoBridges('100u'), cache);
+    const before = held(first, twoBridges('100u'));
+    // Renaming the source changes no solver input but changes what the rectifier says.
+    const text = twoBridges('100u').replace('V2 l2', 'VB l2');
+    const second = analysed(text, cache, first);
+    const posted = postedForm(second, text, first);
+    expect(posted.rectifiers.map(crossed)).toEqual(['moved', 'solution']);
+    expect(restoredForm(posted, { text, parsed: parseNetlist(text), held: before }).rectifiers).toEqual(held(second, text).rectifiers);
   });
 
   it('refuses to restore a pointer without the analysis it points into', () => {

@@ -32,6 +32,13 @@ export interface AnalysisInput {
    * only its changed lines are parsed again. The result is the same without it.
    */
   previousParse?: (uri: string) => Netlist | undefined;
+  /**
+   * Whether the trees `previousParse` gives may be consumed: their cards after each edit are moved
+   * (offsets updated in place) instead of copied. Only for an adapter that drops the previous
+   * analysis once this one is made (the language server's worker), since that analysis no longer
+   * describes its own text afterwards. Each tree is consumed at most once.
+   */
+  consumePreviousParse?: boolean;
   /** Solutions kept between analyses by the adapter (see `SolutionCache`). */
   solutionCache?: SolutionCache;
   /** Overrides of the hard limits (tests lower them); see limits.ts. */
@@ -70,15 +77,16 @@ export function analyze(input: AnalysisInput): Snapshot {
   const files = new Map<string, FileAnalysis>();
   const unreadable: string[] = [];
   const parsedAcrossRoots = new Map<string, Netlist | ReadRefusal | undefined>();
+  const consumed = new Set<Netlist>();
   for (const uri of input.roots) {
-    const file = analyzeRoot(uri, input, parsedAcrossRoots);
+    const file = analyzeRoot(uri, input, parsedAcrossRoots, consumed);
     if (file) files.set(uri, file);
     else unreadable.push(uri);
   }
   return { files, unreadable };
 }
 
-function analyzeRoot(uri: string, input: AnalysisInput, cache: Map<string, Netlist | ReadRefusal | undefined>): FileAnalysis | undefined {
+function analyzeRoot(uri: string, input: AnalysisInput, cache: Map<string, Netlist | ReadRefusal | undefined>, consumed: Set<Netlist>): FileAnalysis | undefined {
   const limits: AnalysisLimits = { ...DEFAULT_LIMITS, ...input.limits };
   const parsed = new Map<string, Netlist>();
   const load = (target: string): Netlist | ReadRefusal | undefined => {
@@ -88,8 +96,8 @@ function analyzeRoot(uri: string, input: AnalysisInput, cache: Map<string, Netli
     const key = `${titleLine ? 'root' : 'include'}:${target}`;
     if (!cache.has(key)) {
       const text = input.readText(target);
-      const previous = input.previousParse?.(target);
-      cache.set(key, typeof text === 'string' ? parseWithinLimits(text, (t) => parseNetlist(t, { titleLine, previous }), limits) : text);
+      const parse = typeof text === 'string' ? reparseOnce(input, target, titleLine, consumed) : undefined;
+      cache.set(key, typeof text === 'string' ? parseWithinLimits(text, parse!, limits) : text);
     }
     const netlist = cache.get(key);
     if (netlist && !isRefusal(netlist)) parsed.set(target, netlist);
@@ -133,4 +141,23 @@ function analyzeRoot(uri: string, input: AnalysisInput, cache: Map<string, Netli
 function withIterationLimit(solve: SolveFn, maxIterations: number | undefined): SolveFn {
   if (maxIterations === undefined) return solve;
   return (circuit, corners, options) => solve(circuit, corners, { ...options, steadyState: { ...options?.steadyState, maxIterations } });
+}
+
+/**
+ * The parse of one file from its previous tree, if there is one. Only the first call gets that
+ * tree (parseWithinLimits parses a cut file a second time, from scratch), and a consumed tree is
+ * never handed out again: its cards have moved.
+ */
+function reparseOnce(input: AnalysisInput, target: string, titleLine: boolean, consumed: Set<Netlist>): (text: string) => Netlist {
+  let previous = input.previousParse?.(target);
+  const consume = input.consumePreviousParse === true;
+  if (previous && consume) {
+    if (consumed.has(previous)) previous = undefined;
+    else consumed.add(previous);
+  }
+  return (text) => {
+    const from = previous;
+    previous = undefined;
+    return parseNetlist(text, { titleLine, previous: from, consumePrevious: consume && from !== undefined });
+  };
 }

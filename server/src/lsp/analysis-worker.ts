@@ -15,7 +15,7 @@ import { offeredFixes, summariseOffer, verifyOffer, type Finding, type Verified 
 import type { SolutionCache } from '../solve/index';
 import { memoisedSolver } from '../solve/index';
 import type { PostedAnswer, PostedRequest, ResolveOutcome, WorkerAnswer, WorkerRequest, WorkerSetup } from './analysis-messages';
-import { postedForm } from './posted-analysis';
+import { postedWithBase, type PostedBase } from './posted-analysis';
 import { renderView } from './views';
 import { createWorkspaceReader } from './workspace-reader';
 
@@ -23,8 +23,13 @@ const setup = workerData as WorkerSetup;
 const openDocuments = new Map<string, string>();
 const readText = createWorkspaceReader({ openText: (uri) => openDocuments.get(uri), trust: () => setup.trust });
 const solutionCache: SolutionCache = new Map();
-/** Per root: the latest analyses, newest first, each with its sequence number. */
-const kept = new Map<string, { sequence: number; file: FileAnalysis }[]>();
+/**
+ * Per root: the latest analyses, newest first, each with its sequence number. An analysis whose
+ * trees the next one consumed (its cards moved to the new text) is kept only to be named: nothing
+ * is computed on it any more, so a request that raced an edit gets nothing rather than edits at
+ * offsets of another text.
+ */
+const kept = new Map<string, { sequence: number; file: FileAnalysis; posted: PostedBase; consumed?: boolean }[]>();
 let nextSequence = 1;
 
 parentPort?.on('message', ({ id, request }: PostedRequest) => {
@@ -48,15 +53,20 @@ function handle(request: WorkerRequest): WorkerAnswer {
       // asks about none older than that: the one before it is released before the new one is built.
       const previous = kept.get(request.uri)?.[0];
       if (previous) kept.set(request.uri, [previous]);
-      const base = request.held === undefined ? undefined : keptAnalysis(request.uri, request.held);
+      const base = request.held === undefined ? undefined : kept.get(request.uri)?.find((k) => k.sequence === request.held)?.posted;
+      // The previous trees are moved into the new parse rather than copied: at 5,000 lines copying
+      // them was the largest single cost of an edit. From here on the previous analysis is only named.
+      const reusable = previous && !previous.consumed ? previous : undefined;
+      if (reusable) reusable.consumed = true;
       const file = analyze({
         roots: [request.uri], readText, settings: request.settings, partsFiles: request.partsFiles, solutionCache, compactFlat: true,
-        previousParse: (target) => previous?.file.parsed.get(target),
+        previousParse: (target) => reusable?.file.parsed.get(target), consumePreviousParse: true,
       }).files.get(request.uri);
       if (!file) return { kind: 'analysed', file: undefined, sequence: 0 };
       const sequence = nextSequence++;
-      kept.set(request.uri, [{ sequence, file }, ...(kept.get(request.uri) ?? []).slice(0, 1)]);
-      return { kind: 'analysed', file: postedForm({ ...file, findings: file.findings.map(withoutFixes) }, openDocuments.get(request.uri), base), sequence };
+      const { posted, next } = postedWithBase({ ...file, findings: file.findings.map(withoutFixes) }, openDocuments.get(request.uri), base);
+      kept.set(request.uri, [{ sequence, file, posted: next }, ...(kept.get(request.uri) ?? []).slice(0, 1)]);
+      return { kind: 'analysed', file: posted, sequence };
     }
     case 'fixes': {
       const file = keptAnalysis(request.uri, request.sequence);
@@ -80,8 +90,10 @@ function handle(request: WorkerRequest): WorkerAnswer {
   }
 }
 
+/** A kept analysis that still describes its text (not consumed by the next one). */
 function keptAnalysis(uri: string, sequence: number): FileAnalysis | undefined {
-  return kept.get(uri)?.find((k) => k.sequence === sequence)?.file;
+  const entry = kept.get(uri)?.find((k) => k.sequence === sequence);
+  return entry && !entry.consumed ? entry.file : undefined;
 }
 
 function outcomeOf(verified: Verified): ResolveOutcome {

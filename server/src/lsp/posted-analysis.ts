@@ -22,14 +22,16 @@
 import { parseNetlist, type Netlist } from '../../../grammar/src/index';
 import type { FileAnalysis } from '../analysis/analyze';
 import type { FlatCircuit } from '../circuit/index';
+import { movedByEdit, movedInPlaceMatches, rootEditBetween, type RootEdit } from './root-edit';
 
 // Named through the analysis: the server's room does not import the equivalent room.
 type Rectifier = FileAnalysis['rectifiers'][number];
 type DeviceAnalysis = Rectifier['devices'][number];
 
-/** A rectifier as posted: whole, or pointing at the rectifier of the base analysis whose solution it shares. */
+/** A rectifier as posted: whole, pointing at the base analysis's rectifier that it is but for the edit's move of offsets, or at the one whose solution it shares. */
 export type PostedRectifier =
   | Rectifier
+  | { movedFrom: number }
   | (Omit<Rectifier, 'solution' | 'devices'> & {
     /** Index of the base analysis's rectifier with the same solution. */
     sameSolutionAs: number;
@@ -37,25 +39,80 @@ export type PostedRectifier =
     devices: (Omit<DeviceAnalysis, 'figures'> & { figures?: DeviceAnalysis['figures'] })[];
   });
 
-/** An analysis as posted: without the root's parse and text when the main thread has the same text, and with rectifiers it already holds pointed at. */
-export type PostedAnalysis = Omit<FileAnalysis, 'netlist' | 'text' | 'rectifiers'> & { netlist?: Netlist; text?: string; rectifiers: PostedRectifier[] };
+/**
+ * An analysis as posted: without the root's parse and text when the main thread has the same text,
+ * and with rectifiers it already holds pointed at (`rootEdit`: the edit from the base's text, for
+ * the rectifiers posted as `movedFrom`).
+ */
+export type PostedAnalysis = Omit<FileAnalysis, 'netlist' | 'text' | 'rectifiers'> & { netlist?: Netlist; text?: string; rectifiers: PostedRectifier[]; rootEdit?: RootEdit };
+
+/** A rectifier's solver data, the same objects in both analyses when its inputs are the same (never offsets). */
+const SOLVER_DATA: ReadonlySet<string> = new Set(['solution', 'figures']);
 
 /**
- * `mainThreadText`: the text of the root as the main thread sent it, when it sent it; `base`: the
- * worker's own copy of the analysis the main thread holds for this root, when it still has it.
+ * What the worker keeps of a posted analysis, to point into with the next one: the root's text and
+ * the rectifiers as the main thread holds them. Detached from the trees (`postedBaseOf`): the next
+ * parse moves the cards of this one in place, and with them every offset an analysis shares with
+ * its tree.
  */
-export function postedForm(file: FileAnalysis, mainThreadText: string | undefined, base?: FileAnalysis): PostedAnalysis {
-  const held = new Map(base?.rectifiers.map((r, j) => [r.solution, j]));
-  const compact = { ...file, flat: postedFlat(file), rectifiers: file.rectifiers.map((r) => postedRectifier(r, held, base)) };
-  // A parse cut at a limit holds less than the text (limits.ts), and a root that includes itself
-  // has its include-role parse in `parsed`: only a whole parse in its one role is left out.
-  if (mainThreadText === undefined || file.netlist.text !== mainThreadText || file.parsed.get(file.uri) !== file.netlist) return compact;
-  const { netlist: _parsedByTheMainThread, text: _sentByTheMainThread, ...rest } = compact;
-  return { ...rest, parsed: new Map([...file.parsed].filter(([uri]) => uri !== file.uri)) };
+export interface PostedBase {
+  text: string;
+  rectifiers: readonly Rectifier[];
 }
 
-function postedRectifier(analysis: Rectifier, held: ReadonlyMap<unknown, number>, base: FileAnalysis | undefined): PostedRectifier {
-  const j = held.get(analysis.solution);
+/** A detached copy of what the main thread will hold of `file`'s rectifiers. */
+export function postedBaseOf(file: FileAnalysis): PostedBase {
+  return { text: file.text, rectifiers: file.rectifiers.map(detached) };
+}
+
+/**
+ * `mainThreadText`: the text of the root as the main thread sent it, when it sent it; `base`: what
+ * the worker kept of the analysis the main thread holds for this root, when it still has it (left
+ * as it is: this form is for callers that keep using it).
+ */
+export function postedForm(file: FileAnalysis, mainThreadText: string | undefined, base?: PostedBase): PostedAnalysis {
+  return postedWithBase(file, mainThreadText, base && { text: base.text, rectifiers: base.rectifiers.map(detached) }).posted;
+}
+
+/**
+ * The posted form and what to keep of it for the next one, for the worker. `base` is used up: its
+ * rectifiers are moved in place to the new text, and those that match are kept as the next base.
+ */
+export function postedWithBase(file: FileAnalysis, mainThreadText: string | undefined, base?: PostedBase): { posted: PostedAnalysis; next: PostedBase } {
+  const held = new Map(base?.rectifiers.map((r, j) => [r.solution, j]));
+  const rootEdit = base ? rootEditBetween(file.uri, base.text, file.text) : undefined;
+  const next: Rectifier[] = [];
+  const moved = new Set<number>();
+  const rectifiers = file.rectifiers.map((r) => {
+    const j = held.get(r.solution);
+    // An edit elsewhere moves the rectifier's offsets and nothing else: proven here (once per held
+    // rectifier, as it moves that one in place), and the main thread makes the same move.
+    if (j !== undefined && rootEdit && !moved.has(j)) {
+      moved.add(j);
+      if (movedInPlaceMatches(base!.rectifiers[j], r, rootEdit, SOLVER_DATA)) {
+        next.push(base!.rectifiers[j]!);
+        return { movedFrom: j };
+      }
+    }
+    next.push(detached(r));
+    return postedRectifier(r, j, base);
+  });
+  const compact = { ...file, flat: postedFlat(file), rectifiers, ...(rootEdit ? { rootEdit } : {}) };
+  const keep = { text: file.text, rectifiers: next };
+  // A parse cut at a limit holds less than the text (limits.ts), and a root that includes itself
+  // has its include-role parse in `parsed`: only a whole parse in its one role is left out.
+  if (mainThreadText === undefined || file.netlist.text !== mainThreadText || file.parsed.get(file.uri) !== file.netlist) return { posted: compact, next: keep };
+  const { netlist: _parsedByTheMainThread, text: _sentByTheMainThread, ...rest } = compact;
+  return { posted: { ...rest, parsed: new Map([...file.parsed].filter(([uri]) => uri !== file.uri)) }, next: keep };
+}
+
+/** A copy that shares no offsets with the trees (solver data shared, never copied). */
+function detached(r: Rectifier): Rectifier {
+  return movedByEdit(r, { uri: '', from: Infinity, delta: 0 }, SOLVER_DATA);
+}
+
+/** A rectifier posted whole, or without the solution and figures of base rectifier `j` that it shares. */
+function postedRectifier(analysis: Rectifier, j: number | undefined, base: PostedBase | undefined): PostedRectifier {
   if (j === undefined) return withoutWaveforms(analysis);
   const before = base!.rectifiers[j]!.devices;
   const { solution: _held, ...rest } = analysis;
@@ -81,21 +138,31 @@ export function mainThreadParse(text: string | undefined, previous: Netlist | un
  * analysis the main thread had when it asked (the one the worker was told of).
  */
 export function restoredForm(posted: PostedAnalysis, here: { text: string | undefined; parsed: Netlist | undefined; held: FileAnalysis | undefined }): FileAnalysis {
-  const rectifiers = posted.rectifiers.map((r) => restoredRectifier(r, here.held));
+  const rectifiers = posted.rectifiers.map((r) => restoredRectifier(r, here.held, posted.rootEdit));
   if (posted.netlist && posted.text !== undefined) return { ...posted, text: posted.text, netlist: posted.netlist, rectifiers };
   const text = posted.text ?? here.text ?? '';
   const netlist = here.parsed?.text === text ? here.parsed : parseNetlist(text);
   return { ...posted, text, netlist, rectifiers, parsed: new Map([[posted.uri, netlist], ...posted.parsed]) };
 }
 
-function restoredRectifier(posted: PostedRectifier, held: FileAnalysis | undefined): Rectifier {
+function restoredRectifier(posted: PostedRectifier, held: FileAnalysis | undefined, edit: RootEdit | undefined): Rectifier {
+  if ('movedFrom' in posted) {
+    const moved = heldRectifier(held, posted.movedFrom);
+    if (!edit) throw new Error('posted analysis moves a rectifier without saying by which edit');
+    return movedByEdit(moved, edit, SOLVER_DATA);
+  }
   if (!('sameSolutionAs' in posted)) return posted;
   const { sameSolutionAs: j, ...rest } = posted;
-  const same = held?.rectifiers[j];
-  // The worker points only into the analysis the request named, which the caller passes here.
-  if (!same) throw new Error(`posted analysis points at rectifier ${j} of an analysis the main thread does not hold`);
+  const same = heldRectifier(held, j);
   const devices = posted.devices.map((d, k): DeviceAnalysis => (d.figures ? (d as DeviceAnalysis) : { ...d, figures: same.devices[k]!.figures }));
   return { ...rest, solution: same.solution, devices };
+}
+
+/** The worker points only into the analysis the request named, which the caller passes here. */
+function heldRectifier(held: FileAnalysis | undefined, j: number): Rectifier {
+  const same = held?.rectifiers[j];
+  if (!same) throw new Error(`posted analysis points at rectifier ${j} of an analysis the main thread does not hold`);
+  return same;
 }
 
 function postedFlat(file: FileAnalysis): FlatCircuit {
