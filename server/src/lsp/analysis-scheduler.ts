@@ -178,14 +178,15 @@ export class AnalysisScheduler {
     const open = new Map(documents.map((d) => [d.uri, d.text]));
     // The answer may point into the analysis held now (posted-analysis.ts), so that one is kept for it.
     const held = this.results.get(uri);
-    const analysed = this.worker.analyse(uri, open, this.hooks.settings(uri), this.hooks.partsFiles(), this.patienceMs, held?.sequence);
-    // The root's parse is made here while the worker analyses, instead of crossing in the answer (posted-analysis.ts).
-    const parsedHere = mainThreadParse(open.get(uri), held?.file.netlist);
-    const outcome = await analysed;
+    const outcome = await this.worker.analyse(uri, open, this.hooks.settings(uri), this.hooks.partsFiles(), this.patienceMs, held?.sequence);
     if (outcome.kind === 'stopped') {
       this.results.delete(uri);
       this.hooks.onStopped(uri, version, outcome);
     } else if (outcome.file) {
+      // The root's parse is made here instead of crossing in the answer (posted-analysis.ts), from
+      // the tree of the analysis this one replaces: its cards are moved, not copied, now that no
+      // request can be answered from it any more (until here, one that ran out of patience was).
+      const parsedHere = mainThreadParse(open.get(uri), this.results.get(uri) === held ? held?.file.netlist : undefined);
       const file = restoredForm(outcome.file, { text: open.get(uri), parsed: parsedHere, held: held?.file });
       this.results.set(uri, { file, sequence: outcome.sequence, version });
       this.hooks.onAnalysed(file, version);

@@ -125,11 +125,12 @@ function postedRectifier(analysis: Rectifier, j: number | undefined, base: Poste
 }
 
 /**
- * The main thread's parse of a root's text, made while the worker analyses it: from the previous
- * parse of the same root, so that only the changed cards are parsed again.
+ * The main thread's parse of a root's text, made once the worker's answer is in: from the parse of
+ * the analysis it replaces, which it consumes (that tree's cards move into this one), so that only
+ * the changed cards are parsed and nothing is copied.
  */
-export function mainThreadParse(text: string | undefined, previous: Netlist | undefined): Netlist | undefined {
-  return text === undefined ? undefined : parseNetlist(text, { previous });
+export function mainThreadParse(text: string | undefined, replaced: Netlist | undefined): Netlist | undefined {
+  return text === undefined ? undefined : parseNetlist(text, { previous: replaced, consumePrevious: replaced !== undefined });
 }
 
 /**
