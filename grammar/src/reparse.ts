@@ -199,19 +199,60 @@ export function shifted<T>(value: T, delta: number): T {
 /**
  * The same value with its offsets moved in place: no copy, so the node keeps its identity (what
  * re-uses work per card needs) and the old tree that held it no longer describes the old text.
+ * The offsets of a node are found once and listed (`offsetsOf`): a card after an edit moves again
+ * with every later edit above it, and walking it each time was the largest cost of a re-parse.
  */
 export function movedBy<T>(value: T, delta: number): T {
   if (delta === 0 || value === null || typeof value !== 'object') return value;
-  if (Array.isArray(value)) {
-    for (const item of value) movedBy(item, delta);
+  if (isBareSpan(value)) {
+    // A comment: nothing to find, nothing worth listing.
+    value.start += delta;
+    value.end += delta;
     return value;
+  }
+  const offsets = offsetsOf(value);
+  const { holders, keys } = offsets;
+  for (let i = 0; i < holders.length; i++) holders[i]![keys[i]!] += delta;
+  return value;
+}
+
+/** Every offset in a node: the object that holds it and its key, in the order a walk meets them (an object met twice, twice). */
+interface Offsets {
+  holders: Record<string, number>[];
+  keys: ('start' | 'end')[];
+}
+
+const offsetsByNode = new WeakMap<object, Offsets>();
+
+function offsetsOf(node: object): Offsets {
+  let found = offsetsByNode.get(node);
+  if (!found) {
+    found = { holders: [], keys: [] };
+    collectOffsets(node, found);
+    offsetsByNode.set(node, found);
+  }
+  return found;
+}
+
+function isBareSpan(value: object): value is Span {
+  let count = 0;
+  for (const key in value) {
+    if ((key !== 'start' && key !== 'end') || typeof (value as Record<string, unknown>)[key] !== 'number') return false;
+    count++;
+  }
+  return count === 2;
+}
+
+function collectOffsets(value: object, into: Offsets): void {
+  if (Array.isArray(value)) {
+    for (const item of value) if (item !== null && typeof item === 'object') collectOffsets(item, into);
+    return;
   }
   const fields = value as Record<string, unknown>;
   for (const key in fields) {
     const field = fields[key];
     if (typeof field === 'number') {
-      if (key === 'start' || key === 'end') fields[key] = field + delta;
-    } else if (field !== null && typeof field === 'object') movedBy(field, delta);
+      if (key === 'start' || key === 'end') { into.holders.push(fields as Record<string, number>); into.keys.push(key); }
+    } else if (field !== null && typeof field === 'object') collectOffsets(field, into);
   }
-  return value;
 }
