@@ -22,9 +22,10 @@ export function timeoutFor(count: number, msPerCase: number): number {
 
 /**
  * Wall-clock bound on one document through analysis and every feature. Generous on purpose:
- * it is a hang detector on a loaded 2-core machine, not a speed target (DESIGN.md §10 has those).
+ * it is a hang detector on a loaded 2-core machine, not a speed target (the benchmark has those);
+ * the slowest generated document took 15–19 s on a slow day.
  */
-export const MAX_MS_PER_DOCUMENT = 30_000;
+export const MAX_MS_PER_DOCUMENT = 60_000;
 
 /**
  * Options for every property run: stop at the first counterexample and report it as found.
