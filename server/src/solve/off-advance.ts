@@ -181,6 +181,7 @@ export class OffAdvance {
     if (net.hasL) { o.y[net.n - 1] = 0; o.f[net.n - 1] = 0; }
     const sn = Math.sin(net.omega * t);
     const cs = Math.cos(net.omega * t);
+    o.sinWt = sn; o.cosWt = cs;
     let best = -Infinity;
     for (const path of net.paths) {
       let d = path.a * sn + path.b * cs;

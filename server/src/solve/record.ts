@@ -47,7 +47,7 @@ export class PeriodRecord {
     this.t[k] = t; this.w[k] = 0; this.mode[k] = o.mode; this.iA[k] = o.iA;
     this.vLoadV[k] = o.vLoadV; this.iLoadA[k] = o.iLoadA;
     for (let j = 0; j < np; j++) this.u[k * np + j] = o.u[j]!;
-    this.fillDeviceVoltages(t, o, k * nd);
+    this.fillDeviceVoltages(o, k * nd);
     return k;
   }
 
@@ -87,12 +87,13 @@ export class PeriodRecord {
     return (p.a * Math.sin(wt) + p.b * Math.cos(wt)) * this.iA[k]!;
   }
 
-  private fillDeviceVoltages(t: number, o: StageOut, off: number): void {
+  private fillDeviceVoltages(o: StageOut, off: number): void {
     const net = this.net;
     const path = o.mode >= 0 ? net.paths[o.mode]! : undefined;
     if (path) for (const k of path.devices) this.devOn[k] = deviceVoltageV(net.devices[k]!, o.iA, this.slope);
-    const sn = Math.sin(net.omega * t);
-    const cs = Math.cos(net.omega * t);
+    // The stage evaluated the source phase at this same instant t.
+    const sn = o.sinWt;
+    const cs = o.cosWt;
     let vMax = -Infinity, vMin = Infinity;
     for (let x = 0; x < net.lines.length; x++) {
       const l = net.lines[x]!;

@@ -28,6 +28,9 @@ export class StageOut {
   didtAps = 0;
   iLoadA = 0;
   vLoadV = 0;
+  /** sin ωt and cos ωt at the stage's time, kept so the record need not evaluate them again. */
+  sinWt = 0;
+  cosWt = 1;
   constructor(n: number, nPorts: number) {
     this.y = zeros(n);
     this.f = zeros(n);
@@ -38,7 +41,7 @@ export class StageOut {
   copyFrom(o: StageOut): void {
     copyInto(this.y, o.y); copyInto(this.f, o.f); copyInto(this.dydr, o.dydr); copyInto(this.dfdr, o.dfdr); copyInto(this.u, o.u);
     this.mode = o.mode; this.phi = o.phi; this.iA = o.iA; this.didtAps = o.didtAps;
-    this.iLoadA = o.iLoadA; this.vLoadV = o.vLoadV;
+    this.iLoadA = o.iLoadA; this.vLoadV = o.vLoadV; this.sinWt = o.sinWt; this.cosWt = o.cosWt;
   }
 }
 
@@ -250,7 +253,7 @@ export class StageSolver {
     const den = 1 + K * gp;
     let B = 0;
     if (path) for (let j = 0; j < ports.length; j++) B += ports[j]!.l * this.k[j]! * path.s[j]!;
-    out.mode = mode; out.iA = i; out.iLoadA = this.g; out.vLoadV = this.vL;
+    out.mode = mode; out.iA = i; out.iLoadA = this.g; out.vLoadV = this.vL; out.sinWt = sn; out.cosWt = cs;
     let sumSu = 0;
     for (let j = 0; j < ports.length; j++) {
       const s = path ? path.s[j]! : 0;
