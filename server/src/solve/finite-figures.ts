@@ -18,8 +18,17 @@ export function dropNonFiniteFigures(solution: CornerSolution): void {
 /** Whether any number reachable from `value` is NaN or infinite. */
 export function holdsNonFinite(value: unknown): boolean {
   if (typeof value === 'number') return !Number.isFinite(value);
-  if (Array.isArray(value)) return value.some(holdsNonFinite);
-  if (value && typeof value === 'object') return Object.values(value).some(holdsNonFinite);
+  if (Array.isArray(value)) {
+    // Plain loops: a corner's waveforms hold a few thousand numbers.
+    for (let k = 0; k < value.length; k++) {
+      const x: unknown = value[k];
+      if (typeof x === 'number' ? !Number.isFinite(x) : holdsNonFinite(x)) return true;
+    }
+    return false;
+  }
+  if (value && typeof value === 'object') {
+    for (const key in value) if (holdsNonFinite((value as Record<string, unknown>)[key])) return true;
+  }
   return false;
 }
 

@@ -7,7 +7,7 @@
  * at a time while a capacitor holds the output above zero, which keeps each implicit step scalar.
  */
 import type { ControllerSupply, EquivalentCircuit, FixedLoad, Load, RectifierDevice } from './equivalent-circuit';
-import { scaleDiodeToTemp } from './diode-model';
+import { scaleDiodeToTemp, type DiodeAtTemp } from './diode-model';
 import { DEFAULT_CONTROLLER_VMIN_V, DEFAULT_GATE_ON_V, rdsOnOhm, type ConductingDevice } from './mosfet-model';
 import { buildGates, type GateRule } from './gates';
 
@@ -293,19 +293,26 @@ function placeDevices(c: EquivalentCircuit, lay: Layout, tjC: readonly number[],
 
 /** A device at a junction temperature (gate off until the integrator sets it). */
 export function makeDevice(d: RectifierDevice, line: number, upper: boolean, tjC: number): NetDevice {
+  const p = paramsAtTemp(d, tjC);
+  // One literal shape for every device, so the stage solver's reads of it stay monomorphic.
+  return { isA: p.isA, nVtV: p.nVtV, rsOhm: p.rsOhm, rdsOhm: p.rdsOhm, channelOn: false, name: d.name, line, upper, gate: undefined, source: d };
+}
+
+/** The temperature-dependent parameters of a device: its diode (or body diode) and its channel. */
+function paramsAtTemp(d: RectifierDevice, tjC: number): DiodeAtTemp & { rdsOhm: number } {
   const body = scaleDiodeToTemp(d.kind === 'diode' ? d.params : d.body, tjC);
-  const rds = d.kind === 'mosfet' ? rdsOnOhm(d.rdsOn25Ohm, d.rdsOnTempExponent, tjC) : Infinity;
-  return { ...body, rdsOhm: rds, channelOn: false, name: d.name, line, upper, gate: undefined, source: d };
+  const rdsOhm = d.kind === 'mosfet' ? rdsOnOhm(d.rdsOn25Ohm, d.rdsOnTempExponent, tjC) : Infinity;
+  return { isA: body.isA, nVtV: body.nVtV, rsOhm: body.rsOhm, rdsOhm };
 }
 
 /** Re-scales every device to new junction temperatures (the electro-thermal loop). */
 export function setDeviceTemperatures(net: Network, tjC: readonly number[]): void {
   net.devices.forEach((d, k) => {
-    const fresh = makeDevice(d.source, d.line, d.upper, tjC[k] ?? 25);
-    d.isA = fresh.isA;
-    d.nVtV = fresh.nVtV;
-    d.rsOhm = fresh.rsOhm;
-    d.rdsOhm = fresh.rdsOhm;
+    const p = paramsAtTemp(d.source, tjC[k] ?? 25);
+    d.isA = p.isA;
+    d.nVtV = p.nVtV;
+    d.rsOhm = p.rsOhm;
+    d.rdsOhm = p.rdsOhm;
   });
 }
 

@@ -41,12 +41,12 @@ export function sampleWaveform(rec: WaveformSource, points: number, mainsScale: 
     while (k < n - 2 && rec.t[k + 1]! < t) k++;
     const span = rec.t[k + 1]! - rec.t[k]!;
     const a = span > 0 ? Math.min(Math.max((t - rec.t[k]!) / span, 0), 1) : 0;
-    const lerp = (f: (j: number) => number) => (1 - a) * f(k) + a * f(k + 1);
+    const b = 1 - a;
     w.tS.push(t);
     w.sourceV.push(rec.sourceVoltageV(t));
-    w.outputV.push(lerp((j) => rec.vLoadV[j]!));
-    w.sourceA.push(mainsScale * lerp((j) => rec.sourceCurrentA(j)));
-    for (let d = 0; d < nd; d++) w.deviceA[d]!.push(lerp((j) => rec.deviceCurrentA(j, d)));
+    w.outputV.push(b * rec.vLoadV[k]! + a * rec.vLoadV[k + 1]!);
+    w.sourceA.push(mainsScale * (b * rec.sourceCurrentA(k) + a * rec.sourceCurrentA(k + 1)));
+    for (let d = 0; d < nd; d++) w.deviceA[d]!.push(b * rec.deviceCurrentA(k, d) + a * rec.deviceCurrentA(k + 1, d));
   }
   return w;
 }
