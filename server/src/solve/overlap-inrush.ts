@@ -7,6 +7,7 @@
 import type { EquivalentCircuit } from './equivalent-circuit';
 import { inrushCasesOf, surgeFigureA, type DeviceInrush } from './inrush-cases';
 import { refinedMax } from './figures';
+import { INRUSH_STEP_FRACTION } from './inrush';
 import { setDeviceTemperatures } from './network';
 import { OverlapIntegrator } from './overlap-integrator';
 import { OverlapRecord } from './overlap-record';
@@ -35,7 +36,7 @@ export function overlapWorstInrush(c: EquivalentCircuit, sys: OverlapSystem, amb
     const crest = k.polarity === 'positive' ? Math.PI / 2 : (3 * Math.PI) / 2;
     const tOn = ((((crest - phi) / net.omega) % T) + T) % T;
     const record = new OverlapRecord(caseSys);
-    const opts = { ...overlapOptions(caseSys, relTol, 20000), sensitivity: false, record, hMaxOnS: T / 1000 };
+    const opts = { ...overlapOptions(caseSys, relTol, 20000), sensitivity: false, record, hMaxOnS: T * INRUSH_STEP_FRACTION };
     if (!new OverlapIntegrator(caseSys).run(tOn, tOn + T / 2, zeros(caseSys.n), opts)) return undefined;
     const label = `${k.start} at the ${k.polarity} crest`;
     const devs = net.devices.map((_, d): DeviceInrush => {
