@@ -8,14 +8,9 @@
 import { describe, expect, it } from 'vitest';
 import { buildNetwork } from '../../server/src/solve/network';
 import { simulateInrush } from '../../server/src/solve/inrush';
-import type { DiodeParams } from '../../server/src/solve/equivalent-circuit';
-import { bisect, bridgeDevices, circuit } from './fixtures';
+import { bridgeDevices, circuit } from './fixtures';
+import { SPICE_DIODE, bridgeCurrentA } from './spice-diode-reference';
 import { loadOdex } from './odex-loader';
-
-/** Our own example diode (no datasheet): IS and N written out, RS = 0, TNOM 25 °C. */
-const DIODE: DiodeParams = { isA: 5e-9, n: 1.9, rsOhm: 0, egEv: 1.11, xti: 3, tnomC: 25 };
-const VT_25C = (1.380649e-23 * 298.15) / 1.602176634e-19; // kT/q, SI-exact constants
-const vDiode = (i: number) => DIODE.n * VT_25C * Math.log1p(i / DIODE.isA);
 
 interface Case { label: string; vrms: number; f: number; rs: number; c: number; rl: number }
 
@@ -25,12 +20,6 @@ const CASES: Case[] = [
   { label: '24 V 50 Hz, 0.2 Ω into 4.7 mF, 20 Ω load', vrms: 24, f: 50, rs: 0.2, c: 4.7e-3, rl: 20 },
 ];
 
-/** Bridge current from |e| = Rs·i + 2·Vd(i) + v (zero when the diodes are reverse-biased). */
-function bridgeCurrent(eAbs: number, v: number, rs: number): number {
-  if (eAbs <= v) return 0;
-  return bisect((i) => rs * i + 2 * vDiode(i) + v - eAbs, 0, (eAbs - v) / rs, 80);
-}
-
 describe('switch-on inrush against odex', () => {
   for (const k of CASES) {
     it(k.label, async () => {
@@ -38,7 +27,7 @@ describe('switch-on inrush against odex', () => {
       const w = 2 * Math.PI * k.f;
       const vm = k.vrms * Math.SQRT2;
       const T = 1 / k.f;
-      const current = (t: number, v: number) => bridgeCurrent(Math.abs(vm * Math.sin(w * t)), v, k.rs);
+      const current = (t: number, v: number) => bridgeCurrentA(Math.abs(vm * Math.sin(w * t)), v, k.rs);
       const solver = new Solver(1);
       solver.absoluteTolerance = 1e-10 * vm;
       solver.relativeTolerance = 1e-10;
@@ -54,7 +43,7 @@ describe('switch-on inrush against odex', () => {
         if (last !== undefined) i2t += 0.5 * (last * last + i * i) * dt; // trapezoid on a fine grid
         last = i;
       }));
-      const net = buildNetwork(circuit('diode-bridge', { vrms: k.vrms, freqHz: k.f, rOhm: k.rs }, bridgeDevices(DIODE), [[k.c, 0]], { kind: 'resistance', ohm: k.rl }), 1, [25, 25, 25, 25], [])!;
+      const net = buildNetwork(circuit('diode-bridge', { vrms: k.vrms, freqHz: k.f, rOhm: k.rs }, bridgeDevices(SPICE_DIODE), [[k.c, 0]], { kind: 'resistance', ohm: k.rl }), 1, [25, 25, 25, 25], [])!;
       const ours = simulateInrush(net, 1e-5, 'positive');
       expect(ours.ok).toBe(true);
       expect(Math.abs(ours.peakA / peak - 1)).toBeLessThan(1e-3);

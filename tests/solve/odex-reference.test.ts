@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { solveCorner } from '../../server/src/solve/solve-rectifier';
-import type { DiodeParams } from '../../server/src/solve/equivalent-circuit';
-import { AT_25C, bisect, bridgeDevices, circuit } from './fixtures';
+import { AT_25C, bridgeDevices, circuit } from './fixtures';
+import { SPICE_DIODE, bridgeCurrentA, spiceDiodeV } from './spice-diode-reference';
 import { loadOdex, type OdexSolver } from './odex-loader';
 
 // Independent reference: the registry library `odex` (Hairer & Wanner's ODEX extrapolation
@@ -9,18 +9,7 @@ import { loadOdex, type OdexSolver } from './odex-loader';
 // repeats. With source resistance and no inductance the state is the capacitor voltage alone and
 // the bridge current is an algebraic function of it: a smooth non-stiff ODE, fit for ODEX.
 
-/** Our own example diode (no datasheet): IS and N written out, RS = 0, TNOM 25 °C. */
-const DIODE: DiodeParams = { isA: 5e-9, n: 1.9, rsOhm: 0, egEv: 1.11, xti: 3, tnomC: 25 };
-const VT_25C = (1.380649e-23 * 298.15) / 1.602176634e-19; // kT/q, SI-exact constants
-const vDiode = (i: number) => DIODE.n * VT_25C * Math.log1p(i / DIODE.isA); // SPICE diode law, RS = 0
-
 interface Case { vrms: number; f: number; rs: number; c: number; rl: number }
-
-/** Bridge current from |e| = Rs·i + 2·Vd(i) + v (bisection; zero when the diodes are reverse-biased). */
-function bridgeCurrent(eAbs: number, v: number, rs: number): number {
-  if (eAbs <= v) return 0;
-  return bisect((i) => rs * i + 2 * vDiode(i) + v - eAbs, 0, (eAbs - v) / rs, 80);
-}
 
 function bruteForce(Solver: new (n: number) => OdexSolver, k: Case) {
   const w = 2 * Math.PI * k.f;
@@ -30,7 +19,7 @@ function bruteForce(Solver: new (n: number) => OdexSolver, k: Case) {
   solver.absoluteTolerance = 1e-10;
   solver.relativeTolerance = 1e-10;
   solver.maxSteps = 1e6;
-  const rhs = (t: number, y: number[]) => [(bridgeCurrent(Math.abs(vm * Math.sin(w * t)), y[0]!, k.rs) - y[0]! / k.rl) / k.c];
+  const rhs = (t: number, y: number[]) => [(bridgeCurrentA(Math.abs(vm * Math.sin(w * t)), y[0]!, k.rs) - y[0]! / k.rl) / k.c];
   // Settle: integrate whole periods until the start-of-period voltage repeats to 1e-9 relative.
   let v0 = 0;
   let t0 = 0;
@@ -45,7 +34,7 @@ function bruteForce(Solver: new (n: number) => OdexSolver, k: Case) {
   const samples: { v: number; i: number }[] = [];
   solver.denseOutput = true;
   solver.solve(rhs, t0, [v0], t0 + T, solver.grid(T / 40000, (t, y) => {
-    samples.push({ v: y[0]!, i: bridgeCurrent(Math.abs(vm * Math.sin(w * t)), y[0]!, k.rs) * (Math.sin(w * t) > 0 ? 1 : 0) });
+    samples.push({ v: y[0]!, i: bridgeCurrentA(Math.abs(vm * Math.sin(w * t)), y[0]!, k.rs) * (Math.sin(w * t) > 0 ? 1 : 0) });
   }));
   samples.pop(); // the grid includes both ends of the period; keep one
   const mean = (f: (s: { v: number; i: number }) => number) => samples.reduce((a, s) => a + f(s), 0) / samples.length;
@@ -55,7 +44,7 @@ function bruteForce(Solver: new (n: number) => OdexSolver, k: Case) {
     ipkA: Math.max(...samples.map((s) => s.i)),
     iavgA: mean((s) => s.i),
     irmsA: Math.sqrt(mean((s) => s.i * s.i)),
-    lossW: mean((s) => vDiode(s.i) * s.i),
+    lossW: mean((s) => spiceDiodeV(s.i) * s.i),
   };
 }
 
@@ -68,7 +57,7 @@ describe('real diodes with source resistance, against odex run to steady state',
     it(`${label}: ripple, peak, average and RMS current, loss within 1 %`, async () => {
       const ref = bruteForce(await loadOdex(), k);
       const s = solveCorner(
-        circuit('diode-bridge', { vrms: k.vrms, freqHz: k.f, rOhm: k.rs }, bridgeDevices(DIODE), [[k.c, 0]], { kind: 'resistance', ohm: k.rl }),
+        circuit('diode-bridge', { vrms: k.vrms, freqHz: k.f, rOhm: k.rs }, bridgeDevices(SPICE_DIODE), [[k.c, 0]], { kind: 'resistance', ohm: k.rl }),
         AT_25C, { waveformPoints: 0, inrush: false },
       );
       const d = s.devices[0]!; // upper-a: conducts in the positive half-cycle, as sampled above
