@@ -23,34 +23,88 @@ export interface NodeGraph {
 
 const NONE: readonly never[] = [];
 
-/** Builds the node graph of a flat circuit. */
+const graphs = new WeakMap<FlatCircuit, NodeGraph>();
+
+/** The node graph of a flat circuit, built once for it (recognition and the rules' look-ups share it). */
+export function nodeGraphOf(flat: FlatCircuit): NodeGraph {
+  let graph = graphs.get(flat);
+  if (!graph) graphs.set(flat, (graph = buildNodeGraph(flat)));
+  return graph;
+}
+
+/**
+ * Builds the node graph of a flat circuit. Recognition visits only the nodes around its devices,
+ * so the graph is a compact index (node ids, terminal slots grouped by node) and a node's list of
+ * incidences is made when first asked for; the key and instance maps are made on first use. A graph
+ * of one object per terminal cost more than the elaboration it indexes on a large file, most of it
+ * in the collector moving those objects.
+ */
 export function buildNodeGraph(flat: FlatCircuit): NodeGraph {
-  const byNode = new Map<string, Incidence[]>();
-  const byKey = new Map<string, FlatElement>();
-  for (const element of flat.elements) {
-    byKey.set(element.key, element);
-    const terminals = element.terminals;
-    for (let terminal = 0; terminal < terminals.length; terminal++) {
-      const node = terminals[terminal]!.node;
-      const list = byNode.get(node);
-      if (list) list.push({ element, terminal });
-      else byNode.set(node, [{ element, terminal }]);
+  const elements = flat.elements;
+  const ids = new Map<string, number>();
+  const nodes: string[] = [];
+  let terminalCount = 0;
+  for (const e of elements) terminalCount += e.terminals.length;
+  const nodeOf = new Int32Array(terminalCount);
+  const elementOf = new Int32Array(terminalCount);
+  const terminalOf = new Int32Array(terminalCount);
+  let k = 0;
+  for (let i = 0; i < elements.length; i++) {
+    const terminals = elements[i]!.terminals;
+    for (let t = 0; t < terminals.length; t++, k++) {
+      const node = terminals[t]!.node;
+      let id = ids.get(node);
+      if (id === undefined) { id = nodes.length; ids.set(node, id); nodes.push(node); }
+      nodeOf[k] = id; elementOf[k] = i; terminalOf[k] = t;
     }
   }
-  const instancesByNode = new Map<string, FlatCircuit['instances'][number][]>();
-  for (const instance of flat.instances) {
+  // Terminal slots grouped by node, each group in element then terminal order.
+  const start = new Int32Array(nodes.length + 1);
+  for (let j = 0; j < terminalCount; j++) start[nodeOf[j]! + 1]!++;
+  for (let n = 0; n < nodes.length; n++) start[n + 1]! += start[n]!;
+  const fill = start.slice(0, nodes.length);
+  const slots = new Int32Array(terminalCount);
+  for (let j = 0; j < terminalCount; j++) slots[fill[nodeOf[j]!]!++] = j;
+  const lists: (readonly Incidence[] | undefined)[] = new Array(nodes.length);
+  let byKey: Map<string, FlatElement> | undefined;
+  let instancesByNode: Map<string, FlatCircuit['instances'][number][]> | undefined;
+  return {
+    nodes,
+    at(node) {
+      const id = ids.get(node);
+      if (id === undefined) return NONE;
+      let list = lists[id];
+      if (!list) {
+        const made: Incidence[] = [];
+        for (let s = start[id]!; s < start[id + 1]!; s++) made.push({ element: elements[elementOf[slots[s]!]!]!, terminal: terminalOf[slots[s]!]! });
+        lists[id] = list = made;
+      }
+      return list;
+    },
+    element(key) {
+      if (!byKey) {
+        byKey = new Map();
+        for (const e of elements) byKey.set(e.key, e);
+      }
+      return byKey.get(key);
+    },
+    instancesAt(node) {
+      instancesByNode ??= instancesByNodeOf(flat.instances);
+      return instancesByNode.get(node) ?? NONE;
+    },
+  };
+}
+
+function instancesByNodeOf(instances: FlatCircuit['instances']): Map<string, FlatCircuit['instances'][number][]> {
+  const byNode = new Map<string, FlatCircuit['instances'][number][]>();
+  for (const instance of instances) {
     for (const node of new Set(instance.terminals.map((t) => t.node))) {
-      let list = instancesByNode.get(node);
-      if (!list) instancesByNode.set(node, (list = []));
+      let list = byNode.get(node);
+      if (!list) byNode.set(node, (list = []));
       list.push(instance);
     }
   }
-  return {
-    nodes: [...byNode.keys()],
-    at: (node) => byNode.get(node) ?? NONE,
-    element: (k) => byKey.get(k),
-    instancesAt: (node) => instancesByNode.get(node) ?? NONE,
-  };
+  return byNode;
 }
 
 /** The node at the other end of a two-terminal element. */

@@ -4,7 +4,7 @@
  * the work budget: every device listed at a node and every step of a chain walked is counted, and
  * once the budget is spent the matchers stop (the caller turns that into a finding).
  */
-import { GROUND, buildNodeGraph, type CouplingElement, type FlatCircuit, type FlatElement, type NodeGraph } from '../circuit/index';
+import { GROUND, nodeGraphOf, type CouplingElement, type FlatCircuit, type FlatElement, type NodeGraph } from '../circuit/index';
 import { findDevices, type RectDevice } from './devices';
 import { findAcPorts, findLoop, hasAcDriver, walkChain, type AcPort, type Chain, type Step } from './source-trace';
 
@@ -29,7 +29,7 @@ export class RecognizeContext {
 
   constructor(readonly flat: FlatCircuit, readonly maxSteps = DEFAULT_RECOGNITION_STEPS) {
     this.stepsLeft = maxSteps;
-    this.graph = buildNodeGraph(flat);
+    this.graph = nodeGraphOf(flat);
     this.devices = findDevices(flat);
     for (const d of this.devices) {
       push(this.byCathode, d.cathode, d);

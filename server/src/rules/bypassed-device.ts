@@ -16,7 +16,7 @@ import type { Severity } from '../../../grammar/src/index';
 import type { Finding } from '../findings/index';
 import type { FlatElement } from '../circuit/index';
 import type { Rule } from './registry';
-import { circuitIndexOf, devicesOf, fmt, nodePairKey, pct, placeOf, type DeviceView } from './rule-context';
+import { circuitIndexOf, devicesOf, fmt, pct, placeOf, type DeviceView } from './rule-context';
 
 /** Below this share of the device's average current the bypass is negligible. */
 export const NEGLIGIBLE_BYPASS_SHARE = 0.01;
@@ -24,11 +24,10 @@ export const NEGLIGIBLE_BYPASS_SHARE = 0.01;
 export const bypassedDeviceRule: Rule = {
   code: 'bypassed-device',
   check(input) {
-    const across = circuitIndexOf(input).resistorsByNodePair;
-    if (across.size === 0) return [];
+    const index = circuitIndexOf(input);
     return devicesOf(input).flatMap((view) => {
       const { anode, cathode } = view.device.ref;
-      return anode === cathode ? [] : (across.get(nodePairKey(anode, cathode)) ?? []).map((r) => bypassFinding(r, view));
+      return anode === cathode ? [] : index.resistorsAcross(anode, cathode).map((r) => bypassFinding(r, view));
     });
   },
 };

@@ -4,7 +4,7 @@
  * ratings/stress-checks.ts.
  */
 import { displayNumber, displayPercent } from '../../../grammar/src/index';
-import { anchorOf, type FlatCircuit, type FlatElement, type FlatInstance, type Origin, type PassiveElement, type SourceElement } from '../circuit/index';
+import { anchorOf, nodeGraphOf, type FlatCircuit, type FlatElement, type FlatInstance, type Origin, type PassiveElement, type SourceElement } from '../circuit/index';
 import type { Finding, RelatedPlace } from '../findings/index';
 import type { DeviceAnalysis, RectifierAnalysis } from '../equivalent/index';
 import {
@@ -106,16 +106,16 @@ export function nodePairKey(a: string, b: string): string {
 /**
  * Look-ups over the flat circuit that the rules need, built in one pass per analysis so that no
  * rule scans the whole circuit for each rectifier or device (at 50 bridges the scans were most of
- * the rules' time). The node names are only wanted by fixes, so they are gathered on first use.
+ * the rules' time). The node names are only wanted by fixes, so they are gathered on first use;
+ * resistors across two nodes are read off the node graph recognition built.
  */
 export interface CircuitIndex {
   elementKeys: ReadonlySet<string>;
   readonly nodeNames: ReadonlySet<string>;
   voltageSources: readonly SourceElement[];
-  byKey: ReadonlyMap<string, FlatElement>;
   capacitorsByKey: ReadonlyMap<string, PassiveElement>;
-  /** Resistors of known value ≥ 0 with two terminals, by `nodePairKey` of their nodes (the same node twice included). */
-  resistorsByNodePair: ReadonlyMap<string, readonly FlatElement[]>;
+  /** Resistors of known value ≥ 0 with two terminals, between nodes a and b (either way round), in element order. */
+  resistorsAcross(a: string, b: string): readonly FlatElement[];
   /** Two-terminal resistors of exactly 0 Ω, in element order. */
   zeroOhmResistors: readonly FlatElement[];
   instancesByKey: ReadonlyMap<string, FlatInstance>;
@@ -130,38 +130,37 @@ export function circuitIndexOf(input: RuleInput): CircuitIndex {
 }
 
 function buildIndex(flat: FlatCircuit): CircuitIndex {
-  const byKey = new Map<string, FlatElement>();
+  const elementKeys = new Set<string>();
   const voltageSources: SourceElement[] = [];
   const capacitorsByKey = new Map<string, PassiveElement>();
-  const resistorsByNodePair = new Map<string, FlatElement[]>();
   const zeroOhmResistors: FlatElement[] = [];
   for (const e of flat.elements) {
-    // A later element of the same key replaces an earlier one (a duplicate is its own finding).
-    byKey.set(e.key, e);
+    elementKeys.add(e.key);
     if (e.kind === 'vsource') voltageSources.push(e);
+    // A later element of the same key replaces an earlier one (a duplicate is its own finding).
     else if (e.kind === 'capacitor') capacitorsByKey.set(e.key, e);
-    else if (e.kind === 'resistor' && e.terminals.length === 2 && e.value !== undefined && e.value >= 0) {
-      if (e.value === 0) zeroOhmResistors.push(e);
-      const pair = nodePairKey(e.terminals[0]!.node, e.terminals[1]!.node);
-      const list = resistorsByNodePair.get(pair);
-      if (list) list.push(e);
-      else resistorsByNodePair.set(pair, [e]);
-    }
+    else if (e.kind === 'resistor' && e.value === 0 && e.terminals.length === 2) zeroOhmResistors.push(e);
   }
   const instancesByKey = new Map<string, FlatInstance>();
   // The first instance of a key, as a search in card order finds it.
   for (const i of flat.instances) if (!instancesByKey.has(i.key)) instancesByKey.set(i.key, i);
   let nodeNames: Set<string> | undefined;
   return {
-    elementKeys: new Set(byKey.keys()),
+    elementKeys,
     get nodeNames() {
-      if (!nodeNames) {
-        nodeNames = new Set();
-        for (const e of flat.elements) for (const t of e.terminals) nodeNames.add(t.node);
-      }
-      return nodeNames;
+      return (nodeNames ??= new Set(nodeGraphOf(flat).nodes));
     },
-    voltageSources, byKey, capacitorsByKey, resistorsByNodePair, zeroOhmResistors, instancesByKey,
+    // From the node graph: the few pairs asked about (a device's two ends) need no index of every resistor.
+    resistorsAcross(a, b) {
+      const found: FlatElement[] = [];
+      for (const { element: e, terminal } of nodeGraphOf(flat).at(a)) {
+        if (e.kind !== 'resistor' || e.terminals.length !== 2 || e.value === undefined || !(e.value >= 0)) continue;
+        // A resistor with both ends on a is listed at a twice: once is enough.
+        if (a === b ? terminal === 0 && e.terminals[1]!.node === a : e.terminals[1 - terminal]!.node === b) found.push(e);
+      }
+      return found;
+    },
+    voltageSources, capacitorsByKey, zeroOhmResistors, instancesByKey,
   };
 }
 
@@ -182,8 +181,8 @@ export function compactAfterRules(input: RuleInput): FlatCircuit {
   }
   const elements = input.flat.elements.filter((e) => e.kind === 'vsource' || wanted.has(e.key));
   const flat: FlatCircuit = { ...input.flat, elements, instances: [] };
-  const index = buildIndex(flat);
-  indexes.set(input, { ...index, elementKeys: whole.elementKeys, nodeNames });
+  const { voltageSources, capacitorsByKey, resistorsAcross, zeroOhmResistors, instancesByKey } = buildIndex(flat);
+  indexes.set(input, { voltageSources, capacitorsByKey, resistorsAcross, zeroOhmResistors, instancesByKey, elementKeys: whole.elementKeys, nodeNames });
   input.flat = flat;
   return flat;
 }
