@@ -83,11 +83,13 @@ function applyEdit(text: string, e: Edit): string {
 
 /** A file of our own whose top-level cards read a parameter and a model defined on other lines. */
 const PARAMETRISED = `parametrised cards
+.param gain=2
 .param rv=1k
 V1 a 0 SIN(0 10 50)
 D1 a b DX
 RLOAD b 0 {rv}
 RFIX b 0 470
+RGAIN b 0 {gain*rv}
 C1 b 0 {rv*1n}
 .model DX D
 `;
@@ -115,7 +117,7 @@ describe('the analysis after an edit, from the previous one', () => {
   }, timeoutFor(count, 20_000));
 
   it('elaborates the same flat circuit as a fresh analysis from the moved cards, whatever the edit (fast-check)', () => {
-    // The elements of cards an edit left alone are kept with their cards (circuit/element-memo.ts):
+    // The elements of cards an edit left alone are kept with their cards (circuit/elaboration-memo.ts):
     // a parameter or a model they depend on may still have changed.
     const source = fc.oneof(netlistText, fc.constantFrom(...examples, PARAMETRISED));
     fc.assert(
@@ -144,6 +146,7 @@ describe('the analysis after an edit, from the previous one', () => {
     previous = consuming(previous);
     expect(value(previous, 'RLOAD')).toBe(2000);
     expect(value(previous, 'RFIX')).toBe(470);
+    expect(value(previous, 'RGAIN')).toBe(4000);
     text = text.replace('.model DX D', '.model DY D');
     previous = consuming(previous);
     expect(previous.flat.elements.find((e) => e.name === 'D1')).toMatchObject({ model: undefined });

@@ -8,12 +8,12 @@
 import { key, type InstanceCard, type Item, type Lookup, type ModelCard, type Netlist } from '../../../grammar/src/index';
 import { FindingSet } from '../findings/index';
 import { buildElement, terminalsOf, type Frame } from './elements';
-import { topLevelElement, type LookupCounter } from './element-memo';
+import { globalParamValues, topLevelElement, type LookupCounter } from './elaboration-memo';
 import type { FileSource, FlatCircuit, FlatElement, FlatInstance, FlatModel, PlacedDirective } from './flat-circuit';
 import { didYouMean } from './did-you-mean';
 import { ExpansionSizer, lookupDef, type Defs, type SubcktDef } from './expansion-size';
 import { IncludeExpander, type PlacedItem } from './includes';
-import { evaluateParams, instanceScope, resolvePlaced, type PlacedParam } from './scope';
+import { evaluateParams, instanceScope, type PlacedParam } from './scope';
 
 export interface ElaborateOptions {
   /** Deepest subcircuit nesting expanded (default 64). */
@@ -49,7 +49,7 @@ class Elaborator {
   private readonly maxDepth: number;
   private readonly maxElements: number;
   private readonly sizer: ExpansionSizer;
-  /** Look-ups in the top-level scope (element-memo.ts keeps the elements of cards that made none). */
+  /** Look-ups in the top-level scope (elaboration-memo.ts keeps the elements of cards that made none). */
   private readonly topLookups: LookupCounter = { lookups: 0 };
   /** Cards charged to the flattened size: top-level elements and instances, and every expanded body whole. */
   private charged = 0;
@@ -67,7 +67,7 @@ class Elaborator {
     const top = root ? this.expander.expand(root.items, this.rootUri, [this.rootUri]) : [];
     if (!root) this.sink.add({ uri: this.rootUri, span: { start: 0, end: 0 }, severity: 'error', code: 'missing-include', message: `cannot read ${this.rootUri}` });
     this.collectDirectives(top);
-    const globalParams = resolvePlaced(paramsOf(top), () => undefined, this.sink);
+    const globalParams = globalParamValues(paramsOf(top), this.sink);
     const globalLookup: Lookup = (name) => globalParams.get(name);
     const counter = this.topLookups;
     const topLookup: Lookup = (name) => { counter.lookups++; return globalParams.get(name); };
@@ -256,7 +256,10 @@ function* visibleSubckts(defs: Defs | undefined): Generator<string> {
 }
 
 function paramsOf(items: readonly PlacedItem[]): PlacedParam[] {
-  return items.flatMap(({ item, uri }) => (item.kind === 'param' ? item.params.map((param) => ({ param, uri })) : []));
+  // A plain loop: called on every file's whole top level, where flatMap made an array per card.
+  const placed: PlacedParam[] = [];
+  for (const { item, uri } of items) if (item.kind === 'param') for (const param of item.params) placed.push({ param, uri });
+  return placed;
 }
 
 function modelOf(card: ModelCard, uri: string, lookup: Lookup, sink: FindingSet): FlatModel {
