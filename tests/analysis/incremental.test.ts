@@ -117,8 +117,8 @@ describe('the analysis after an edit, from the previous one', () => {
   }, timeoutFor(count, 20_000));
 
   it('elaborates the same flat circuit as a fresh analysis from the moved cards, whatever the edit (fast-check)', () => {
-    // The elements of cards an edit left alone are kept with their cards (circuit/elaboration-memo.ts):
-    // a parameter or a model they depend on may still have changed.
+    // The moved cards are the same objects, so whatever elaboration keeps by card
+    // (circuit/elaboration-memo.ts) must follow a parameter or a model edited elsewhere.
     const source = fc.oneof(netlistText, fc.constantFrom(...examples, PARAMETRISED));
     fc.assert(
       fc.property(source, fc.array(edit, { minLength: 1, maxLength: 4 }), (text, edits) => {

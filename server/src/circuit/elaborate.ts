@@ -8,7 +8,7 @@
 import { key, type InstanceCard, type Item, type Lookup, type ModelCard, type Netlist } from '../../../grammar/src/index';
 import { FindingSet } from '../findings/index';
 import { buildElement, terminalsOf, type Frame } from './elements';
-import { globalParamValues, topLevelElement, type LookupCounter } from './elaboration-memo';
+import { globalParamValues } from './elaboration-memo';
 import type { FileSource, FlatCircuit, FlatElement, FlatInstance, FlatModel, PlacedDirective } from './flat-circuit';
 import { didYouMean } from './did-you-mean';
 import { ExpansionSizer, lookupDef, type Defs, type SubcktDef } from './expansion-size';
@@ -49,8 +49,6 @@ class Elaborator {
   private readonly maxDepth: number;
   private readonly maxElements: number;
   private readonly sizer: ExpansionSizer;
-  /** Look-ups in the top-level scope (elaboration-memo.ts keeps the elements of cards that made none). */
-  private readonly topLookups: LookupCounter = { lookups: 0 };
   /** Cards charged to the flattened size: top-level elements and instances, and every expanded body whole. */
   private charged = 0;
   private stopped = false;
@@ -69,11 +67,9 @@ class Elaborator {
     this.collectDirectives(top);
     const globalParams = globalParamValues(paramsOf(top), this.sink);
     const globalLookup: Lookup = (name) => globalParams.get(name);
-    const counter = this.topLookups;
-    const topLookup: Lookup = (name) => { counter.lookups++; return globalParams.get(name); };
     const defs: Defs = { own: this.defineSubckts(top) };
     const frame: Frame = {
-      uri: this.rootUri, namePrefix: '', keyPrefix: '', ports: new Map(), lookup: topLookup, chain: [],
+      uri: this.rootUri, namePrefix: '', keyPrefix: '', ports: new Map(), lookup: globalLookup, chain: [],
       ...this.defineModels(top, '', globalLookup, { modelKey: () => undefined, modelNames: () => [] }),
     };
     this.flatten({ items: top, next: 0, frame, defs, path: [] }, globalLookup);
@@ -98,9 +94,8 @@ class Elaborator {
         const child = this.instantiate(item, frame, work, global);
         if (child) stack.push(child);
       } else if (isElement(item)) {
-        const top = work.path.length === 0;
-        this.elements.push(top ? topLevelElement(item, frame, this.sink, this.topLookups) : buildElement(item, frame, this.sink));
-        if (top) this.charge(1, frame.uri, item.span);
+        this.elements.push(buildElement(item, frame, this.sink));
+        if (work.path.length === 0) this.charge(1, frame.uri, item.span);
       }
     }
   }
