@@ -13,6 +13,8 @@ export interface Incidence {
 export interface NodeGraph {
   /** Every node that some element terminal touches. */
   nodes: string[];
+  /** The same nodes by their index in `nodes`: a set of the names that holds nothing else of the circuit. */
+  nodeIds: ReadonlyMap<string, number>;
   /** Terminals at a node (empty for an unknown node). */
   at(node: string): readonly Incidence[];
   /** An element by its lowercase hierarchical key. */
@@ -70,6 +72,7 @@ export function buildNodeGraph(flat: FlatCircuit): NodeGraph {
   let instancesByNode: Map<string, FlatCircuit['instances'][number][]> | undefined;
   return {
     nodes,
+    nodeIds: ids,
     at(node) {
       const id = ids.get(node);
       if (id === undefined) return NONE;

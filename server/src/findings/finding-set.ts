@@ -8,11 +8,15 @@ import type { Finding } from './finding';
 export class FindingSet {
   readonly list: Finding[] = [];
   private readonly seen = new Set<string>();
+  private offeredCount = 0;
+
   /** Findings offered so far, repeats included (so a caller can tell whether a step said anything). */
-  offered = 0;
+  get offered(): number {
+    return this.offeredCount;
+  }
 
   add(finding: Finding): void {
-    this.offered++;
+    this.offeredCount++;
     // Uri, span and code identify a finding; a short message tells apart the rare two at one place. A long
     // one (a cycle through thousands of parameters names them all) is keyed by its length only: reading it
     // would copy it, and ten thousand such copies cost seconds.

@@ -106,12 +106,13 @@ export function nodePairKey(a: string, b: string): string {
 /**
  * Look-ups over the flat circuit that the rules need, built in one pass per analysis so that no
  * rule scans the whole circuit for each rectifier or device (at 50 bridges the scans were most of
- * the rules' time). The node names are only wanted by fixes, so they are gathered on first use;
- * resistors across two nodes are read off the node graph recognition built.
+ * the rules' time). The node names (wanted only by fixes) and the resistors across two nodes are
+ * read off the node graph recognition built.
  */
 export interface CircuitIndex {
   elementKeys: ReadonlySet<string>;
-  readonly nodeNames: ReadonlySet<string>;
+  /** Node names in use, for fixes that make a new node: the node graph's id map, which keeps no element alive after `compactAfterRules`. */
+  readonly nodeNames: { has(name: string): boolean };
   voltageSources: readonly SourceElement[];
   capacitorsByKey: ReadonlyMap<string, PassiveElement>;
   /** Resistors of known value ≥ 0 with two terminals, between nodes a and b (either way round), in element order. */
@@ -144,11 +145,10 @@ function buildIndex(flat: FlatCircuit): CircuitIndex {
   const instancesByKey = new Map<string, FlatInstance>();
   // The first instance of a key, as a search in card order finds it.
   for (const i of flat.instances) if (!instancesByKey.has(i.key)) instancesByKey.set(i.key, i);
-  let nodeNames: Set<string> | undefined;
   return {
     elementKeys,
     get nodeNames() {
-      return (nodeNames ??= new Set(nodeGraphOf(flat).nodes));
+      return nodeGraphOf(flat).nodeIds;
     },
     // From the node graph: the few pairs asked about (a device's two ends) need no index of every resistor.
     resistorsAcross(a, b) {
