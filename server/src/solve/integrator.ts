@@ -25,6 +25,16 @@ export interface IntegrateOptions {
   hMaxS: number;
   /** Largest step while a path conducts (finer when recording a period for its figures). */
   hMaxOnS: number;
+  /**
+   * When set (recorded periods), the conduction cap `hMaxOnS` is relaxed, up to `hMaxResolvedS`,
+   * where the path current is smooth: a step may be as long as keeps the current within this
+   * fraction of its scale (the path current there, at least the load current) of the chord
+   * through its samples. A choke-input filter's current is smooth all period; a
+   * capacitor-input pulse bends too fast for much relaxation.
+   */
+  resolution?: number;
+  /** The longest relaxed step. */
+  hMaxResolvedS?: number;
   /** Edges are located to within this time. */
   hEdgeS: number;
   maxSteps: number;
@@ -95,6 +105,8 @@ export class Integrator {
     let steps = 0;
     let rejected = 0;
     let mode = mode0;
+    // The relaxed conduction cap; 0 until a regular step has measured the current's curvature.
+    let hResolve = 0;
     while (t1 - t > 1e-12 * period) {
       if (steps + rejected > o.maxSteps) return { ok: false, steps, rejected, mode };
       const tStop = Math.min(nb < breaks.length ? breaks[nb]! : t1, nc < crests.length ? crests[nc]! : t1, tEdge);
@@ -113,7 +125,7 @@ export class Integrator {
         continue;
       }
       let err = 0;
-      let hTry = Math.min(hCtrl, tStop - t, mode >= 0 ? o.hMaxOnS : o.hMaxS);
+      let hTry = Math.min(hCtrl, tStop - t, mode >= 0 ? Math.max(o.hMaxOnS, hResolve) : o.hMaxS);
       if (restart) hTry = Math.min(hTry, period * RESTART_FRACTION);
       applyGates(this.net.devices, this.net.omega, t + 0.5 * hTry);
       let located: number;
@@ -135,6 +147,7 @@ export class Integrator {
         continue;
       }
       steps++;
+      const wasFresh = fresh;
       if (restart) this.acceptBE(t, hTry, o);
       else {
         if (o.sensitivity) this.propagateSensitivity(hTry);
@@ -144,6 +157,10 @@ export class Integrator {
         hCtrl = hTry >= 0.999 * hCtrl ? hTry * fac : Math.min(hCtrl, Math.max(hTry * fac, hCtrl * Math.min(fac, 1)));
       }
       const modeChanged = mode !== this.o1.mode;
+      if (o.resolution !== undefined) {
+        // Right after an edge the γ-stage current may overshoot (see accept): no curvature from it.
+        hResolve = modeChanged || restart || wasFresh ? 0 : Math.min(this.resolvedStep(hTry, o.resolution), 2 * hTry, o.hMaxResolvedS ?? o.hMaxS);
+      }
       const sw = this.oN; this.oN = this.o1; this.o1 = sw;
       mode = this.oN.mode;
       t += hTry;
@@ -158,6 +175,20 @@ export class Integrator {
     const h = hCtrl;
     this.hGuess = h;
     return { ok: true, steps, rejected, mode: this.oN.mode };
+  }
+
+  /**
+   * The step after one of length h that keeps the path current within `resolution` of its chord:
+   * a chord over h misses a curve of second derivative i'' by at most |i''|·h²/8, and i'' is the
+   * second divided difference of the current at the step's three points (0, γh, h).
+   */
+  private resolvedStep(h: number, resolution: number): number {
+    const i0 = this.oN.iA, iG = this.oG.iA, i1 = this.o1.iA;
+    const curvature = Math.abs((2 / h) * ((i1 - iG) / ((1 - GAMMA) * h) - (iG - i0) / (GAMMA * h)));
+    // The scale is local (the current here, or the load's where the current is small): both
+    // half-cycles of a symmetric bridge then meet the same rule, and neither pair is sampled finer.
+    const scale = Math.max(Math.abs(i1), Math.abs(this.o1.iLoadA));
+    return curvature > 0 && scale > 0 ? Math.sqrt((8 * resolution * scale) / curvature) : Infinity;
   }
 
   /** Absolute instants of a periodic list strictly inside (t0, t1). */

@@ -102,7 +102,10 @@ export interface Network {
   railMinus: number[];
   devices: NetDevice[];
   load: LoadModel;
-  /** Gate switching instants within one period, ascending, in [0, T). */
+  /**
+   * Instants within one period, ascending, in [0, T), where a step must end and the next restart:
+   * gate switching instants, and with a shared choke its natural commutations (`commutationTimes`).
+   */
   breakpointsS: number[];
   /**
    * Crest and trough instants of every path's EMF in [0, T). Steps stop there so that a short
@@ -213,7 +216,7 @@ export function buildNetwork(
   return {
     omega, periodS: 1 / freqHz, vScaleV, lines: lay.lines, paths, ports, nCap, hasL, sharedL, magA, magB, n: nCap + (hasL ? 1 : 0),
     floatingRails: lay.floating, railPlus: lay.railPlus, railMinus: lay.railMinus, devices,
-    load: buildLoad(c.load, withControllerSupply(c.fixedLoad, c.controllerSupply), vScaleV), breakpointsS: gates, crestsS: crestTimes(paths, omega), phases: c.kind === 'three-phase-bridge' ? 3 : 1,
+    load: buildLoad(c.load, withControllerSupply(c.fixedLoad, c.controllerSupply), vScaleV), breakpointsS: sharedL ? [...gates, ...commutationTimes(paths, omega)].sort((x, y) => x - y) : gates, crestsS: crestTimes(paths, omega), phases: c.kind === 'three-phase-bridge' ? 3 : 1,
     lineVrms: c.source.vrms * lineScale,
   };
 }
@@ -357,6 +360,36 @@ function crestTimes(paths: NetPath[], omega: number): number[] {
     return [wrap((Math.PI / 2 - phi) / omega), wrap(((3 * Math.PI) / 2 - phi) / omega)];
   });
   return [...new Set(out)].sort((x, y) => x - y);
+}
+
+/**
+ * A shared choke's current passes to whichever path has the largest EMF (stage.ts), so it
+ * commutes where the two leading EMFs are equal. Each instant is moved 1e-9·T earlier: the step
+ * before ends in the old path and the short restart step carries the change, so the device
+ * currents' quadrature does not smear the jump over a whole step. Only where every path feeds
+ * the ports alike (else the port terms, not the EMFs alone, decide the path).
+ */
+function commutationTimes(paths: NetPath[], omega: number): number[] {
+  const T = (2 * Math.PI) / omega;
+  if (paths.some((p) => p.s.some((x, j) => x !== paths[0]!.s[j]))) return [];
+  const wrap = (x: number) => ((x % T) + T) % T;
+  const emf = (p: NetPath, t: number) => p.a * Math.sin(omega * t) + p.b * Math.cos(omega * t);
+  const scale = Math.max(...paths.map((p) => Math.hypot(p.a, p.b)));
+  const out: number[] = [];
+  for (let p = 0; p < paths.length; p++) {
+    for (let q = p + 1; q < paths.length; q++) {
+      const da = paths[p]!.a - paths[q]!.a;
+      const db = paths[p]!.b - paths[q]!.b;
+      if (Math.hypot(da, db) <= 1e-12 * scale) continue;
+      // da·sin ωt + db·cos ωt = 0 at ωt = atan2(−db, da) + kπ.
+      for (const k of [0, 1]) {
+        const t = wrap((Math.atan2(-db, da) + k * Math.PI) / omega);
+        const top = emf(paths[p]!, t);
+        if (paths.every((r) => emf(r, t) <= top + 1e-9 * scale)) out.push(wrap(t - 1e-9 * T));
+      }
+    }
+  }
+  return [...new Set(out)];
 }
 
 function range(n: number): number[] {

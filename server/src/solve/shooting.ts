@@ -11,6 +11,17 @@ import { PeriodRecord } from './record';
 import { zeros } from './vec';
 import { PeriodicityTest } from './periodicity';
 
+/**
+ * The recorded period's sampling resolution where its current is smooth (integrator.ts,
+ * `resolution`): the current within 0.01 % of its scale of the chord between samples. Against a
+ * reference at T/20000 a choke-input filter's ripple, peak and device RMS current stayed within
+ * 0.06 % with a quarter of the samples (at 3e-5: 0.03 %, a third); a capacitor-input bridge's
+ * figures stayed as they were at the plain cap, with 1.3× fewer samples (bench, issue 18).
+ */
+export const RECORD_RESOLUTION = 1e-4;
+/** The longest relaxed step of a recorded period while a path conducts, as a fraction of the period. */
+const RELAXED_RECORD_STEP_FRACTION = 1 / 100;
+
 /** Accuracy and effort settings; all optional. */
 export interface SteadyStateOptions {
   /** Local error tolerance relative to the source peak voltage (default 1e-5). */
@@ -19,6 +30,12 @@ export interface SteadyStateOptions {
   maxIterations?: number;
   /** Largest step during conduction in the recorded period, as a fraction of the period (default 1/600). */
   recordStepFraction?: number;
+  /**
+   * Where the recorded period's current is smooth, the step above is relaxed (up to T/100) as far
+   * as keeps the current within this fraction of its scale of the chord between samples (default
+   * `RECORD_RESOLUTION`); 0 keeps the cap everywhere.
+   */
+  recordResolution?: number;
   /** Step budget per period (default 20 000). */
   maxStepsPerPeriod?: number;
 }
@@ -60,7 +77,11 @@ export function findSteadyState(net: Network, options: SteadyStateOptions = {}, 
   // enough that its first period may already be the recorded one.
   const test = new PeriodicityTest(n === 0 || guess !== undefined);
   const g = zeros(n);
-  const fineOpts = { ...opts, record, hMaxOnS: T * (options.recordStepFraction ?? 1 / 600) };
+  const resolution = options.recordResolution ?? RECORD_RESOLUTION;
+  const fineOpts: IntegrateOptions = {
+    ...opts, record, hMaxOnS: T * (options.recordStepFraction ?? 1 / 600),
+    ...(resolution > 0 ? { resolution, hMaxResolvedS: T * RELAXED_RECORD_STEP_FRACTION } : {}),
+  };
   // Coarse periods until the orbit is near; then every period is recorded at the fine step, so
   // the period that passes the periodicity test is the one whose figures are reported.
   for (;;) {
