@@ -14,6 +14,7 @@ import type { Finding } from '../findings/index';
 import { LineIndex } from '../../../grammar/src/index';
 import type { Origin } from '../circuit/index';
 import type { Rule, RuleInput } from './registry';
+import { circuitIndexOf } from './rule-context';
 
 interface Named {
   name: string;
@@ -24,24 +25,30 @@ interface Named {
 export const duplicateNameRule: Rule = {
   code: 'duplicate-name',
   check(input) {
+    // The index already met every key once: only keys it saw twice need looking at again.
+    const { repeatedKeys } = circuitIndexOf(input);
+    const findings: Finding[] = [];
+    if (repeatedKeys.size === 0) return findings;
     const first = new Map<string, Named>();
     const lines = lineFinder(input);
-    const findings: Finding[] = [];
-    for (const item of [...input.flat.elements, ...input.flat.instances] as Named[]) {
+    const check = (item: Named): void => {
+      if (!repeatedKeys.has(item.key)) return;
       const earlier = first.get(item.key);
       if (!earlier) {
         first.set(item.key, item);
-        continue;
+        return;
       }
       // The same card reached through two instances of its subcircuit is one part per instance, not a repeat.
-      if (earlier.origin.uri === item.origin.uri && earlier.origin.span.start === item.origin.span.start) continue;
+      if (earlier.origin.uri === item.origin.uri && earlier.origin.span.start === item.origin.span.start) return;
       const where = `line ${lines(earlier.origin)}${earlier.origin.uri === item.origin.uri ? '' : ` of ${earlier.origin.uri}`}`;
       findings.push({
         uri: item.origin.uri, span: item.origin.nameSpan, severity: 'warning', code: 'duplicate-name',
         message: `${item.name} is already defined on ${where}: a simulator may refuse the file or keep only one of them; this analysis keeps both`,
         related: [{ uri: earlier.origin.uri, span: earlier.origin.nameSpan, message: `the first ${earlier.name}` }],
       });
-    }
+    };
+    for (const element of input.flat.elements) check(element);
+    for (const instance of input.flat.instances) check(instance);
     return findings;
   },
 };

@@ -111,6 +111,8 @@ export function nodePairKey(a: string, b: string): string {
  */
 export interface CircuitIndex {
   elementKeys: ReadonlySet<string>;
+  /** Keys held by more than one element, or by more than one instance: usually none, so `duplicate-name` builds no map of its own. */
+  repeatedKeys: ReadonlySet<string>;
   /** Node names in use, for fixes that make a new node: the node graph's id map, which keeps no element alive after `compactAfterRules`. */
   readonly nodeNames: { has(name: string): boolean };
   voltageSources: readonly SourceElement[];
@@ -135,8 +137,11 @@ function buildIndex(flat: FlatCircuit): CircuitIndex {
   const voltageSources: SourceElement[] = [];
   const capacitorsByKey = new Map<string, PassiveElement>();
   const zeroOhmResistors: FlatElement[] = [];
+  const repeatedKeys = new Set<string>();
   for (const e of flat.elements) {
+    const size = elementKeys.size;
     elementKeys.add(e.key);
+    if (elementKeys.size === size) repeatedKeys.add(e.key);
     if (e.kind === 'vsource') voltageSources.push(e);
     // A later element of the same key replaces an earlier one (a duplicate is its own finding).
     else if (e.kind === 'capacitor') capacitorsByKey.set(e.key, e);
@@ -144,9 +149,13 @@ function buildIndex(flat: FlatCircuit): CircuitIndex {
   }
   const instancesByKey = new Map<string, FlatInstance>();
   // The first instance of a key, as a search in card order finds it.
-  for (const i of flat.instances) if (!instancesByKey.has(i.key)) instancesByKey.set(i.key, i);
+  for (const i of flat.instances) {
+    if (!instancesByKey.has(i.key)) instancesByKey.set(i.key, i);
+    else repeatedKeys.add(i.key);
+  }
   return {
     elementKeys,
+    repeatedKeys,
     get nodeNames() {
       return nodeGraphOf(flat).nodeIds;
     },
@@ -182,7 +191,7 @@ export function compactAfterRules(input: RuleInput): FlatCircuit {
   const elements = input.flat.elements.filter((e) => e.kind === 'vsource' || wanted.has(e.key));
   const flat: FlatCircuit = { ...input.flat, elements, instances: [] };
   const { voltageSources, capacitorsByKey, resistorsAcross, zeroOhmResistors, instancesByKey } = buildIndex(flat);
-  indexes.set(input, { voltageSources, capacitorsByKey, resistorsAcross, zeroOhmResistors, instancesByKey, elementKeys: whole.elementKeys, nodeNames });
+  indexes.set(input, { voltageSources, capacitorsByKey, resistorsAcross, zeroOhmResistors, instancesByKey, elementKeys: whole.elementKeys, repeatedKeys: whole.repeatedKeys, nodeNames });
   input.flat = flat;
   return flat;
 }
