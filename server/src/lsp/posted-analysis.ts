@@ -22,7 +22,7 @@
 import { parseNetlist, type Netlist } from '../../../grammar/src/index';
 import type { FileAnalysis } from '../analysis/analyze';
 import type { FlatCircuit } from '../circuit/index';
-import { movedByEdit, movedInPlaceMatches, rootEditBetween, type RootEdit } from './root-edit';
+import { movedByEdit, movedInPlaceMatches, moveInPlace, rootEditBetween, type RootEdit } from './root-edit';
 
 // Named through the analysis: the server's room does not import the equivalent room.
 type Rectifier = FileAnalysis['rectifiers'][number];
@@ -136,7 +136,9 @@ export function mainThreadParse(text: string | undefined, replaced: Netlist | un
 /**
  * The analysis as the main thread keeps it: the posted form with the root's text and parse put
  * back (the parse first), and the solutions and figures it pointed at taken from `held`, the
- * analysis the main thread had when it asked (the one the worker was told of).
+ * analysis the main thread had when it asked (the one the worker was told of). `held` is used up:
+ * a rectifier posted as moved is the held one with its offsets moved in place (as the worker
+ * moved its own copy), so nothing of it is copied.
  */
 export function restoredForm(posted: PostedAnalysis, here: { text: string | undefined; parsed: Netlist | undefined; held: FileAnalysis | undefined }): FileAnalysis {
   const rectifiers = posted.rectifiers.map((r) => restoredRectifier(r, here.held, posted.rootEdit));
@@ -150,7 +152,8 @@ function restoredRectifier(posted: PostedRectifier, held: FileAnalysis | undefin
   if ('movedFrom' in posted) {
     const moved = heldRectifier(held, posted.movedFrom);
     if (!edit) throw new Error('posted analysis moves a rectifier without saying by which edit');
-    return movedByEdit(moved, edit, SOLVER_DATA);
+    moveInPlace(moved, edit, SOLVER_DATA);
+    return moved;
   }
   if (!('sameSolutionAs' in posted)) return posted;
   const { sameSolutionAs: j, ...rest } = posted;

@@ -48,6 +48,33 @@ export function movedByEdit<T>(value: T, edit: RootEdit, shared: ReadonlySet<str
 }
 
 /**
+ * Moves the root's offsets in `value` in place, as `movedByEdit` would in a copy: for a value no
+ * one reads at its old offsets any more (the main thread's held analysis as it is replaced). Only
+ * the set of objects already moved is allocated, so that an object reached twice (a structured
+ * clone keeps shared objects shared) moves once.
+ */
+export function moveInPlace(value: unknown, edit: RootEdit, shared: ReadonlySet<string>, inRoot = false, moved = new Set<object>()): void {
+  if (value === null || typeof value !== 'object' || moved.has(value)) return;
+  moved.add(value);
+  if (Array.isArray(value)) {
+    for (let i = 0; i < value.length; i++) moveInPlace(value[i], edit, shared, inRoot, moved);
+    return;
+  }
+  if (Object.getPrototypeOf(value) !== Object.prototype) return;
+  const fields = value as Record<string, unknown>;
+  const owner = typeof fields.uri === 'string' ? fields.uri === edit.uri : inRoot;
+  // Both offsets are read before either is moved: where an end moves depends on its start.
+  const start = fields.start;
+  for (const key in fields) {
+    if (shared.has(key)) continue;
+    const field = fields[key];
+    if (typeof field === 'number') {
+      if (owner && (key === 'start' || key === 'end')) fields[key] = movedOffset(field, key, start, edit);
+    } else moveInPlace(field, edit, shared, owner, moved);
+  }
+}
+
+/**
  * Text inserted at `from` comes after a range that ends there (ends are exclusive) and before one
  * that starts there; an empty range there moves with its start.
  */
