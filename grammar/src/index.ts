@@ -2,6 +2,7 @@
 export * from './syntax-tree';
 export * from './directive-records';
 export { parseNetlist, type ParseOptions } from './parse-netlist';
+export { listOffsetsAhead } from './reparse';
 export { readNumber, spiceSpelling, type ReadNumber } from './values';
 export { parseExpression, evaluateExpression, foldExpr, referencedNames, EXPRESSION_FUNCTIONS, MAX_EXPRESSION_DEPTH, type Expr, type ExprError } from './expression';
 export { parseDirective } from './directives';

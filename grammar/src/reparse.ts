@@ -217,6 +217,18 @@ export function movedBy<T>(value: T, delta: number): T {
   return value;
 }
 
+/**
+ * Lists the offsets of up to `count` cards of a tree from card `from` on, as a move does first
+ * for each card it moves; returns where to go on, or −1 once every card is listed. For idle time
+ * after a parse: the first edit that moves the cards then moves their lists instead of walking them.
+ */
+export function listOffsetsAhead(netlist: Netlist, from: number, count: number): number {
+  const cards = netlist.cards;
+  const end = Math.min(cards.length, from + count);
+  for (let i = from; i < end; i++) if (cards[i]!.kind !== 'title') offsetsOf(cards[i]!);
+  return end >= cards.length ? -1 : end;
+}
+
 /** Every offset in a node: the objects that hold a `start` and those that hold an `end`, in the order a walk meets them (an object met twice, twice). */
 interface Offsets {
   starts: { start: number }[];

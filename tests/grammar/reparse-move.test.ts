@@ -1,6 +1,6 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { parseNetlist, type Netlist } from '../../grammar/src/index';
+import { listOffsetsAhead, parseNetlist, type Netlist } from '../../grammar/src/index';
 import { MAX_BLOCK_DEPTH } from '../../grammar/src/structure';
 import { netlistText } from '../fuzz/netlist-arbitrary';
 
@@ -32,6 +32,20 @@ function repeatedObjects(netlist: Netlist): number {
   return repeated;
 }
 
+/** Applies each edit in turn, re-parsing from the last tree (consumed; `beforeEach` sees it first), and holds each result equal to a fresh parse. */
+function editChainMatchesFreshParses(text: string, steps: readonly { at: number; cut: number; insert: string }[], beforeEach?: (previous: Netlist) => void): void {
+  let current = text;
+  let previous = parseNetlist(current);
+  for (const { at, cut, insert } of steps) {
+    beforeEach?.(previous);
+    const start = at % (current.length + 1);
+    current = current.slice(0, start) + insert + current.slice(Math.min(current.length, start + cut));
+    const incremental = parseNetlist(current, { previous, consumePrevious: true });
+    expect(incremental).toEqual(parseNetlist(current));
+    previous = incremental;
+  }
+}
+
 describe('re-parsing with consumePrevious', () => {
   it('keeps the cards after the edit as the same objects, moved', () => {
     const previous = parseNetlist(SOURCE);
@@ -60,18 +74,23 @@ describe('re-parsing with consumePrevious', () => {
     const piece = fc.oneof(fc.constantFrom('\n', '+', '*', '*@ ', ' ', '.ends', '.end\n', 'R1 a b 1', '{', '(', ')', '\n+ x=1', ';'), fc.string({ maxLength: 6 }));
     const edit = fc.record({ at: fc.nat(), cut: fc.nat({ max: 12 }), insert: piece });
     fc.assert(
-      fc.property(fc.oneof(netlistText, fc.constant(SOURCE)), fc.array(edit, { minLength: 1, maxLength: 6 }), (text, steps) => {
-        let current = text;
-        let previous = parseNetlist(current);
-        for (const { at, cut, insert } of steps) {
-          const start = at % (current.length + 1);
-          current = current.slice(0, start) + insert + current.slice(Math.min(current.length, start + cut));
-          const incremental = parseNetlist(current, { previous, consumePrevious: true });
-          expect(incremental).toEqual(parseNetlist(current));
-          previous = incremental;
-        }
-      }),
+      fc.property(fc.oneof(netlistText, fc.constant(SOURCE)), fc.array(edit, { minLength: 1, maxLength: 6 }), (text, steps) => editChainMatchesFreshParses(text, steps)),
       { seed: 20261206, numRuns: 200, endOnFailure: true },
+    );
+  });
+
+  it('equals a fresh parse when each tree\'s offsets were listed ahead, in chunks, before the edit that moves it (fast-check)', () => {
+    const edit = fc.record({ at: fc.nat(), cut: fc.nat({ max: 12 }), insert: fc.constantFrom('\n', 'R9 q 0 1\n', '* note\n', 'x', '') });
+    fc.assert(
+      fc.property(fc.oneof(netlistText, fc.constant(SOURCE)), fc.array(edit, { minLength: 1, maxLength: 5 }), fc.integer({ min: 1, max: 7 }), (text, steps, chunk) => {
+        editChainMatchesFreshParses(text, steps, (previous) => {
+          let next = 0;
+          let turns = 0;
+          while (next >= 0) { next = listOffsetsAhead(previous, next, chunk); turns++; }
+          expect(turns).toBe(Math.max(1, Math.ceil(previous.cards.length / chunk)));
+        });
+      }),
+      { seed: 20261207, numRuns: 150, endOnFailure: true },
     );
   });
 

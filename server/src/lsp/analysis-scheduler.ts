@@ -11,6 +11,7 @@ import type { PartsFile } from '../ratings/index';
 import type { AnalysisStop, AnalysisWorkerHost } from './analysis-worker-host';
 import type { ViewContent, ViewRequest } from '../protocol/custom-protocol';
 import { mainThreadParse, restoredForm } from './posted-analysis';
+import { listOffsetsWhenIdle } from './offsets-ahead';
 
 /** How long the editor waits for one file's analysis before it stops it and says so. */
 export const EDITOR_PATIENCE_MS = 60_000;
@@ -190,6 +191,7 @@ export class AnalysisScheduler {
       const file = restoredForm(outcome.file, { text: open.get(uri), parsed: parsedHere, held: held?.file });
       this.results.set(uri, { file, sequence: outcome.sequence, version });
       this.hooks.onAnalysed(file, version);
+      listOffsetsWhenIdle(file.netlist, () => this.results.get(uri)?.file === file);
     }
   }
 }

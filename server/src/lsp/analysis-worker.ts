@@ -17,6 +17,7 @@ import { memoisedSolver } from '../solve/index';
 import type { PostedAnswer, PostedRequest, ResolveOutcome, WorkerAnswer, WorkerRequest, WorkerSetup } from './analysis-messages';
 import { postedWithBase, type PostedBase } from './posted-analysis';
 import { renderView } from './views';
+import { listOffsetsWhenIdle } from './offsets-ahead';
 import { createWorkspaceReader } from './workspace-reader';
 
 const setup = workerData as WorkerSetup;
@@ -65,7 +66,9 @@ function handle(request: WorkerRequest): WorkerAnswer {
       if (!file) return { kind: 'analysed', file: undefined, sequence: 0 };
       const sequence = nextSequence++;
       const { posted, next } = postedWithBase({ ...file, findings: file.findings.map(withoutFixes) }, openDocuments.get(request.uri), base);
-      kept.set(request.uri, [{ sequence, file, posted: next }, ...(kept.get(request.uri) ?? []).slice(0, 1)]);
+      const entry = { sequence, file, posted: next, consumed: false };
+      kept.set(request.uri, [entry, ...(kept.get(request.uri) ?? []).slice(0, 1)]);
+      listOffsetsWhenIdle(file.netlist, () => !entry.consumed && kept.get(request.uri)?.[0] === entry);
       return { kind: 'analysed', file: posted, sequence };
     }
     case 'fixes': {
