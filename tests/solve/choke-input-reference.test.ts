@@ -4,7 +4,7 @@ import { buildNetwork } from '../../server/src/solve/network';
 import { findSteadyState } from '../../server/src/solve/shooting';
 import type { EquivalentCircuit } from '../../server/src/solve/equivalent-circuit';
 import { AT_25C, bridgeDevices, circuit } from './fixtures';
-import { SPICE_DIODE, spiceDiodeV } from './spice-diode-reference';
+import { SPICE_DIODE, sampledFigures, spiceDiodeV, type PeriodSample } from './spice-diode-reference';
 import { loadOdex, type OdexSolver } from './odex-loader';
 
 // Independent reference: the registry library `odex` (Hairer & Wanner's ODEX) integrates a
@@ -62,21 +62,14 @@ function bruteForce(Solver: new (n: number) => OdexSolver, k: Choke) {
     if (done) break;
   }
   // Each half-cycle's grid holds both its ends: every instant of [t0, t0 + T) is kept once.
-  const unique: { v: number; i: number }[] = [];
+  const unique: PeriodSample[] = [];
   let last = -Infinity;
   period(t0, y, (t, s) => {
     if (t <= last + T / 1e6 || t >= t0 + T - T / 1e6) return;
     last = t;
     unique.push({ v: s[0]!, i: t < t0 + T / 2 ? Math.max(s[1]!, 0) : 0 });
   });
-  const mean = (f: (s: { v: number; i: number }) => number) => unique.reduce((a, s) => a + f(s), 0) / unique.length;
-  const vs = unique.map((s) => s.v);
-  return {
-    rippleVpp: Math.max(...vs) - Math.min(...vs),
-    ipkA: Math.max(...unique.map((s) => s.i)),
-    iavgA: mean((s) => s.i),
-    irmsA: Math.sqrt(mean((s) => s.i * s.i)),
-  };
+  return sampledFigures(unique);
 }
 
 const chokeCircuit = (k: Choke): EquivalentCircuit => ({

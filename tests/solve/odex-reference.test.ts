@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { solveCorner } from '../../server/src/solve/solve-rectifier';
 import { AT_25C, bridgeDevices, circuit } from './fixtures';
-import { SPICE_DIODE, bridgeCurrentA, spiceDiodeV } from './spice-diode-reference';
+import { SPICE_DIODE, bridgeCurrentA, meanOf, sampledFigures, spiceDiodeV, type PeriodSample } from './spice-diode-reference';
 import { loadOdex, type OdexSolver } from './odex-loader';
 
 // Independent reference: the registry library `odex` (Hairer & Wanner's ODEX extrapolation
@@ -31,21 +31,13 @@ function bruteForce(Solver: new (n: number) => OdexSolver, k: Case) {
     if (done) break;
   }
   // Sample the settled period densely.
-  const samples: { v: number; i: number }[] = [];
+  const samples: PeriodSample[] = [];
   solver.denseOutput = true;
   solver.solve(rhs, t0, [v0], t0 + T, solver.grid(T / 40000, (t, y) => {
     samples.push({ v: y[0]!, i: bridgeCurrentA(Math.abs(vm * Math.sin(w * t)), y[0]!, k.rs) * (Math.sin(w * t) > 0 ? 1 : 0) });
   }));
   samples.pop(); // the grid includes both ends of the period; keep one
-  const mean = (f: (s: { v: number; i: number }) => number) => samples.reduce((a, s) => a + f(s), 0) / samples.length;
-  const vs = samples.map((s) => s.v);
-  return {
-    rippleVpp: Math.max(...vs) - Math.min(...vs),
-    ipkA: Math.max(...samples.map((s) => s.i)),
-    iavgA: mean((s) => s.i),
-    irmsA: Math.sqrt(mean((s) => s.i * s.i)),
-    lossW: mean((s) => spiceDiodeV(s.i) * s.i),
-  };
+  return { ...sampledFigures(samples), lossW: meanOf(samples, (s) => spiceDiodeV(s.i) * s.i) };
 }
 
 describe('real diodes with source resistance, against odex run to steady state', () => {

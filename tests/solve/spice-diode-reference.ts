@@ -1,6 +1,7 @@
 /**
  * The diode law the odex references integrate (tests/solve/odex-reference.test.ts,
- * inrush-reference.test.ts), written out from the SPICE diode equation with RS = 0 and solved by
+ * inrush-reference.test.ts, choke-input-reference.test.ts) and the figures they read off a sampled
+ * period, written out from the SPICE diode equation with RS = 0 and solved by
  * bisection, so that nothing of the solver's numerics enters a reference.
  */
 import type { DiodeParams } from '../../server/src/solve/equivalent-circuit';
@@ -17,4 +18,23 @@ export const spiceDiodeV = (i: number) => SPICE_DIODE.n * VT_25C * Math.log1p(i 
 export function bridgeCurrentA(eAbs: number, v: number, rs: number): number {
   if (eAbs <= v) return 0;
   return bisect((i) => rs * i + 2 * spiceDiodeV(i) + v - eAbs, 0, (eAbs - v) / rs, 80);
+}
+
+/** One output voltage and one device current at an instant of a uniformly sampled period. */
+export interface PeriodSample { v: number; i: number }
+
+/** The mean of f over a period sampled at uniform instants (each once). */
+export function meanOf(samples: readonly PeriodSample[], f: (s: PeriodSample) => number): number {
+  return samples.reduce((a, s) => a + f(s), 0) / samples.length;
+}
+
+/** Ripple, and the device's peak, average and RMS current, of a period sampled at uniform instants (each once). */
+export function sampledFigures(samples: readonly PeriodSample[]) {
+  const vs = samples.map((s) => s.v);
+  return {
+    rippleVpp: Math.max(...vs) - Math.min(...vs),
+    ipkA: Math.max(...samples.map((s) => s.i)),
+    iavgA: meanOf(samples, (s) => s.i),
+    irmsA: Math.sqrt(meanOf(samples, (s) => s.i * s.i)),
+  };
 }
