@@ -230,9 +230,14 @@ export class StageSolver {
       const iN = i - G / this.dG;
       const psiI = iN > 0 ? Math.log1p(iN / isRef) : -1;
       let next = G > 0 ? (psiI > lo ? psiI : psiN) : (psiN < hi ? psiN : psiI);
-      if (!(next > lo && next < hi)) next = Number.isFinite(hi) ? 0.5 * (lo + hi) : Math.min(lo + 2 * (psi - lo) + 1, 700);
-      // Relative in ψ, hence in i: an ideal-ish diode can sit at ψ ≪ 1.
-      const done = Math.abs(next - psi) <= 1e-11 * psi;
+      const newton = next > lo && next < hi;
+      if (!newton) next = Number.isFinite(hi) ? 0.5 * (lo + hi) : Math.min(lo + 2 * (psi - lo) + 1, 700);
+      // Relative in ψ, hence in i: an ideal-ish diode can sit at ψ ≪ 1. A Newton step also bounds
+      // the error it leaves: G''/G' ≤ 1 in ψ for the diode law (and, in i, |G''/G'| ≤ 1/(IS + i)),
+      // so after a step Δψ the error is at most Δψ²/2, and the iteration may stop once that is a
+      // hundredth of the tolerance, one evaluation before a step itself falls under it.
+      const step = Math.abs(next - psi);
+      const done = step <= 1e-11 * psi || (newton && 0.5 * step * step <= 1e-13 * psi);
       psi = next;
       if (done) break;
     }
