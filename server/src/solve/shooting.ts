@@ -9,7 +9,7 @@ import { StageSolver } from './stage';
 import { Integrator, type IntegrateOptions } from './integrator';
 import { PeriodRecord } from './record';
 import { zeros } from './vec';
-import { PeriodicityTest } from './periodicity';
+import { NEAR_RESIDUAL, PeriodicityTest } from './periodicity';
 
 /**
  * The recorded period's sampling resolution where its current is smooth (integrator.ts,
@@ -43,6 +43,8 @@ export interface SteadyStateOptions {
 
 export interface SteadyState {
   converged: boolean;
+  /** A draft (`SteadyStateRun.next(true)`): a recorded period near the orbit, not yet periodic. */
+  draft: boolean;
   /** Newton iterations (periods integrated with the Jacobian). */
   iterations: number;
   /** Periods integrated in all, the recorded one included. */
@@ -57,62 +59,110 @@ export interface SteadyState {
 
 /** Finds the periodic steady state of a network, starting from `guess` when given. */
 export function findSteadyState(net: Network, options: SteadyStateOptions = {}, guess?: { y0: readonly number[]; mode0: number }): SteadyState {
-  const n = net.n;
-  const T = net.periodS;
-  const relTol = options.relTol ?? 1e-5;
-  const maxIt = options.maxIterations ?? 30;
-  const solver = new StageSolver(net);
-  const integ = new Integrator(net, solver);
-  const opts = integrationOptions(net, relTol, options.maxStepsPerPeriod ?? 20000);
-  const problems: string[] = [];
-  const record = new PeriodRecord(net);
-  // Without a guess the first period is the switch-on from empty, a physical start whose
-  // Newton correction already lands near the orbit.
-  const y0 = zeros(n);
-  let mode0 = -1;
-  let periods = 0;
-  if (guess) { for (let j = 0; j < n; j++) y0[j] = guess.y0[j]!; mode0 = guess.mode0; }
-  let iterations = 0;
-  let converged = n === 0;
-  // A guess is a neighbouring orbit (the thermal loop's previous one, another corner's): near
-  // enough that its first period may already be the recorded one.
-  const test = new PeriodicityTest(n === 0 || guess !== undefined);
-  const g = zeros(n);
-  const resolution = options.recordResolution ?? RECORD_RESOLUTION;
-  const fineOpts: IntegrateOptions = {
-    ...opts, record, hMaxOnS: T * (options.recordStepFraction ?? 1 / 600),
-    ...(resolution > 0 ? { resolution, hMaxResolvedS: T * RELAXED_RECORD_STEP_FRACTION } : {}),
-  };
-  // Coarse periods until the orbit is near; then every period is recorded at the fine step, so
-  // the period that passes the periodicity test is the one whose figures are reported.
-  for (;;) {
-    const res = integ.run(0, T, y0, mode0, test.fine ? fineOpts : opts);
-    periods++;
-    if (!res.ok) { problems.push('steady state: step budget exhausted within one period'); break; }
-    const { verdict } = test.judge(integ.y, y0, opts.atol, g);
-    if (verdict === 'periodic') { converged = true; break; }
-    if (verdict === 'record') continue;
-    if (iterations >= maxIt) break;
-    iterations++;
-    const delta = solveNewton(integ.Y, g, n);
-    let big = 0;
-    for (let j = 0; j < n; j++) {
-      const step = Math.max(-net.vScaleV, Math.min(net.vScaleV, delta[j]!));
-      big = Math.max(big, Math.abs(step) / (opts.atol[j]! / relTol));
-      y0[j] = Math.max(0, y0[j]! + step);
+  return new SteadyStateRun(net, options, guess).next(false);
+}
+
+/**
+ * A shooting run that can stop at a draft and go on from it. A draft is the first recorded period
+ * within `NEAR_RESIDUAL` of periodic: its figures are those of the orbit but for the imbalance so
+ * small a residual leaves (a few hundredths of a percent between a bridge's pairs), enough for a
+ * loss that only moves the thermal loop to its next temperature. Its `y0` is already the start
+ * Newton takes next; `next(false)` goes on from there to the periodic orbit, the same periods a
+ * run without the draft would have taken.
+ */
+export class SteadyStateRun {
+  private readonly n: number;
+  private readonly solver: StageSolver;
+  private readonly integ: Integrator;
+  private readonly opts: IntegrateOptions;
+  private readonly fineOpts: IntegrateOptions;
+  private readonly record: PeriodRecord;
+  private readonly test: PeriodicityTest;
+  private readonly g: number[];
+  private readonly y0: number[];
+  private readonly problems: string[] = [];
+  private mode0 = -1;
+  private periods = 0;
+  private iterations = 0;
+  private readonly maxIt: number;
+  private readonly relTol: number;
+  private done = false;
+  private converged: boolean;
+
+  constructor(private readonly net: Network, options: SteadyStateOptions = {}, guess?: { y0: readonly number[]; mode0: number }) {
+    const n = net.n;
+    const T = net.periodS;
+    this.n = n;
+    this.relTol = options.relTol ?? 1e-5;
+    this.maxIt = options.maxIterations ?? 30;
+    this.solver = new StageSolver(net);
+    this.integ = new Integrator(net, this.solver);
+    this.opts = integrationOptions(net, this.relTol, options.maxStepsPerPeriod ?? 20000);
+    this.record = new PeriodRecord(net);
+    // Without a guess the first period is the switch-on from empty, a physical start whose
+    // Newton correction already lands near the orbit.
+    this.y0 = zeros(n);
+    if (guess) { for (let j = 0; j < n; j++) this.y0[j] = guess.y0[j]!; this.mode0 = guess.mode0; }
+    this.converged = n === 0;
+    // A guess is a neighbouring orbit (the thermal loop's previous one, another corner's): near
+    // enough that its first period may already be the recorded one.
+    this.test = new PeriodicityTest(n === 0 || guess !== undefined);
+    this.g = zeros(n);
+    const resolution = options.recordResolution ?? RECORD_RESOLUTION;
+    this.fineOpts = {
+      ...this.opts, record: this.record, hMaxOnS: T * (options.recordStepFraction ?? 1 / 600),
+      ...(resolution > 0 ? { resolution, hMaxResolvedS: T * RELAXED_RECORD_STEP_FRACTION } : {}),
+    };
+  }
+
+  /** Goes on to the periodic orbit, or with `draft` stops at the first draft on the way. */
+  next(draft: boolean): SteadyState {
+    if (this.done) return this.result(false);
+    const { n, net, integ, test, g, y0, opts, fineOpts } = this;
+    const T = net.periodS;
+    // Coarse periods until the orbit is near; then every period is recorded at the fine step, so
+    // the period that passes the periodicity test is the one whose figures are reported.
+    for (;;) {
+      const recorded = test.fine;
+      const res = integ.run(0, T, y0, this.mode0, recorded ? fineOpts : opts);
+      this.periods++;
+      if (!res.ok) { this.problems.push('steady state: step budget exhausted within one period'); break; }
+      const { verdict, worst } = test.judge(integ.y, y0, opts.atol, g);
+      if (verdict === 'periodic') { this.converged = true; break; }
+      if (verdict === 'record') continue;
+      if (this.iterations >= this.maxIt) break;
+      this.iterations++;
+      const delta = solveNewton(integ.Y, g, n);
+      let big = 0;
+      for (let j = 0; j < n; j++) {
+        const step = Math.max(-net.vScaleV, Math.min(net.vScaleV, delta[j]!));
+        big = Math.max(big, Math.abs(step) / (opts.atol[j]! / this.relTol));
+        y0[j] = Math.max(0, y0[j]! + step);
+      }
+      this.mode0 = res.mode;
+      test.setFine(big < 0.02 || maxAbs(integ.Y) < 0.05);
+      // The record holds the period just run, from the start before this Newton step.
+      if (draft && recorded && worst <= NEAR_RESIDUAL) return this.result(true);
     }
-    mode0 = res.mode;
-    test.setFine(big < 0.02 || maxAbs(integ.Y) < 0.05);
+    this.done = true;
+    if (!this.converged) this.problems.push(`steady state not reached in ${this.iterations} shooting iterations; figures are from the last period`);
+    if (!test.fine) {
+      const res = integ.run(0, T, y0, this.mode0, fineOpts);
+      this.periods++;
+      if (!res.ok) this.problems.push('steady state: step budget exhausted in the recorded period');
+    }
+    return this.result(false);
   }
-  if (!converged) problems.push(`steady state not reached in ${iterations} shooting iterations; figures are from the last period`);
-  if (!test.fine) {
-    const res = integ.run(0, T, y0, mode0, fineOpts);
-    periods++;
-    if (!res.ok) problems.push('steady state: step budget exhausted in the recorded period');
+
+  private result(draft: boolean): SteadyState {
+    const { n, integ, y0, opts } = this;
+    let residual = 0;
+    if (!draft) for (let j = 0; j < n; j++) residual = Math.max(residual, Math.abs(integ.y[j]! - y0[j]!) / opts.atol[j]!);
+    return {
+      converged: this.converged, draft, iterations: this.iterations, periods: this.periods, y0: y0.slice(), mode0: this.mode0,
+      residual, record: this.record, problems: this.problems.slice(),
+    };
   }
-  let residual = 0;
-  for (let j = 0; j < n; j++) residual = Math.max(residual, Math.abs(integ.y[j]! - y0[j]!) / opts.atol[j]!);
-  return { converged, iterations, periods, y0, mode0, residual, record, problems };
 }
 
 /** Integration settings derived from the network's scales. */

@@ -6,7 +6,7 @@ import type { Corner, EquivalentCircuit } from './equivalent-circuit';
 import { circuitAtCorner } from './corner-circuit';
 import type { CornerSolution, DeviceWorst, RectifierSolution, WorstFigures } from './solution';
 import { buildNetwork, setDeviceTemperatures, type NetworkOptions } from './network';
-import { findSteadyState, type SteadyState, type SteadyStateOptions } from './shooting';
+import { SteadyStateRun, type SteadyState, type SteadyStateOptions } from './shooting';
 import { computePeriodFigures, type PeriodFigures } from './figures';
 import { settleJunctionTemperatures, type ThermalOptions } from './thermal';
 import { addInrushFigures, assembleCorner } from './output-figures';
@@ -54,17 +54,23 @@ function solveCornerFrom(nominal: EquivalentCircuit, corner: Corner, options: So
   if (overlapApplies(circuit)) return { solution: solveOverlapCorner(circuit, corner, base, options) };
   const net = buildNetwork(circuit, corner.lineScale, circuit.devices.map(() => ta), notes, options.network);
   if (!net) return { solution: base };
-  let last: { ss: SteadyState; figs: PeriodFigures } | undefined;
+  let last: { run: SteadyStateRun; ss: SteadyState; figs: PeriodFigures } | undefined;
   let iterations = 0;
   const guess = seed && seed.y0.length === net.n ? { y0: seed.y0.map((y) => (y * net.vScaleV) / seed.vScaleV), mode0: seed.mode0 } : undefined;
-  const lossAt = (tj: number[]) => {
-    setDeviceTemperatures(net, tj);
-    const ss = findSteadyState(net, options.steadyState, last?.ss ?? guess);
-    iterations += ss.iterations;
-    last = { ss, figs: computePeriodFigures(ss.record) };
+  const evaluated = (run: SteadyStateRun, ss: SteadyState, before: number) => {
+    iterations += ss.iterations - before;
+    last = { run, ss, figs: computePeriodFigures(ss.record) };
     return last.figs.devices.map((d) => d.lossW);
   };
-  const thermal = settleJunctionTemperatures(ta, circuit.devices.map((d) => d.rthjaKPerW), lossAt, options.thermal, seed?.riseK.map((r) => ta + r));
+  // An evaluation the thermal loop goes on from may be a draft (shooting.ts SteadyStateRun): it
+  // saves the recorded period that would make it periodic; the one the loop stops on is finished.
+  const lossAt = (tj: number[], mayDraft: boolean) => {
+    setDeviceTemperatures(net, tj);
+    const run = new SteadyStateRun(net, options.steadyState, last?.ss ?? guess);
+    return evaluated(run, run.next(mayDraft), 0);
+  };
+  const finish = () => (last?.ss.draft ? evaluated(last.run, last.run.next(false), last.ss.iterations) : undefined);
+  const thermal = settleJunctionTemperatures(ta, circuit.devices.map((d) => d.rthjaKPerW), lossAt, options.thermal, seed?.riseK.map((r) => ta + r), finish);
   const { ss, figs } = last!;
   notes.push(...ss.problems);
   const points = options.waveformPoints ?? 200;

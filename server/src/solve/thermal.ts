@@ -38,10 +38,17 @@ const SECANT_SLOPE_LIMIT = 0.9;
  * stay at ambient. `lossAt` must return the per-device loss at the given junction temperatures;
  * `startC`, when given, is the first Tj tried (a guess; the result does not depend on it beyond
  * the tolerance).
+ *
+ * With `finish`, `lossAt` may answer from a draft (a loss good enough to pick the next Tj, not
+ * yet that of a periodic orbit): before the loop stops at a Tj, `finish` makes that last
+ * evaluation final and returns its loss (undefined when it was final already), and the stop is
+ * judged again on it. So an evaluation the loop goes on from costs only its draft, and the
+ * reported Tj, loss and orbit still belong together. Once a final loss overturns a stop, the
+ * loop asks for final evaluations only.
  */
 export function settleJunctionTemperatures(
-  ambientC: number, rthKPerW: readonly (number | undefined)[], lossAt: (tjC: number[]) => number[], opts: ThermalOptions = {},
-  startC?: readonly number[],
+  ambientC: number, rthKPerW: readonly (number | undefined)[], lossAt: (tjC: number[], mayDraft: boolean) => number[], opts: ThermalOptions = {},
+  startC?: readonly number[], finish?: () => number[] | undefined,
 ): ThermalResult {
   const tol = opts.toleranceK ?? 0.1;
   const maxIt = opts.maxIterations ?? 40;
@@ -52,15 +59,29 @@ export function settleJunctionTemperatures(
     return hasRth[k] && s !== undefined && Number.isFinite(s) ? Math.min(Math.max(s, ambientC), limit) : ambientC;
   };
   let tj = rthKPerW.map((_, k) => clampStart(k));
-  let loss = lossAt(tj);
-  if (!hasRth.some(Boolean)) return { tjC: tj, lossW: loss, iterations: 0, converged: true, runaway: tj.map(() => false) };
+  const anyRth = hasRth.some(Boolean);
+  // Drafts until one passes the stop test and its final loss does not: from then on every
+  // evaluation is final, so a draft too far off cannot keep the loop from its fixed point.
+  let drafting = anyRth && finish !== undefined;
+  let loss = lossAt(tj, drafting);
+  if (!anyRth) return { tjC: tj, lossW: loss, iterations: 0, converged: true, runaway: tj.map(() => false) };
   const image = (l: number[]) => rthKPerW.map((r, k) => (hasRth[k] ? ambientC + Math.max(l[k]!, 0) * r! : ambientC));
   let f = image(loss);
   let prevT: number[] | undefined;
   let prevF: number[] | undefined;
   let iterations = 0;
   let hot = false;
-  while (Math.max(...f.map((x, k) => Math.abs(x - tj[k]!))) > tol && iterations < maxIt) {
+  for (;;) {
+    // Written as "not above" so that a loss that is not a number stops the loop, as it always has.
+    if (!(Math.max(...f.map((x, k) => Math.abs(x - tj[k]!))) > tol) || iterations >= maxIt) {
+      // About to stop on this evaluation: it must be final, and the stop is judged on its final loss.
+      const final = finish?.();
+      if (final === undefined) break;
+      loss = final;
+      f = image(loss);
+      drafting = false;
+      continue;
+    }
     const next = tj.map((t, k) => {
       if (!hasRth[k]) return ambientC;
       const plain = f[k]!;
@@ -72,8 +93,13 @@ export function settleJunctionTemperatures(
     tj = next.map((t) => Math.max(Math.min(t, limit + 1), ambientC));
     iterations++;
     if (tj.some((t) => t > limit)) { hot = true; break; }
-    loss = lossAt(tj);
+    loss = lossAt(tj, drafting);
     f = image(loss);
+  }
+  if (hot) {
+    // The figures reported are those of the last evaluation, before the jump: made final too.
+    const final = finish?.();
+    if (final !== undefined) { loss = final; f = image(loss); }
   }
   // After a jump past the limit f still belongs to the previous Tj.
   const at = hot && prevT ? prevT : tj;
