@@ -101,11 +101,13 @@ export function movedInPlaceMatches(before: unknown, now: unknown, edit: RootEdi
   const fields = before as Record<string, unknown>;
   const other = now as Record<string, unknown>;
   const owner = typeof fields.uri === 'string' ? fields.uri === edit.uri : inRoot;
-  const keys = Object.keys(fields);
-  if (keys.length !== Object.keys(other).length) return false;
+  // Keys counted with for-in rather than listed: no array per object (plain objects have no inherited enumerable keys).
+  let count = 0;
+  for (const _ in other) count++;
   // Both offsets are read before either is moved: where an end moves depends on its start.
   const start = fields.start;
-  for (const key of keys) {
+  for (const key in fields) {
+    count--;
     if (!(key in other)) return false;
     const field = fields[key];
     if (shared.has(key)) {
@@ -116,5 +118,5 @@ export function movedInPlaceMatches(before: unknown, now: unknown, edit: RootEdi
       if (!Object.is(moved, other[key])) return false;
     } else if (!movedInPlaceMatches(field, other[key], edit, shared, owner)) return false;
   }
-  return true;
+  return count === 0;
 }
