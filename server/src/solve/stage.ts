@@ -227,9 +227,13 @@ export class StageSolver {
       // G is concave in i and convex in ψ: Newton in i is the bolder move downwards, Newton in
       // ψ the bolder move upwards. Take the bold one inside the bracket, else the other, else bisect.
       const psiN = psi - G / (this.dG * (i + isRef));
-      const iN = i - G / this.dG;
-      const psiI = iN > 0 ? Math.log1p(iN / isRef) : -1;
-      let next = G > 0 ? (psiI > lo ? psiI : psiN) : (psiN < hi ? psiN : psiI);
+      // Newton in i, as ψ: its logarithm only when it is the move taken.
+      let next = psiN;
+      if (G > 0 || !(psiN < hi)) {
+        const iN = i - G / this.dG;
+        const psiI = iN > 0 ? Math.log1p(iN / isRef) : -1;
+        next = G > 0 ? (psiI > lo ? psiI : psiN) : psiI;
+      }
       const newton = next > lo && next < hi;
       if (!newton) next = Number.isFinite(hi) ? 0.5 * (lo + hi) : Math.min(lo + 2 * (psi - lo) + 1, 700);
       // Relative in ψ, hence in i: an ideal-ish diode can sit at ψ ≪ 1. A Newton step also bounds
