@@ -72,7 +72,6 @@ export function findSteadyState(net: Network, options: SteadyStateOptions = {}, 
  */
 export class SteadyStateRun {
   private readonly n: number;
-  private readonly solver: StageSolver;
   private readonly integ: Integrator;
   private readonly opts: IntegrateOptions;
   private readonly fineOpts: IntegrateOptions;
@@ -95,8 +94,7 @@ export class SteadyStateRun {
     this.n = n;
     this.relTol = options.relTol ?? 1e-5;
     this.maxIt = options.maxIterations ?? 30;
-    this.solver = new StageSolver(net);
-    this.integ = new Integrator(net, this.solver);
+    this.integ = new Integrator(net, new StageSolver(net));
     this.opts = integrationOptions(net, this.relTol, options.maxStepsPerPeriod ?? 20000);
     this.record = new PeriodRecord(net);
     // Without a guess the first period is the switch-on from empty, a physical start whose
