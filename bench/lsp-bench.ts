@@ -62,26 +62,37 @@ async function untilFresh(session: LspSession, text: EditedText, first: Promise<
 const sinceMs = (start: bigint) => Number(process.hrtime.bigint() - start) / 1e6;
 const pause = (ms: number) => new Promise((r) => setTimeout(r, ms));
 
-export async function round(lines: number, edits: number, bursts: number, valueEdits = 0): Promise<Round> {
+/** A fresh server with the `lines`-line netlist open, once its first diagnostics are out. */
+async function openedSession(lines: number): Promise<{ session: LspSession; text: EditedText; firstMs: number }> {
   const session = await startSession();
   const text = new EditedText(netlistWith(lines, 50), EDIT_LINE);
-  const result: Round = { firstMs: 0, cpuPerEditMs: 0, editMs: [], burstMs: [], rectifierValueMs: [], fillerValueMs: [], stale: 0, neverFresh: 0 };
   const openStart = process.hrtime.bigint();
   await session.open(URI, text.text);
   await session.diagnosticsFor(URI, 1);
-  result.firstMs = sinceMs(openStart);
-  const record = (outcome: { stale: number; fresh: boolean }, into: number[], start: bigint) => {
+  return { session, text, firstMs: sinceMs(openStart) };
+}
+
+type Change = Parameters<LspSession['change']>[2][number];
+
+/** Sends one edit (made when sent) and waits until the answers are fresh, timed from the send. */
+async function editUntilFresh(session: LspSession, text: EditedText, edit: () => Change): Promise<{ stale: number; fresh: boolean; ms: number }> {
+  const start = process.hrtime.bigint();
+  await session.change(URI, text.version + 1, [edit()]);
+  const [from, to] = visibleRange(text);
+  const outcome = await untilFresh(session, text, session.hints(URI, from, to));
+  return { ...outcome, ms: sinceMs(start) };
+}
+
+export async function round(lines: number, edits: number, bursts: number, valueEdits = 0): Promise<Round> {
+  const { session, text, firstMs } = await openedSession(lines);
+  const result: Round = { firstMs, cpuPerEditMs: 0, editMs: [], burstMs: [], rectifierValueMs: [], fillerValueMs: [], stale: 0, neverFresh: 0 };
+  const record = (outcome: { stale: number; fresh: boolean; ms: number }, into: number[]) => {
     result.stale += outcome.stale;
-    if (outcome.fresh) into.push(sinceMs(start));
+    if (outcome.fresh) into.push(outcome.ms);
     else result.neverFresh++;
   };
   const cpuBefore = session.cpuMs();
-  for (let e = 0; e < edits; e++) {
-    const start = process.hrtime.bigint();
-    await session.change(URI, text.version + 1, [text.shiftEdit()]);
-    const [from, to] = visibleRange(text);
-    record(await untilFresh(session, text, session.hints(URI, from, to)), result.editMs, start);
-  }
+  for (let e = 0; e < edits; e++) record(await editUntilFresh(session, text, () => text.shiftEdit()), result.editMs);
   result.cpuPerEditMs = (session.cpuMs() - cpuBefore) / Math.max(1, edits);
   for (let b = 0; b < bursts; b++) {
     // Open a comment line (every hint below moves), type into it, then answer the last keystroke.
@@ -93,7 +104,7 @@ export async function round(lines: number, edits: number, bursts: number, valueE
     }
     const start = process.hrtime.bigint();
     const [from, to] = visibleRange(text);
-    record(await untilFresh(session, text, session.hints(URI, from, to)), result.burstMs, start);
+    record({ ...(await untilFresh(session, text, session.hints(URI, from, to))), ms: sinceMs(start) }, result.burstMs);
   }
   // Values typed into cards: the same length each time, so the hints stay where they are and
   // freshness is the version of the diagnostics.
@@ -103,12 +114,7 @@ export async function round(lines: number, edits: number, bursts: number, valueE
     for (const [line, pattern, by, into] of [
       [capacitor, /\d{3}u$/, `${101 + (k % 899)}u`, result.rectifierValueMs],
       [filler, /4\.\dk/, `4.${k % 10}k`, result.fillerValueMs],
-    ] as const) {
-      const start = process.hrtime.bigint();
-      await session.change(URI, text.version + 1, [text.replaceOnLine(line, pattern, by)]);
-      const [from, to] = visibleRange(text);
-      record(await untilFresh(session, text, session.hints(URI, from, to)), into, start);
-    }
+    ] as const) record(await editUntilFresh(session, text, () => text.replaceOnLine(line, pattern, by)), into);
   }
   await session.stop();
   return result;
@@ -121,15 +127,10 @@ export async function round(lines: number, edits: number, bursts: number, valueE
 async function firstEditsAfterPause(sessions: number): Promise<number[]> {
   const times: number[] = [];
   for (let s = 0; s < sessions; s++) {
-    const session = await startSession();
-    const text = new EditedText(netlistWith(5000, 50), EDIT_LINE);
-    await session.open(URI, text.text);
-    await session.diagnosticsFor(URI, 1);
+    const { session, text } = await openedSession(5000);
     await pause(1000);
-    const start = process.hrtime.bigint();
-    await session.change(URI, text.version + 1, [text.shiftEdit()]);
-    const [from, to] = visibleRange(text);
-    if ((await untilFresh(session, text, session.hints(URI, from, to))).fresh) times.push(sinceMs(start));
+    const edit = await editUntilFresh(session, text, () => text.shiftEdit());
+    if (edit.fresh) times.push(edit.ms);
     await session.stop();
   }
   return times;

@@ -71,14 +71,19 @@ export function settleJunctionTemperatures(
   let prevF: number[] | undefined;
   let iterations = 0;
   let hot = false;
+  /** Makes the last evaluation final (its loss and image then stand for it); false when it was final already. */
+  const finishLast = (): boolean => {
+    const final = finish?.();
+    if (final === undefined) return false;
+    loss = final;
+    f = image(loss);
+    return true;
+  };
   for (;;) {
     // Written as "not above" so that a loss that is not a number stops the loop, as it always has.
     if (!(Math.max(...f.map((x, k) => Math.abs(x - tj[k]!))) > tol) || iterations >= maxIt) {
       // About to stop on this evaluation: it must be final, and the stop is judged on its final loss.
-      const final = finish?.();
-      if (final === undefined) break;
-      loss = final;
-      f = image(loss);
+      if (!finishLast()) break;
       drafting = false;
       continue;
     }
@@ -96,11 +101,8 @@ export function settleJunctionTemperatures(
     loss = lossAt(tj, drafting);
     f = image(loss);
   }
-  if (hot) {
-    // The figures reported are those of the last evaluation, before the jump: made final too.
-    const final = finish?.();
-    if (final !== undefined) { loss = final; f = image(loss); }
-  }
+  // After a jump past the limit the figures reported are those of the last evaluation: final too.
+  if (hot) finishLast();
   // After a jump past the limit f still belongs to the previous Tj.
   const at = hot && prevT ? prevT : tj;
   const runaway = tj.map((t, k) => hasRth[k]! && (t > limit || Math.abs(f[k]! - at[k]!) > tol));
