@@ -48,6 +48,13 @@ export interface AnalysisInput {
    * after the rules to what views, fixes and hovers read (rules/rule-context.ts `compactAfterRules`).
    */
   compactFlat?: boolean;
+  /**
+   * Whether the rectifiers' solutions carry sampled waveforms (default true). An adapter that draws
+   * them only on request (the language server's views, `check`, which draws nothing) leaves them
+   * out: at 100,000 lines they were some 40 MB of the solution cache. Whoever draws then solves the
+   * rectifier again with them (report/drawn-solution.ts); the figures are the same either way.
+   */
+  waveforms?: boolean;
 }
 
 export interface FileAnalysis {
@@ -111,7 +118,8 @@ function analyzeRoot(uri: string, input: AnalysisInput, cache: Map<string, Netli
   const { policy } = resolvePolicy(flat.directives, settings);
   const solve = withIterationLimit(memoisedSolver(input.solutionCache), limits.solverIterations);
   const toSolve = recognition.rectifiers.slice(0, limits.maxRectifiers);
-  const { analyses, findings: assumptions } = analyseRectifiers(flat, toSolve, settings, input.partsFiles ?? [], solve, limits.maxSolverPeriods);
+  const solveRectifiers = input.waveforms === false ? withoutWaveforms(solve) : solve;
+  const { analyses, findings: assumptions } = analyseRectifiers(flat, toSolve, settings, input.partsFiles ?? [], solveRectifiers, limits.maxSolverPeriods);
   const limitFindings = [
     ...unsolvedFinding(toSolve.slice(analyses.length), `the solver used its budget of ${limits.maxSolverPeriods} periods (limit: solver work per analysis)`),
     ...unsolvedFinding(recognition.rectifiers.slice(toSolve.length), `more than ${limits.maxRectifiers} rectifiers (limit: rectifiers solved per analysis)`),
@@ -141,6 +149,11 @@ function analyzeRoot(uri: string, input: AnalysisInput, cache: Map<string, Netli
 function withIterationLimit(solve: SolveFn, maxIterations: number | undefined): SolveFn {
   if (maxIterations === undefined) return solve;
   return (circuit, corners, options) => solve(circuit, corners, { ...options, steadyState: { ...options?.steadyState, maxIterations } });
+}
+
+/** The solver asked for no sampled waveforms (the figures come from the record either way). */
+function withoutWaveforms(solve: SolveFn): SolveFn {
+  return (circuit, corners, options) => solve(circuit, corners, { ...options, waveformPoints: 0 });
 }
 
 /**

@@ -54,7 +54,7 @@ export function checkFile(task: CheckTask, configuration: CheckConfiguration, re
   // fixes read what `compactAfterRules` keeps for the server's fixes). Cutting it costs an index
   // rebuild, worth it only when the fixes' trial solves keep this analysis alive for a while.
   const snapshot = analyze({
-    roots: [task.path], readText: readRoot, settings: configuration.settings, partsFiles: configuration.partsFiles, compactFlat: shape.withFixes,
+    roots: [task.path], readText: readRoot, settings: configuration.settings, partsFiles: configuration.partsFiles, compactFlat: shape.withFixes, waveforms: false,
   });
   const file = snapshot.files.get(task.path);
   if (!file) return { index: task.index, path: task.path, unreadable: unreadReason(readRoot, task.path), rectifiers: [], byFile: [] };

@@ -60,7 +60,7 @@ function handle(request: WorkerRequest): WorkerAnswer {
       const reusable = previous && !previous.consumed ? previous : undefined;
       if (reusable) reusable.consumed = true;
       const file = analyze({
-        roots: [request.uri], readText, settings: request.settings, partsFiles: request.partsFiles, solutionCache, compactFlat: true,
+        roots: [request.uri], readText, settings: request.settings, partsFiles: request.partsFiles, solutionCache, compactFlat: true, waveforms: false,
         previousParse: (target) => reusable?.file.parsed.get(target), consumePreviousParse: true,
       }).files.get(request.uri);
       if (!file) return { kind: 'analysed', file: undefined, sequence: 0 };

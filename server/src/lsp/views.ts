@@ -11,7 +11,7 @@ export type { ViewRequest };
 export function renderView(file: FileAnalysis | undefined, request: ViewRequest, solve: SolveFn): ViewContent | null {
   if (file && request.kind === 'report') return renderReportPage(file, solve);
   if (!file || file.rectifiers.length === 0) return null;
-  return request.kind === 'comparison' ? renderComparisonView(file, request.rectifierId, solve) : renderWaveformView(file, request.rectifierId);
+  return request.kind === 'comparison' ? renderComparisonView(file, request.rectifierId, solve) : renderWaveformView(file, request.rectifierId, solve);
 }
 
 /** The file's HTML report as one page (the same renderer as `rectilens report --html`), named after the file. */

@@ -15,6 +15,7 @@ import { renderComparisonSvg, renderComparisonTable } from './comparison-svg';
 import { needsCaution, rectifierLabel, renderCautionHtml, renderNotesHtml } from './html-blocks';
 import { escapeMarkup } from '../presentation/markup';
 import { PAGE_CSS } from './page-style';
+import { drawnSolution } from './drawn-solution';
 import { defaultInrushCorner, defaultPeriodCorner, renderInrushSvg, renderPeriodSvg } from './waveform-svg';
 import { formatFixed, formatPercent, formatSi } from '../presentation/format';
 import { formatI2t } from './figure-tables';
@@ -29,11 +30,12 @@ export const MAX_RECTIFIERS_PER_VIEW = 8;
  * is given: a steady-state period at the nominal corner and the inrush half-cycle at the corner
  * with the largest inrush.
  */
-export function renderWaveformView(file: FileAnalysis, rectifierId?: string): ViewContent {
+export function renderWaveformView(file: FileAnalysis, rectifierId?: string, solve: SolveFn = memoisedSolver(undefined)): ViewContent {
   return renderView(file, rectifierId, 'Waveforms', (analysis) => {
     const label = rectifierLabel(analysis);
-    const period = defaultPeriodCorner(analysis.solution.corners);
-    const inrush = defaultInrushCorner(analysis.solution.corners);
+    const { corners } = drawnSolution(analysis, solve);
+    const period = defaultPeriodCorner(corners);
+    const inrush = defaultInrushCorner(corners);
     const periodSvg = period && renderPeriodSvg(period, { rectifierLabel: label });
     const inrushSvg = inrush && renderInrushSvg(inrush, { rectifierLabel: label });
     return [
