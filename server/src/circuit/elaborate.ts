@@ -5,10 +5,10 @@
  * instance whose expansion would not fit is refused before it is built (expansion-size.ts), so no
  * input can exhaust the stack, the memory or the time.
  */
-import { key, type InstanceCard, type Item, type Lookup, type ModelCard, type Netlist } from '../../../grammar/src/index';
+import { key, type InstanceCard, type Item, type Lookup, type ModelCard, type Netlist, type SubcktBlock } from '../../../grammar/src/index';
 import { FindingSet } from '../findings/index';
 import { buildElement, terminalsOf, type Frame } from './elements';
-import { globalParamValues } from './elaboration-memo';
+import { globalParamValues, keepElement, keepExpansion, keptElement, keptExpansion, scopeToken, type KeptExpansion, type ScopeToken } from './elaboration-memo';
 import type { FileSource, FlatCircuit, FlatElement, FlatInstance, FlatModel, PlacedDirective } from './flat-circuit';
 import { didYouMean } from './did-you-mean';
 import { ExpansionSizer, lookupDef, type Defs, type SubcktDef } from './expansion-size';
@@ -22,6 +22,20 @@ export interface ElaborateOptions {
   maxElements?: number;
   /** Most cards spliced in from included files (default 1,000,000). */
   maxIncludedCards?: number;
+}
+
+/** A top-level X card's expansion being built, to be kept if building it says nothing. */
+interface Recording {
+  card: InstanceCard;
+  uri: string;
+  instances: number;
+  elements: number;
+  charged: number;
+  offered: number;
+  models: [string, FlatModel][];
+  size: number | undefined;
+  /** A body it entered holds a directive (collected once per file and offset, so not replayed). */
+  directive: boolean;
 }
 
 interface Work {
@@ -52,11 +66,16 @@ class Elaborator {
   /** Cards charged to the flattened size: top-level elements and instances, and every expanded body whole. */
   private charged = 0;
   private stopped = false;
+  private readonly maxIncludedCards: number | undefined;
+  /** This elaboration's top-level scope, under which top-level cards' flat forms are kept; none when a subcircuit body includes a file. */
+  private scope: ScopeToken | undefined;
+  private recording: Recording | undefined;
 
   constructor(private readonly rootUri: string, files: FileSource, options: ElaborateOptions) {
     this.expander = new IncludeExpander(files, this.sink, options.maxIncludedCards);
     this.maxDepth = options.maxDepth ?? 64;
     this.maxElements = options.maxElements ?? 200_000;
+    this.maxIncludedCards = options.maxIncludedCards;
     this.sizer = new ExpansionSizer({ body: (def) => this.bodyOf(def), own: (def) => this.subcktsOf(def) }, this.maxDepth, this.maxElements);
   }
 
@@ -72,6 +91,7 @@ class Elaborator {
       uri: this.rootUri, namePrefix: '', keyPrefix: '', ports: new Map(), lookup: globalLookup, chain: [],
       ...this.defineModels(top, '', globalLookup, { modelKey: () => undefined, modelNames: () => [] }),
     };
+    this.scope = this.scopeOf(root, top, globalParams, defs);
     this.flatten({ items: top, next: 0, frame, defs, path: [] }, globalLookup);
     return {
       rootUri: this.rootUri, elements: this.elements, instances: this.instances, models: this.models,
@@ -86,18 +106,81 @@ class Elaborator {
       const placed = work.items[work.next++];
       if (!placed) {
         stack.pop();
+        if (stack.length === 1) this.finishRecording();
         continue;
       }
       const { item } = placed;
       const frame = placed.uri === work.frame.uri ? work.frame : { ...work.frame, uri: placed.uri };
+      const top = work.path.length === 0;
       if (item.kind === 'instance') {
+        if (top && this.reuseExpansion(item, frame.uri, work.defs)) continue;
+        if (top) this.startRecording(item, frame.uri);
         const child = this.instantiate(item, frame, work, global);
         if (child) stack.push(child);
+        else if (top) this.finishRecording();
       } else if (isElement(item)) {
-        this.elements.push(buildElement(item, frame, this.sink));
-        if (work.path.length === 0) this.charge(1, frame.uri, item.span);
+        this.elements.push(top ? this.topElement(item, frame) : buildElement(item, frame, this.sink));
+        if (top) this.charge(1, frame.uri, item.span);
       }
     }
+    this.recording = undefined;
+  }
+
+  /** The scope top-level cards are kept under; none when a subcircuit body includes a file (whose text no card of ours stands for). */
+  private scopeOf(root: Netlist | undefined, top: readonly PlacedItem[], globals: Map<string, number>, defs: Defs): ScopeToken | undefined {
+    const subckts = [...defs.own].map(([name, def]) => [name, def.block] as const);
+    if (subckts.some(([, block]) => includesInside(block))) return undefined;
+    const modelKeys: string[] = [];
+    for (const { item } of top) if (item.kind === 'model' && item.name) modelKeys.push(key(item.name));
+    return scopeToken(root?.cards[0], {
+      globals, modelKeys: modelKeys.join('\u0000'), subckts, limits: `${this.maxDepth}/${this.maxElements}/${this.maxIncludedCards}`,
+    });
+  }
+
+  /** A top-level element card's flat element: the one kept from the last elaboration in this scope, else built (and kept when building it said nothing). */
+  private topElement(card: Parameters<typeof buildElement>[0], frame: Frame): FlatElement {
+    const scope = this.scope;
+    const kept = scope && keptElement(card, scope, frame.uri);
+    if (kept) return kept;
+    const offered = this.sink.offered;
+    const element = buildElement(card, frame, this.sink);
+    if (scope && this.sink.offered === offered) keepElement(card, scope, frame.uri, element);
+    return element;
+  }
+
+  /** Puts back a top-level instance's kept expansion when it still fits where it did; false when there is none to put back. */
+  private reuseExpansion(card: InstanceCard, uri: string, defs: Defs): boolean {
+    const kept = this.scope && keptExpansion(card, this.scope, uri);
+    const def = kept && card.subckt ? lookupDef(defs, key(card.subckt)) : undefined;
+    if (!kept || !def) return false;
+    // The size check building it makes, so the sizer spends its counting budget as a fresh build
+    // does (a size it has counted once it does not count again); then the running count.
+    const size = this.sizer.sizeOf(def, defs, [key(card.subckt!)]);
+    if (size === undefined || size !== kept.size || this.charged + 1 + size > this.maxElements || this.charged + kept.charged > this.maxElements) return false;
+    for (const instance of kept.instances) this.instances.push(instance);
+    for (const element of kept.elements) this.elements.push(element);
+    for (const [name, model] of kept.models) this.models.set(name, model);
+    this.charged += kept.charged;
+    return true;
+  }
+
+  private startRecording(card: InstanceCard, uri: string): void {
+    this.recording = this.scope && {
+      card, uri, instances: this.instances.length, elements: this.elements.length, charged: this.charged, offered: this.sink.offered,
+      models: [], size: undefined, directive: false,
+    };
+  }
+
+  /** Keeps the expansion just built when building it said nothing, else forgets any kept before. */
+  private finishRecording(): void {
+    const r = this.recording;
+    if (!r || !this.scope) return;
+    this.recording = undefined;
+    const clean = !this.stopped && !r.directive && r.size !== undefined && this.sink.offered === r.offered;
+    const expansion: KeptExpansion | undefined = clean
+      ? { instances: this.instances.slice(r.instances), elements: this.elements.slice(r.elements), models: r.models, charged: this.charged - r.charged, size: r.size }
+      : undefined;
+    keepExpansion(r.card, this.scope, r.uri, expansion);
   }
 
   /** Records an X instance and returns the work of expanding it, or nothing when it cannot be expanded. */
@@ -148,6 +231,7 @@ class Elaborator {
   /** Whether the instance's whole expansion fits in the flattened size; a finding on it when not. */
   private fits(card: InstanceCard, frame: Frame, work: Work, def: SubcktDef, subckt: string): boolean {
     const size = this.sizer.sizeOf(def, work.defs, [...work.path, subckt]);
+    if (this.recording && work.path.length === 0) this.recording.size = size;
     // Unknown (the counting budget is spent): the running count in `charge` still stops the expansion.
     if (size === undefined || this.charged + size <= this.maxElements) return true;
     const cards = size > this.maxElements ? `more than ${this.maxElements}` : String(size);
@@ -212,7 +296,9 @@ class Elaborator {
       if (item.kind !== 'model' || !item.name) continue;
       const name = key(item.name);
       own.set(name, item.name.text);
-      this.models.set(keyPrefix + name, modelOf(item, uri, lookup, this.sink));
+      const model = modelOf(item, uri, lookup, this.sink);
+      this.models.set(keyPrefix + name, model);
+      if (this.recording && keyPrefix !== '') this.recording.models.push([keyPrefix + name, model]);
     }
     return {
       modelKey: (name) => (own.has(name) ? keyPrefix + name : outer.modelKey(name)),
@@ -227,6 +313,7 @@ class Elaborator {
   private collectDirectives(items: readonly PlacedItem[]): void {
     for (const { item, uri } of items) {
       if (item.kind !== 'directive' || !item.directive) continue;
+      if (this.recording) this.recording.directive = true;
       const id = `${uri}#${item.span.start}`;
       if (this.seenDirectives.has(id)) continue;
       this.seenDirectives.add(id);
@@ -241,6 +328,17 @@ class Elaborator {
     this.stopped = true;
     this.sink.add({ uri, span, severity: 'error', code: 'circuit-too-large', message: `the flattened circuit passes ${this.maxElements} elements; elaboration stops here` });
   }
+}
+
+/** Whether a block, or one nested in it, holds an `.include` or `.lib` card. */
+function includesInside(block: SubcktBlock): boolean {
+  const pending: Item[] = [block];
+  while (pending.length) {
+    const item = pending.pop()!;
+    if (item.kind === 'include' || item.kind === 'lib') return true;
+    if (item.kind === 'subckt-block' || item.kind === 'lib-section') pending.push(...item.body);
+  }
+  return false;
 }
 
 /** The names of the subcircuits visible in a scope, as written, innermost first. */

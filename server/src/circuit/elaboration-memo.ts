@@ -1,16 +1,26 @@
 /**
  * What elaboration keeps of its work for the next elaboration, keyed by the cards it came from. The
  * language server's re-parse moves the cards an edit did not touch into the new tree (the same
- * objects, offsets moved in place), so work that is a function of such cards alone stands: the
- * global parameters' values, a function of the `.param` definitions alone (names and expressions),
- * kept when resolving them said nothing. A card that changed is a new object and misses. What is
- * kept equals a fresh build, so an elaboration's result does not depend on it
- * (tests/analysis/incremental.test.ts).
+ * objects, offsets moved in place, and a flat element's offsets are its card's own objects), so
+ * work that is a function of such cards and of the scope they sit in stands:
  *
- * Keeping every top-level card's flat element this way was tried and dropped: about 12 % of the
- * elaboration at 50,000 lines, for some 250 MB more resident memory after 20 edits at 100,000.
+ * - the global parameters' values, a function of the `.param` definitions alone (names and
+ *   expressions), kept when resolving them said nothing;
+ * - the flat element of each top-level element card, and the whole expansion of each top-level
+ *   `X` card (its instances, elements and local models), kept when building it said nothing (no
+ *   finding, no directive in the bodies it entered) and found again only in the same top-level
+ *   scope (`ScopeToken`: the same global values, model names, subcircuit definitions card for
+ *   card, and limits).
+ *
+ * A card that changed is a new object and misses. What is kept equals a fresh build, so an
+ * elaboration's result does not depend on it (tests/circuit/elaboration-memo.test.ts,
+ * tests/analysis/incremental.test.ts). The price is the last elaboration's flat circuit kept alive
+ * (at 100,000 lines some 45 MB that the compacted analysis would otherwise release); an edit there
+ * elaborated in 89 ms before, 18 ms with it (50,000 lines, in process).
  */
+import type { Card, InstanceCard, Item, SubcktBlock } from '../../../grammar/src/index';
 import type { FindingSet } from '../findings/index';
+import type { FlatElement, FlatInstance, FlatModel } from './flat-circuit';
 import { resolvePlaced, type PlacedParam } from './scope';
 
 const keptGlobals = new WeakMap<PlacedParam['param'], { placed: readonly PlacedParam[]; values: Map<string, number> }>();
@@ -30,4 +40,92 @@ function samePlaced(a: readonly PlacedParam[], b: readonly PlacedParam[]): boole
   if (a.length !== b.length) return false;
   for (let i = 0; i < a.length; i++) if (a[i]!.param !== b[i]!.param || a[i]!.uri !== b[i]!.uri) return false;
   return true;
+}
+
+/** What a top-level card's flat form depends on besides the card itself. */
+export interface ScopeToken {
+  globals: ReadonlyMap<string, number>;
+  /** The top-level model keys, joined: an element holds a model's key, never its values. */
+  modelKeys: string;
+  /** The top-level subcircuit definitions by name, in order. */
+  subckts: readonly (readonly [string, SubcktBlock])[];
+  /** The elaboration's limits, joined. */
+  limits: string;
+}
+
+const scopes = new WeakMap<Card, ScopeToken>();
+
+/**
+ * The token of this elaboration's top-level scope: the previous one of the same root (found by
+ * its first card, which an edit below it leaves in place) when nothing in it changed, else `next`.
+ */
+export function scopeToken(anchor: Card | undefined, next: ScopeToken): ScopeToken {
+  const was = anchor && scopes.get(anchor);
+  if (was && sameScope(was, next)) return was;
+  if (anchor) scopes.set(anchor, next);
+  return next;
+}
+
+function sameScope(a: ScopeToken, b: ScopeToken): boolean {
+  if (a.modelKeys !== b.modelKeys || a.limits !== b.limits || a.subckts.length !== b.subckts.length) return false;
+  if (a.globals !== b.globals) {
+    if (a.globals.size !== b.globals.size) return false;
+    for (const [name, value] of a.globals) if (!Object.is(b.globals.get(name), value)) return false;
+  }
+  for (let i = 0; i < a.subckts.length; i++) {
+    if (a.subckts[i]![0] !== b.subckts[i]![0] || !sameBlock(a.subckts[i]![1], b.subckts[i]![1])) return false;
+  }
+  return true;
+}
+
+/** Whether two blocks hold the same cards: a re-parse builds every block anew around the cards it moved. */
+function sameBlock(a: SubcktBlock, b: SubcktBlock): boolean {
+  const pending: [Item, Item][] = [[a, b]];
+  while (pending.length) {
+    const [x, y] = pending.pop()!;
+    if (x === y) continue;
+    if (x.kind !== 'subckt-block' || y.kind !== 'subckt-block') return false;
+    if (x.header !== y.header || x.ends !== y.ends || x.body.length !== y.body.length) return false;
+    for (let i = 0; i < x.body.length; i++) pending.push([x.body[i]!, y.body[i]!]);
+  }
+  return true;
+}
+
+/** The flat form of a top-level card, with the scope and file it was built in. */
+interface Kept<T> {
+  scope: ScopeToken;
+  uri: string;
+  value: T;
+}
+
+/** A top-level X card's whole expansion, the instance itself first, and what it charged to the flattened size. */
+export interface KeptExpansion {
+  instances: FlatInstance[];
+  elements: FlatElement[];
+  models: [string, FlatModel][];
+  charged: number;
+  /** What the size check measured before the expansion (undefined: unknown). */
+  size: number | undefined;
+}
+
+const keptElements = new WeakMap<Card, Kept<FlatElement>>();
+const keptExpansions = new WeakMap<InstanceCard, Kept<KeptExpansion>>();
+
+export function keptElement(card: Card, scope: ScopeToken, uri: string): FlatElement | undefined {
+  const kept = keptElements.get(card);
+  return kept && kept.scope === scope && kept.uri === uri ? kept.value : undefined;
+}
+
+export function keepElement(card: Card, scope: ScopeToken, uri: string, value: FlatElement): void {
+  keptElements.set(card, { scope, uri, value });
+}
+
+export function keptExpansion(card: InstanceCard, scope: ScopeToken, uri: string): KeptExpansion | undefined {
+  const kept = keptExpansions.get(card);
+  return kept && kept.scope === scope && kept.uri === uri ? kept.value : undefined;
+}
+
+export function keepExpansion(card: InstanceCard, scope: ScopeToken, uri: string, value: KeptExpansion | undefined): void {
+  if (value) keptExpansions.set(card, { scope, uri, value });
+  else keptExpansions.delete(card);
 }
