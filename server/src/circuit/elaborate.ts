@@ -7,7 +7,7 @@
  */
 import { key, type InstanceCard, type Item, type Lookup, type ModelCard, type Netlist, type SubcktBlock } from '../../../grammar/src/index';
 import { FindingSet } from '../findings/index';
-import { buildElement, terminalsOf, type Frame } from './elements';
+import { buildElement, terminalsOf, type ElementCard, type Frame } from './elements';
 import { globalParamValues, keepElement, keepExpansion, keptElement, keptExpansion, scopeToken, type KeptExpansion, type ScopeToken } from './elaboration-memo';
 import type { FileSource, FlatCircuit, FlatElement, FlatInstance, FlatModel, PlacedDirective } from './flat-circuit';
 import { didYouMean } from './did-you-mean';
@@ -138,7 +138,7 @@ class Elaborator {
   }
 
   /** A top-level element card's flat element: the one kept from the last elaboration in this scope, else built (and kept when building it said nothing). */
-  private topElement(card: Parameters<typeof buildElement>[0], frame: Frame): FlatElement {
+  private topElement(card: ElementCard, frame: Frame): FlatElement {
     const scope = this.scope;
     const kept = scope && keptElement(card, scope, frame.uri);
     if (kept) return kept;

@@ -2,7 +2,7 @@
  * Turns one element card into a flat element inside a given scope: hierarchical name, mapped
  * nodes, evaluated values, origin.
  */
-import { key, type ElementCard, type Lookup, type Name, type SourceCard } from '../../../grammar/src/index';
+import { key, type ElementCard as AnyElementCard, type Lookup, type Name, type SourceCard } from '../../../grammar/src/index';
 import type { FindingSet } from '../findings/index';
 import { didYouMean } from './did-you-mean';
 import { GROUND, isGroundName, type FlatElement, type InstanceStep, type Origin, type SineWave, type Terminal } from './flat-circuit';
@@ -40,12 +40,15 @@ export function originOf(card: { span: Origin['span']; name: Name }, frame: Fram
   return { uri: frame.uri, span: card.span, nameSpan: card.name.span, chain: frame.chain };
 }
 
+/** A card that becomes one flat element: any element card but an X instance. */
+export type ElementCard = Exclude<AnyElementCard, { kind: 'instance' }>;
+
 /**
- * Builds the flat element for a card other than an X instance. Every card of every file passes
- * here on every analysis, so each kind is one object literal with its fields in one order (an
+ * Builds the flat element for a card other than an X instance. Every card of a file passes here
+ * on its first analysis, and each card an edit touched on later ones (elaboration-memo.ts), so each kind is one object literal with its fields in one order (an
  * intermediate object spread into the result cost more than the rest of elaboration).
  */
-export function buildElement(card: Exclude<ElementCard, { kind: 'instance' }>, frame: Frame, sink: FindingSet): FlatElement {
+export function buildElement(card: ElementCard, frame: Frame, sink: FindingSet): FlatElement {
   const name = frame.namePrefix + card.name.text;
   const elementKey = frame.keyPrefix + key(card.name);
   const origin = originOf(card, frame);

@@ -28,7 +28,8 @@ export const MAX_RECTIFIERS_PER_VIEW = 8;
 /**
  * Waveforms of one rectifier (by `Rectifier.id`), or of every rectifier in the file when no id
  * is given: a steady-state period at the nominal corner and the inrush half-cycle at the corner
- * with the largest inrush.
+ * with the largest inrush. `solve` draws a rectifier its analysis solved without waveforms
+ * (drawn-solution.ts); the adapter's memoised solver solves it once.
  */
 export function renderWaveformView(file: FileAnalysis, rectifierId?: string, solve: SolveFn = memoisedSolver(undefined)): ViewContent {
   return renderView(file, rectifierId, 'Waveforms', (analysis) => {
