@@ -8,7 +8,7 @@
 import { key, type InstanceCard, type Item, type Lookup, type ModelCard, type Netlist, type SubcktBlock } from '../../../grammar/src/index';
 import { FindingSet } from '../findings/index';
 import { buildElement, terminalsOf, type ElementCard, type Frame } from './elements';
-import { globalParamValues, keepElement, keepExpansion, keptElement, keptExpansion, scopeToken, type KeptExpansion, type ScopeToken } from './elaboration-memo';
+import { globalParamValues, keptElements, keptExpansions, scopeToken, type KeptExpansion, type ScopeToken } from './elaboration-memo';
 import type { FileSource, FlatCircuit, FlatElement, FlatInstance, FlatModel, PlacedDirective } from './flat-circuit';
 import { didYouMean } from './did-you-mean';
 import { ExpansionSizer, lookupDef, type Defs, type SubcktDef } from './expansion-size';
@@ -140,22 +140,23 @@ class Elaborator {
   /** A top-level element card's flat element: the one kept from the last elaboration in this scope, else built (and kept when building it said nothing). */
   private topElement(card: ElementCard, frame: Frame): FlatElement {
     const scope = this.scope;
-    const kept = scope && keptElement(card, scope, frame.uri);
+    const kept = scope && keptElements.get(card, scope, frame.uri);
     if (kept) return kept;
     const offered = this.sink.offered;
     const element = buildElement(card, frame, this.sink);
-    if (scope && this.sink.offered === offered) keepElement(card, scope, frame.uri, element);
+    if (scope && this.sink.offered === offered) keptElements.set(card, scope, frame.uri, element);
     return element;
   }
 
   /** Puts back a top-level instance's kept expansion when it still fits where it did; false when there is none to put back. */
   private reuseExpansion(card: InstanceCard, uri: string, defs: Defs): boolean {
-    const kept = this.scope && keptExpansion(card, this.scope, uri);
-    const def = kept && card.subckt ? lookupDef(defs, key(card.subckt)) : undefined;
-    if (!kept || !def) return false;
+    const kept = this.scope && keptExpansions.get(card, this.scope, uri);
+    const subckt = card.subckt ? key(card.subckt) : undefined;
+    const def = kept && subckt ? lookupDef(defs, subckt) : undefined;
+    if (!kept || !def || !subckt) return false;
     // The size check building it makes, so the sizer spends its counting budget as a fresh build
     // does (a size it has counted once it does not count again); then the running count.
-    const size = this.sizer.sizeOf(def, defs, [key(card.subckt!)]);
+    const size = this.sizer.sizeOf(def, defs, [subckt]);
     if (size === undefined || size !== kept.size || this.charged + 1 + size > this.maxElements || this.charged + kept.charged > this.maxElements) return false;
     for (const instance of kept.instances) this.instances.push(instance);
     for (const element of kept.elements) this.elements.push(element);
@@ -180,7 +181,7 @@ class Elaborator {
     const expansion: KeptExpansion | undefined = clean
       ? { instances: this.instances.slice(r.instances), elements: this.elements.slice(r.elements), models: r.models, charged: this.charged - r.charged, size: r.size }
       : undefined;
-    keepExpansion(r.card, this.scope, r.uri, expansion);
+    keptExpansions.set(r.card, this.scope, r.uri, expansion);
   }
 
   /** Records an X instance and returns the work of expanding it, or nothing when it cannot be expanded. */

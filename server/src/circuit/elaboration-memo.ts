@@ -108,24 +108,23 @@ export interface KeptExpansion {
   size: number | undefined;
 }
 
-const keptElements = new WeakMap<Card, Kept<FlatElement>>();
-const keptExpansions = new WeakMap<InstanceCard, Kept<KeptExpansion>>();
+/** Flat forms by card, each found again only in the scope and file it was built in. */
+class KeptByCard<C extends Card, T> {
+  private readonly kept = new WeakMap<C, Kept<T>>();
 
-export function keptElement(card: Card, scope: ScopeToken, uri: string): FlatElement | undefined {
-  const kept = keptElements.get(card);
-  return kept && kept.scope === scope && kept.uri === uri ? kept.value : undefined;
+  get(card: C, scope: ScopeToken, uri: string): T | undefined {
+    const kept = this.kept.get(card);
+    return kept && kept.scope === scope && kept.uri === uri ? kept.value : undefined;
+  }
+
+  /** Keeps `value`, or forgets what was kept for the card when there is none. */
+  set(card: C, scope: ScopeToken, uri: string, value: T | undefined): void {
+    if (value) this.kept.set(card, { scope, uri, value });
+    else this.kept.delete(card);
+  }
 }
 
-export function keepElement(card: Card, scope: ScopeToken, uri: string, value: FlatElement): void {
-  keptElements.set(card, { scope, uri, value });
-}
-
-export function keptExpansion(card: InstanceCard, scope: ScopeToken, uri: string): KeptExpansion | undefined {
-  const kept = keptExpansions.get(card);
-  return kept && kept.scope === scope && kept.uri === uri ? kept.value : undefined;
-}
-
-export function keepExpansion(card: InstanceCard, scope: ScopeToken, uri: string, value: KeptExpansion | undefined): void {
-  if (value) keptExpansions.set(card, { scope, uri, value });
-  else keptExpansions.delete(card);
-}
+/** Each top-level element card's flat element. */
+export const keptElements = new KeptByCard<Card, FlatElement>();
+/** Each top-level X card's whole expansion. */
+export const keptExpansions = new KeptByCard<InstanceCard, KeptExpansion>();

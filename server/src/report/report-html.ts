@@ -20,8 +20,8 @@ import { annotateDeviceLines } from './report-text-annotated';
 import { renderComparisonSection } from './view-content';
 import { operatingProfileOf, type OperatingProfile } from '../compare/index';
 import { memoisedSolver, type SolveFn } from '../solve/index';
-import { drawnSolution } from './drawn-solution';
-import { defaultInrushCorner, defaultPeriodCorner, renderInrushSvg, renderPeriodSvg } from './waveform-svg';
+import { drawnCorners } from './drawn-solution';
+import { renderInrushSvg, renderPeriodSvg } from './waveform-svg';
 
 /** A file to report and the name to show for it (a path relative to where the command ran). */
 export interface ReportFile {
@@ -88,9 +88,7 @@ function renderFileSection({ file, displayPath }: ReportFile, solve: SolveFn): s
 
 function renderRectifierSection(analysis: RectifierAnalysis, policy: DeratingPolicy, profile: OperatingProfile | undefined, solve: SolveFn): string {
   const label = rectifierLabel(analysis);
-  const { corners } = drawnSolution(analysis, solve);
-  const period = defaultPeriodCorner(corners);
-  const inrush = defaultInrushCorner(corners);
+  const { period, inrush } = drawnCorners(analysis, solve);
   return [
     `<section class="rl-card" data-rectifier="${escapeMarkup(analysis.rectifier.id)}">`,
     `<h3>${escapeMarkup(label)}</h3>`,

@@ -6,7 +6,7 @@
 import type { ViewContent } from '../protocol/custom-protocol';
 import type { FileAnalysis } from '../analysis/analyze';
 import type { RectifierAnalysis } from '../equivalent/index';
-import { memoisedSolver, type SolveFn } from '../solve/index';
+import { memoisedSolver, type CornerSolution, type SolveFn } from '../solve/index';
 import { compareEnergy, compareTopologies, operatingProfileOf, sweepLoad, SWEEP_VIEW_BUDGET, type OperatingProfile, type SweepBudget } from '../compare/index';
 import { renderEnergyHtml } from './energy-table';
 import { renderSweepHtml } from './sweep-svg';
@@ -15,8 +15,8 @@ import { renderComparisonSvg, renderComparisonTable } from './comparison-svg';
 import { needsCaution, rectifierLabel, renderCautionHtml, renderNotesHtml } from './html-blocks';
 import { escapeMarkup } from '../presentation/markup';
 import { PAGE_CSS } from './page-style';
-import { drawnSolution } from './drawn-solution';
-import { defaultInrushCorner, defaultPeriodCorner, renderInrushSvg, renderPeriodSvg } from './waveform-svg';
+import { drawnCorners } from './drawn-solution';
+import { renderInrushSvg, renderPeriodSvg } from './waveform-svg';
 import { formatFixed, formatPercent, formatSi } from '../presentation/format';
 import { formatI2t } from './figure-tables';
 
@@ -34,9 +34,7 @@ export const MAX_RECTIFIERS_PER_VIEW = 8;
 export function renderWaveformView(file: FileAnalysis, rectifierId?: string, solve: SolveFn = memoisedSolver(undefined)): ViewContent {
   return renderView(file, rectifierId, 'Waveforms', (analysis) => {
     const label = rectifierLabel(analysis);
-    const { corners } = drawnSolution(analysis, solve);
-    const period = defaultPeriodCorner(corners);
-    const inrush = defaultInrushCorner(corners);
+    const { period, inrush } = drawnCorners(analysis, solve);
     const periodSvg = period && renderPeriodSvg(period, { rectifierLabel: label });
     const inrushSvg = inrush && renderInrushSvg(inrush, { rectifierLabel: label });
     return [
@@ -106,7 +104,7 @@ function renderView(file: FileAnalysis, rectifierId: string | undefined, what: s
   return { title, body: parts.join('\n') };
 }
 
-function periodSummary(c: NonNullable<ReturnType<typeof defaultPeriodCorner>>): string {
+function periodSummary(c: CornerSolution): string {
   return `Output ${formatSi(c.vOutAvgV, 'V')} average, ripple ${formatSi(c.rippleVpp, 'V')} p-p, efficiency ${formatPercent(c.efficiency)}, power factor ${formatFixed(c.powerFactor, 3)}.`;
 }
 
