@@ -8,7 +8,7 @@ import { parseCardTokens } from './card-parser';
 import { buildElement, elementSyntax, NONE } from './card-builder';
 import { parseDirective } from './directives';
 import { buildDotCard } from './dot-card-builder';
-import { planReparse } from './reparse';
+import { carryOffsetLists, planReparse } from './reparse';
 import { nestBlocks } from './structure';
 import type { Card, Netlist, Span, SyntaxDiagnostic, TitleCard } from './syntax-tree';
 import { detectForeignEncoding, withoutByteOrderMark, type ForeignEncoding } from './encoding';
@@ -132,6 +132,7 @@ function assemble(text: string, title: TitleCard | undefined, regions: RegionPar
   diagnostics.sort((a, b) => a.span.start - b.span.start);
   const netlist: Netlist = { text, title, cards: title ? ([title] as Card[]).concat(cards) : cards, items, comments: joined(regions.map((r) => r.comments)), diagnostics };
   rememberMarks(netlist, marks);
+  carryOffsetLists(netlist, regions, cards.length);
   return netlist;
 }
 

@@ -31,6 +31,8 @@ export interface KeptRegion {
   diagnostics: SyntaxDiagnostic[];
   /** Indices into `cards` of the cards that shape the file (card-marks.ts). */
   marks: readonly number[];
+  /** The cards' offset lists, where the previous tree had them (`carryOffsetLists`). */
+  offsets?: readonly (Offsets | undefined)[];
 }
 
 /**
@@ -67,22 +69,23 @@ export function planReparse(old: Netlist, text: string, moved: 'copy' | 'move' =
   const commentsAfter = firstStartingAt(old.comments, oldEnd);
   const marks = marksOf(old);
   const prefixCount = firstEndingAfter(body, start);
+  // The prefix's cards are the same objects in both trees, so their lists hold in the new one either way.
+  const lists = offsetListsByTree.get(old);
   const prefix = {
     cards: body.slice(0, prefixCount),
     marks: marks.filter((m) => m < prefixCount),
     comments: old.comments.slice(0, firstEndingAfter(old.comments, start)),
     diagnostics: old.diagnostics.filter((d) => kept(d) && d.span.end <= start),
+    offsets: lists?.slice(0, prefixCount),
   };
   // Diagnostics are copied before any card moves: a diagnostic may hold the very span of a node.
   const diagnostics = old.diagnostics.filter((d) => kept(d) && d.span.start >= oldEnd).map((d) => shifted(d, delta));
-  const shift = moved === 'move' ? movedBy : shifted;
-  const suffix = {
-    cards: shiftAll(body.slice(firstAfter), delta, shift),
-    comments: shiftAll(old.comments.slice(commentsAfter), delta, shift),
-    diagnostics,
-    marks: marks.filter((m) => m >= firstAfter).map((m) => m - firstAfter),
-  };
-  return { start, end, delta, prefix, suffix };
+  const cards = body.slice(firstAfter);
+  const comments = old.comments.slice(commentsAfter);
+  const suffix = moved === 'move'
+    ? { cards, comments: movedSpans(comments, delta), offsets: moveCards(cards, delta, lists, firstAfter) }
+    : { cards: shiftAll(cards, delta), comments: shiftAll(comments, delta) };
+  return { start, end, delta, prefix, suffix: { ...suffix, diagnostics, marks: marks.filter((m) => m >= firstAfter).map((m) => m - firstAfter) } };
 }
 
 /** Items in text order that never overlap one another, each with a span (or a span itself). */
@@ -138,10 +141,20 @@ function commonSuffix(a: string, b: string, limit: number): number {
 }
 const BLOCK = 4096;
 
-function shiftAll<T>(items: T[], delta: number, shift: <U>(value: U, delta: number) => U): T[] {
+/** The items as shifted copies (the same list when nothing moves). */
+function shiftAll<T>(items: T[], delta: number): T[] {
   if (delta === 0) return items;
-  for (let i = 0; i < items.length; i++) items[i] = shift(items[i]!, delta);
+  for (let i = 0; i < items.length; i++) items[i] = shifted(items[i]!, delta);
   return items;
+}
+
+/** Comments are bare spans: nothing to find, nothing worth listing. */
+function movedSpans(spans: Span[], delta: number): Span[] {
+  for (let i = 0; i < spans.length; i++) {
+    spans[i]!.start += delta;
+    spans[i]!.end += delta;
+  }
+  return spans;
 }
 
 function isLineBreak(code: number): boolean {
@@ -197,32 +210,32 @@ export function shifted<T>(value: T, delta: number): T {
 }
 
 /**
- * The same value with its offsets moved in place: no copy, so the node keeps its identity (what
+ * The cards with their offsets moved in place: no copy, so each card keeps its identity (what
  * re-uses work per card needs) and the old tree that held it no longer describes the old text.
- * The offsets of a node are found once and listed (`offsetsOf`): a card after an edit moves again
- * with every later edit above it, and walking it each time was the largest cost of a re-parse.
+ * A card's offsets are found once and listed: a card after an edit moves again with every later
+ * edit above it, and walking it each time was the largest cost of a re-parse. Returns the lists,
+ * which go with the cards into the new tree. `lists` are the old tree's, by index into its body
+ * (`from` is where `cards` start there).
  */
-export function movedBy<T>(value: T, delta: number): T {
-  if (delta === 0 || value === null || typeof value !== 'object') return value;
-  if (isBareSpan(value)) {
-    // A comment: nothing to find, nothing worth listing.
-    value.start += delta;
-    value.end += delta;
-    return value;
+function moveCards(cards: readonly Card[], delta: number, lists: readonly (Offsets | undefined)[] | undefined, from: number): (Offsets | undefined)[] | undefined {
+  if (delta === 0) return lists?.slice(from, from + cards.length);
+  const moved: Offsets[] = new Array(cards.length);
+  for (let i = 0; i < cards.length; i++) {
+    const found = lists?.[from + i] ?? collectedOffsets(cards[i]!);
+    moved[i] = found;
+    // Named stores: a store through a key read from a list was five times slower on these holders.
+    const both = Array.isArray(found) ? found : found.both;
+    for (let k = 0; k < both.length; k++) {
+      const holder = both[k]!;
+      holder.start += delta;
+      holder.end += delta;
+    }
+    if (!Array.isArray(found)) {
+      for (const s of found.starts) s.start += delta;
+      for (const e of found.ends) e.end += delta;
+    }
   }
-  const found = offsetsOf(value);
-  // Named stores: a store through a key read from a list was five times slower on these holders.
-  const both = Array.isArray(found) ? found : found.both;
-  for (let i = 0; i < both.length; i++) {
-    const holder = both[i]!;
-    holder.start += delta;
-    holder.end += delta;
-  }
-  if (!Array.isArray(found)) {
-    for (const s of found.starts) s.start += delta;
-    for (const e of found.ends) e.end += delta;
-  }
-  return value;
+  return moved;
 }
 
 /**
@@ -232,9 +245,25 @@ export function movedBy<T>(value: T, delta: number): T {
  */
 export function listOffsetsAhead(netlist: Netlist, from: number, count: number): number {
   const cards = netlist.cards;
+  const skip = netlist.title ? 1 : 0;
+  let lists = offsetListsByTree.get(netlist);
+  if (!lists) offsetListsByTree.set(netlist, (lists = new Array(cards.length - skip).fill(undefined)));
   const end = Math.min(cards.length, from + count);
-  for (let i = from; i < end; i++) if (cards[i]!.kind !== 'title') offsetsOf(cards[i]!);
+  for (let i = Math.max(from, skip); i < end; i++) lists[i - skip] ??= collectedOffsets(cards[i]!);
   return end >= cards.length ? -1 : end;
+}
+
+/**
+ * Joins the offset lists of the regions a tree was assembled from (in text order, as its cards),
+ * for its first `count` cards: the cards a re-parse moved or kept take their lists with them.
+ */
+export function carryOffsetLists(netlist: Netlist, regions: readonly { cards: readonly Card[]; offsets?: readonly (Offsets | undefined)[] }[], count: number): void {
+  if (regions.every((r) => r.offsets === undefined)) return;
+  // Joined whole (a copy of each list) rather than entry by entry: at 50,000 cards a push each was 3 ms an edit.
+  const parts = regions.map(({ cards, offsets }) => (offsets?.length === cards.length ? offsets : Array.from(cards, (_, i) => offsets?.[i])));
+  const lists = ([] as (Offsets | undefined)[]).concat(...parts);
+  if (lists.length > count) lists.length = count;
+  offsetListsByTree.set(netlist, lists);
 }
 
 /**
@@ -244,34 +273,25 @@ export function listOffsetsAhead(netlist: Netlist, from: number, count: number):
  * three lists. Two lists and their holder object per card came to 440 bytes a card, 63 MB in the
  * two threads of the language server at 100,000 lines; one array is half that.
  */
-type Offsets = Span[] | OffsetHolders;
+export type Offsets = Span[] | OffsetHolders;
 
-const offsetsByNode = new WeakMap<object, Offsets>();
+/**
+ * Each tree's lists by index into its cards without the title (as card marks are), beside the tree
+ * rather than by card: a look-up per card in a table keyed by 50,000 objects cost as much as the
+ * move itself.
+ */
+const offsetListsByTree = new WeakMap<Netlist, (Offsets | undefined)[]>();
 
-function offsetsOf(node: object): Offsets {
-  let found = offsetsByNode.get(node);
-  if (!found) {
-    const holders: OffsetHolders = { both: [], starts: [], ends: [] };
-    collectOffsets(node, holders);
-    found = holders.starts.length === 0 && holders.ends.length === 0 ? holders.both : holders;
-    offsetsByNode.set(node, found);
-  }
-  return found;
+function collectedOffsets(node: object): Offsets {
+  const holders: OffsetHolders = { both: [], starts: [], ends: [] };
+  collectOffsets(node, holders);
+  return holders.starts.length === 0 && holders.ends.length === 0 ? holders.both : holders;
 }
 
 interface OffsetHolders {
   both: Span[];
   starts: { start: number }[];
   ends: { end: number }[];
-}
-
-function isBareSpan(value: object): value is Span {
-  let count = 0;
-  for (const key in value) {
-    if ((key !== 'start' && key !== 'end') || typeof (value as Record<string, unknown>)[key] !== 'number') return false;
-    count++;
-  }
-  return count === 2;
 }
 
 function collectOffsets(value: object, into: OffsetHolders): void {

@@ -49,7 +49,7 @@ describe('the analysis as the worker posts it', () => {
   it('restored with the main thread\'s parse, answers hints, lenses, hovers and the outline as the whole analysis does', () => {
     const before = TEXT.replace(/^\*.*$/m, '* an older first comment');
     const file = analysed(TEXT);
-    const restored = restoredForm(postedForm(file, TEXT), { text: TEXT, parsed: mainThreadParse(TEXT, parseNetlist(before)), held: undefined });
+    const restored = restoredForm(postedForm(file, TEXT), { text: TEXT, parse: () => mainThreadParse(TEXT, parseNetlist(before)), held: undefined });
     expect(restored.netlist).toEqual(file.netlist);
     expect([...restored.parsed.keys()]).toEqual([...file.parsed.keys()]);
     expect(inlayHintsOf(restored, 'full')).toEqual(inlayHintsOf(file, 'full'));
@@ -60,5 +60,23 @@ describe('the analysis as the worker posts it', () => {
     const hovers = caps.map((c) => capacitorHover(file, c.span));
     expect(hovers.some((h) => h !== undefined)).toBe(true);
     expect(caps.map((c) => capacitorHover(restored, c.span))).toEqual(hovers);
+  });
+
+  it('makes the root parse when the tree is first read, once: the diagnostics and hints of an edit go out without it', () => {
+    const file = analysed(TEXT);
+    let parses = 0;
+    const restored = restoredForm(postedForm(file, TEXT), { text: TEXT, parse: () => (parses++, parseNetlist(TEXT)), held: undefined });
+    // What the scheduler publishes and the hint request reads: findings, text, rectifiers.
+    expect(restored.findings).toEqual(file.findings);
+    expect(inlayHintsOf(restored, 'full')).toEqual(inlayHintsOf(file, 'full'));
+    expect(codeLensesOf(restored)).toEqual(codeLensesOf(file));
+    expect(parses).toBe(0);
+    expect(restored.netlist).toEqual(file.netlist);
+    expect(restored.parsed.get(URI)).toBe(restored.netlist);
+    expect({ ...restored }.netlist).toBe(restored.netlist);
+    expect(parses).toBe(1);
+    // A parse of another text (the main thread's tree lagging) is not taken: the analysis's own text is parsed.
+    const lagging = restoredForm(postedForm(file, TEXT), { text: TEXT, parse: () => parseNetlist(`${TEXT}\n* later`), held: undefined });
+    expect(lagging.netlist).toEqual(file.netlist);
   });
 });

@@ -11,7 +11,7 @@ import { analyze, type FileAnalysis } from '../../server/src/analysis/analyze';
 import { codeLensesOf } from '../../server/src/editor/code-lens';
 import { inlayHintsOf } from '../../server/src/editor/inlay-hints';
 import { hoverInFile } from '../../server/src/editor/stress-hover';
-import { postedBaseOf, postedForm, restoredForm, type PostedRectifier } from '../../server/src/lsp/posted-analysis';
+import { postedBaseOf, postedForm, postedWithBase, restoredForm, type PostedRectifier } from '../../server/src/lsp/posted-analysis';
 import type { SolutionCache } from '../../server/src/solve/index';
 
 const URI = 'file:///delta.cir';
@@ -45,7 +45,7 @@ const crossed = (r: PostedRectifier) => ('movedFrom' in r ? 'moved' : 'sameSolut
 
 /** What the main thread holds after the first analysis: a whole post, cloned as it crosses, restored. */
 function held(file: FileAnalysis, text: string): FileAnalysis {
-  return restoredForm(structuredClone(postedForm(file, text)), { text, parsed: parseNetlist(text), held: undefined });
+  return restoredForm(structuredClone(postedForm(file, text)), { text, parse: () => parseNetlist(text), held: undefined });
 }
 
 describe('a posted analysis that points at the one the main thread holds', () => {
@@ -62,7 +62,7 @@ describe('a posted analysis that points at the one the main thread holds', () =>
     // Not a speed claim: without its solutions the message must be smaller, or nothing was left out.
     expect(serialize(posted).length).toBeLessThan(serialize(postedForm(second, text)).length);
 
-    const restored = restoredForm(posted, { text, parsed: parseNetlist(text), held: before });
+    const restored = restoredForm(posted, { text, parse: () => parseNetlist(text), held: before });
     const whole = held(second, text);
     expect(restored.rectifiers).toEqual(whole.rectifiers);
     expect(restored.text).toBe(text);
@@ -84,7 +84,7 @@ describe('a posted analysis that points at the one the main thread holds', () =>
     const posted = postedForm(second, text, first);
     // The first bridge lies before the edit, so nothing of it moved; the second one's inputs changed.
     expect(posted.rectifiers.map(crossed)).toEqual(['moved', 'whole']);
-    const restored = restoredForm(posted, { text, parsed: parseNetlist(text), held: before });
+    const restored = restoredForm(posted, { text, parse: () => parseNetlist(text), held: before });
     expect(restored.rectifiers).toEqual(held(second, text).rectifiers);
     expect(restored.rectifiers[1]!.solution).not.toEqual(before.rectifiers[1]!.solution);
   });
@@ -99,9 +99,27 @@ describe('a posted analysis that points at the one the main thread holds', () =>
     const second = analysed(text, cache, first, true);
     const posted = postedForm(second, text, base);
     expect(posted.rectifiers.map(crossed)).toEqual(['moved', 'moved']);
-    const restored = restoredForm(posted, { text, parsed: parseNetlist(text), held: before });
+    const restored = restoredForm(posted, { text, parse: () => parseNetlist(text), held: before });
     expect(restored.rectifiers).toEqual(held(second, text).rectifiers);
     expect(inlayHintsOf(restored, 'full')).toEqual(inlayHintsOf(held(second, text), 'full'));
+  });
+
+  it('keeps pointing at the held rectifiers edit after edit, as the worker chains its bases', () => {
+    const cache: SolutionCache = new Map();
+    let text = twoBridges('100u');
+    let file = analysed(text, cache);
+    let base = postedBaseOf(file);
+    let mainThread = held(file, text);
+    for (const comment of ['* one comment line', '* one comment line\n* and a second, longer one']) {
+      text = twoBridges('100u', comment);
+      file = analysed(text, cache, file, true);
+      const { posted, next } = postedWithBase(file, text, base);
+      // The base the proof moved is the next edit's base: it must hold the moved offsets, or every later edit posts whole.
+      expect(posted.rectifiers.map(crossed)).toEqual(['moved', 'moved']);
+      mainThread = restoredForm(structuredClone(posted), { text, parse: () => parseNetlist(text), held: mainThread });
+      expect(mainThread.rectifiers).toEqual(held(file, text).rectifiers);
+      base = next;
+    }
   });
 
   it('posts whole a rectifier that differs in anything but the edit\'s move, even with the same solution', () => {
@@ -113,7 +131,7 @@ describe('a posted analysis that points at the one the main thread holds', () =>
     const second = analysed(text, cache, first);
     const posted = postedForm(second, text, first);
     expect(posted.rectifiers.map(crossed)).toEqual(['moved', 'solution']);
-    expect(restoredForm(posted, { text, parsed: parseNetlist(text), held: before }).rectifiers).toEqual(held(second, text).rectifiers);
+    expect(restoredForm(posted, { text, parse: () => parseNetlist(text), held: before }).rectifiers).toEqual(held(second, text).rectifiers);
   });
 
   it('refuses to restore a pointer without the analysis it points into', () => {
@@ -121,6 +139,6 @@ describe('a posted analysis that points at the one the main thread holds', () =>
     const first = analysed(twoBridges('100u'), cache);
     const text = twoBridges('100u', '* moved');
     const posted = postedForm(analysed(text, cache, first), text, first);
-    expect(() => restoredForm(posted, { text, parsed: undefined, held: undefined })).toThrow(/does not hold/);
+    expect(() => restoredForm(posted, { text, parse: () => undefined, held: undefined })).toThrow(/does not hold/);
   });
 });

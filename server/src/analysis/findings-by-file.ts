@@ -7,9 +7,12 @@
 import { withoutRepeats, type Finding } from '../findings/index';
 import type { FileAnalysis } from './analyze';
 
-/** A root's findings by the file they are about; every file it read has an entry, empty when it found nothing there. */
-export function findingsByFile(file: Pick<FileAnalysis, 'uri' | 'findings' | 'parsed'>): Map<string, Finding[]> {
-  const byUri = new Map<string, Finding[]>([...file.parsed.keys()].map((uri) => [uri, []]));
+/**
+ * A root's findings by the file they are about; every file it read (`files`, by default those it
+ * parsed) has an entry, empty when it found nothing there.
+ */
+export function findingsByFile(file: Pick<FileAnalysis, 'uri' | 'findings' | 'parsed'>, files: Iterable<string> = file.parsed.keys()): Map<string, Finding[]> {
+  const byUri = new Map<string, Finding[]>([...files].map((uri) => [uri, []]));
   for (const f of file.findings) {
     const list = byUri.get(f.uri);
     if (list) list.push(f);

@@ -187,11 +187,17 @@ export class AnalysisScheduler {
       // The root's parse is made here instead of crossing in the answer (posted-analysis.ts), from
       // the tree of the analysis this one replaces: its cards are moved, not copied, now that no
       // request can be answered from it any more (until here, one that ran out of patience was).
-      const parsedHere = mainThreadParse(open.get(uri), this.results.get(uri) === held ? held?.file.netlist : undefined);
-      const file = restoredForm(outcome.file, { text: open.get(uri), parsed: parsedHere, held: held?.file });
+      // It is made once the diagnostics and the waiting requests are answered (they need no tree),
+      // or sooner if something reads it.
+      const text = open.get(uri);
+      const replaced = this.results.get(uri) === held ? held?.file : undefined;
+      const file = restoredForm(outcome.file, { text, parse: () => mainThreadParse(text, replaced?.netlist), held: held?.file });
       this.results.set(uri, { file, sequence: outcome.sequence, version });
       this.hooks.onAnalysed(file, version);
-      listOffsetsWhenIdle(file.netlist, () => this.results.get(uri)?.file === file);
+      const current = () => this.results.get(uri)?.file === file;
+      setImmediate(() => {
+        if (current()) listOffsetsWhenIdle(file.netlist, current);
+      });
     }
   }
 }

@@ -135,17 +135,46 @@ export function mainThreadParse(text: string | undefined, replaced: Netlist | un
 
 /**
  * The analysis as the main thread keeps it: the posted form with the root's text and parse put
- * back (the parse first), and the solutions and figures it pointed at taken from `held`, the
- * analysis the main thread had when it asked (the one the worker was told of). `held` is used up:
- * a rectifier posted as moved is the held one with its offsets moved in place (as the worker
- * moved its own copy), so nothing of it is copied.
+ * back, and the solutions and figures it pointed at taken from `held`, the analysis the main
+ * thread had when it asked (the one the worker was told of). `held` is used up: a rectifier posted
+ * as moved is the held one with its offsets moved in place (as the worker moved its own copy), so
+ * nothing of it is copied.
+ *
+ * The root's parse (`parse`, `mainThreadParse`) is made when the analysis's `netlist` or `parsed`
+ * is first read, not here: diagnostics and inlay hints need only the text, the findings and the
+ * rectifiers, so an edit's answers go out before the main thread spends its re-parse (the
+ * scheduler reads the tree once they are out). Read then or later, it is the same parse.
  */
-export function restoredForm(posted: PostedAnalysis, here: { text: string | undefined; parsed: Netlist | undefined; held: FileAnalysis | undefined }): FileAnalysis {
+export function restoredForm(posted: PostedAnalysis, here: { text: string | undefined; parse: () => Netlist | undefined; held: FileAnalysis | undefined }): FileAnalysis {
   const rectifiers = posted.rectifiers.map((r) => restoredRectifier(r, here.held, posted.rootEdit));
   if (posted.netlist && posted.text !== undefined) return { ...posted, text: posted.text, netlist: posted.netlist, rectifiers };
   const text = posted.text ?? here.text ?? '';
-  const netlist = here.parsed?.text === text ? here.parsed : parseNetlist(text);
-  return { ...posted, text, netlist, rectifiers, parsed: new Map([[posted.uri, netlist], ...posted.parsed]) };
+  const file = { ...posted, text, rectifiers } as Omit<FileAnalysis, 'netlist' | 'parsed'>;
+  let parse: (() => Netlist | undefined) | undefined = here.parse;
+  let tree: { netlist: Netlist; parsed: ReadonlyMap<string, Netlist> } | undefined;
+  const made = () => {
+    if (!tree) {
+      const own = parse!();
+      // Dropped once made: the closure holds the analysis this one replaced, whose tree it consumed.
+      parse = undefined;
+      const netlist = own?.text === text ? own : parseNetlist(text);
+      tree = { netlist, parsed: new Map([[posted.uri, netlist], ...posted.parsed]) };
+    }
+    return tree;
+  };
+  const restored = Object.defineProperties(file, {
+    netlist: { get: () => made().netlist, enumerable: true, configurable: true },
+    parsed: { get: () => made().parsed, enumerable: true, configurable: true },
+  }) as FileAnalysis;
+  parsedUris.set(restored, [posted.uri, ...posted.parsed.keys()]);
+  return restored;
+}
+
+const parsedUris = new WeakMap<FileAnalysis, readonly string[]>();
+
+/** The files an analysis parsed, the root first (its `parsed` keys), without making a parse put off until read. */
+export function filesParsedBy(file: FileAnalysis): Iterable<string> {
+  return parsedUris.get(file) ?? file.parsed.keys();
 }
 
 function restoredRectifier(posted: PostedRectifier, held: FileAnalysis | undefined, edit: RootEdit | undefined): Rectifier {

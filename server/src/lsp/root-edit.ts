@@ -66,11 +66,14 @@ export function moveInPlace(value: unknown, edit: RootEdit, shared: ReadonlySet<
   // Both offsets are read before either is moved: where an end moves depends on its start.
   const start = fields.start;
   for (const key in fields) {
-    if (shared.has(key)) continue;
     const field = fields[key];
     if (typeof field === 'number') {
-      if (owner && (key === 'start' || key === 'end')) fields[key] = movedOffset(field, key, start, edit);
-    } else moveInPlace(field, edit, shared, owner, moved);
+      // Stored only when it moves: a store through a key read in a walk over mixed shapes is slow.
+      if (owner && (key === 'start' || key === 'end')) {
+        const offset = movedOffset(field, key, start, edit);
+        if (offset !== field) fields[key] = offset;
+      }
+    } else if (field !== null && typeof field === 'object' && !shared.has(key)) moveInPlace(field, edit, shared, owner, moved);
   }
 }
 
@@ -108,15 +111,21 @@ export function movedInPlaceMatches(before: unknown, now: unknown, edit: RootEdi
   const start = fields.start;
   for (const key in fields) {
     count--;
-    if (!(key in other)) return false;
     const field = fields[key];
-    if (shared.has(key)) {
-      if (field !== other[key]) return false;
-    } else if (typeof field === 'number') {
-      const moved = owner && (key === 'start' || key === 'end') ? movedOffset(field, key, start, edit) : field;
-      fields[key] = moved;
-      if (!Object.is(moved, other[key])) return false;
-    } else if (!movedInPlaceMatches(field, other[key], edit, shared, owner)) return false;
+    const theirs = other[key];
+    if (theirs === undefined && !(key in other)) return false;
+    if (typeof field === 'number') {
+      if (owner && (key === 'start' || key === 'end')) {
+        // Stored only when it moves: a store through a key read in a walk over mixed shapes is slow.
+        const offset = movedOffset(field, key, start, edit);
+        if (offset !== field) fields[key] = offset;
+        if (offset !== theirs) return false;
+      } else if (!Object.is(field, theirs)) return false;
+    } else if (field === null || typeof field !== 'object') {
+      if (!Object.is(field, theirs)) return false;
+    } else if (shared.has(key)) {
+      if (field !== theirs) return false;
+    } else if (!movedInPlaceMatches(field, theirs, edit, shared, owner)) return false;
   }
   return count === 0;
 }

@@ -17,6 +17,7 @@ import type { FileSet } from '../editor/navigation';
 import type { PartsFile } from '../ratings/index';
 import { AnalysisProgress } from './analysis-progress';
 import { AnalysisScheduler } from './analysis-scheduler';
+import { filesParsedBy } from './posted-analysis';
 import { AnalysisWorkerHost, DEFAULT_WORKER_HEAP_MB, type AnalysisStop } from './analysis-worker-host';
 import { toDiagnostic } from './convert';
 import { stoppedFinding } from './stopped-finding';
@@ -170,7 +171,7 @@ export class ServerState {
   private publish(file: FileAnalysis, version: number | undefined): void {
     const touched = this.dropContributions(file.uri);
     touched.add(file.uri);
-    for (const [uri, list] of findingsByFile(file)) {
+    for (const [uri, list] of findingsByFile(file, filesParsedBy(file))) {
       let roots = this.findingsByFile.get(uri);
       if (!roots) this.findingsByFile.set(uri, (roots = new Map()));
       roots.set(file.uri, list);
