@@ -179,7 +179,11 @@ export class AnalysisScheduler {
     const open = new Map(documents.map((d) => [d.uri, d.text]));
     // The answer may point into the analysis held now (posted-analysis.ts), so that one is kept for it.
     const held = this.results.get(uri);
-    const outcome = await this.worker.analyse(uri, open, this.hooks.settings(uri), this.hooks.partsFiles(), this.patienceMs, held?.sequence);
+    const answer = this.worker.analyse(uri, open, this.hooks.settings(uri), this.hooks.partsFiles(), this.patienceMs, held?.sequence);
+    // A root analysed for the first time has no tree to move: its parse is made now, while the
+    // worker analyses on the other core, rather than after the answer (before the first edit).
+    const early = held === undefined ? mainThreadParse(open.get(uri), undefined) : undefined;
+    const outcome = await answer;
     if (outcome.kind === 'stopped') {
       this.results.delete(uri);
       this.hooks.onStopped(uri, version, outcome);
@@ -187,11 +191,11 @@ export class AnalysisScheduler {
       // The root's parse is made here instead of crossing in the answer (posted-analysis.ts), from
       // the tree of the analysis this one replaces: its cards are moved, not copied, now that no
       // request can be answered from it any more (until here, one that ran out of patience was).
-      // It is made once the diagnostics and the waiting requests are answered (they need no tree),
-      // or sooner if something reads it.
+      // After an edit it is made once the diagnostics and the waiting requests are answered (they
+      // need no tree), or sooner if something reads it.
       const text = open.get(uri);
       const replaced = this.results.get(uri) === held ? held?.file : undefined;
-      const file = restoredForm(outcome.file, { text, parse: () => mainThreadParse(text, replaced?.netlist), held: held?.file });
+      const file = restoredForm(outcome.file, { text, parse: () => early ?? mainThreadParse(text, replaced?.netlist), held: held?.file });
       this.results.set(uri, { file, sequence: outcome.sequence, version });
       this.hooks.onAnalysed(file, version);
       const current = () => this.results.get(uri)?.file === file;
