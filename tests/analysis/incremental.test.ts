@@ -173,6 +173,31 @@ describe('the analysis after an edit, from the previous one', () => {
     expect(circuitIndexOf(input).elementKeys.has('rfiller')).toBe(true);
     expect(circuitIndexOf(input).nodeNames.has('nfill')).toBe(true);
   });
+
+  it('takes the names in use from the last analysis while no key moved, and sees a name an edit repeats and then removes', () => {
+    const base = examples.find((t) => /^D\w* /m.test(t) && /^C\w* /m.test(t))!.replace(/\n\.end\b/i, '\nRFILLER nfill 0 1k\n.end');
+    // One edit at a time, as an editor sends them. Below the title (an edit to the title line is
+    // parsed afresh): the cards after the comment move, no key changes; then a value, then a name.
+    const commented = base.replace(/\n(?=[^*\n])/, '\n* a comment line\n');
+    const valued = commented.replace('RFILLER nfill 0 1k', 'RFILLER nfill 0 0');
+    const texts = [base, commented, valued, valued.replace('RFILLER nfill 0 0', 'RFILLER nfill 0 0\nRFILLER nfill2 0 1k'), valued];
+    let previous: FileAnalysis | undefined;
+    const indexes = texts.map((text) => {
+      previous = analyze({ roots: [URI], readText: () => text, previousParse: (u) => previous?.parsed.get(u), consumePreviousParse: true }).files.get(URI)!;
+      expect(said(previous)).toEqual(said(fresh(text)));
+      const { netlist, flat, rectifiers, nearMisses, policy } = previous;
+      return circuitIndexOf({ rootUri: URI, netlist, flat, rectifiers, nearMisses, policy });
+    });
+    expect(indexes[1]!.elementKeys).toBe(indexes[0]!.elementKeys);
+    expect(indexes[1]!.voltageSources).toBe(indexes[0]!.voltageSources);
+    expect(indexes[2]!.elementKeys).toBe(indexes[0]!.elementKeys);
+    // The resistor typed to 0 Ω is a new element: the lists by kind are made again and hold it.
+    expect(indexes[1]!.zeroOhmResistors.map((e) => e.key)).not.toContain('rfiller');
+    expect(indexes[2]!.zeroOhmResistors.map((e) => e.key)).toContain('rfiller');
+    expect(indexes[3]!.repeatedKeys.has('rfiller')).toBe(true);
+    expect(indexes[4]!.repeatedKeys.size).toBe(0);
+    expect(said(previous)!.findings.some((f) => f.code === 'duplicate-name')).toBe(false);
+  });
 });
 
 describe('consuming the previous trees', () => {

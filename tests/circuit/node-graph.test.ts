@@ -5,7 +5,8 @@
  * of every card kind, with subcircuits, a repeated node on one element and a duplicate key.
  */
 import { describe, expect, it } from 'vitest';
-import { buildNodeGraph, type FlatCircuit } from '../../server/src/circuit/index';
+import { buildNodeGraph, nodeGraphOf, type FlatCircuit } from '../../server/src/circuit/index';
+import { analyze, type FileAnalysis } from '../../server/src/analysis/analyze';
 import { generateNetlist } from '../../bench/generate-netlist';
 import { flatten } from './check';
 
@@ -17,8 +18,7 @@ function plainGraph(flat: FlatCircuit) {
   return { at, instancesAt };
 }
 
-function expectSameAsPlain(flat: FlatCircuit): void {
-  const graph = buildNodeGraph(flat);
+function expectSameAsPlain(flat: FlatCircuit, graph = buildNodeGraph(flat)): void {
   const plain = plainGraph(flat);
   expect(graph.nodes).toEqual([...plain.at.keys()]);
   for (const [node, list] of plain.at) {
@@ -56,5 +56,31 @@ V1 a 0 SIN(0 10 50)
 `);
     expect(buildNodeGraph(flat).at('a').filter((i) => i.element.key === 'r1').map((i) => i.terminal)).toEqual([0, 1]);
     expectSameAsPlain(flat);
+  });
+
+  it('made for the next circuit of an edited file, from the last one\'s terminals where no node changed, is still the plain lists', () => {
+    const uri = 'file:///graph-edits.cir';
+    let text = generateNetlist(300, 3);
+    let previous: FileAnalysis | undefined;
+    const next = (edited: string) => {
+      text = edited;
+      previous = analyze({ roots: [uri], readText: () => text, previousParse: (u) => previous?.parsed.get(u), consumePreviousParse: true, waveforms: false }).files.get(uri)!;
+      const graph = nodeGraphOf(previous.flat);
+      expectSameAsPlain(previous.flat, graph);
+      return graph;
+    };
+    const middle = () => text.indexOf('\n', text.length >> 1) + 1;
+    const first = next(text);
+    // A comment line moves every card below it and changes no element's nodes: the terminals stand.
+    const commented = next(text.slice(0, middle()) + '* a comment\n' + text.slice(middle()));
+    expect(commented.nodes).toBe(first.nodes);
+    // A value typed: one element is new, on the same nodes.
+    const valued = next(text.replace(/^(R\S+ \S+ \S+ )\S+/m, '$1 123'));
+    expect(valued.nodes).toBe(first.nodes);
+    // A node renamed, a card added and one removed: the terminals are indexed afresh.
+    const renamed = next(text.replace(/^(R\S+ )(\S+)/m, '$1renamed_node'));
+    expect(renamed.nodes).not.toBe(first.nodes);
+    next(text.slice(0, middle()) + 'RNEW renamed_node 0 1k\n' + text.slice(middle()));
+    next(text.replace(/^RNEW .*\n/m, ''));
   });
 });

@@ -11,8 +11,8 @@ export interface Incidence {
 }
 
 export interface NodeGraph {
-  /** Every node that some element terminal touches. */
-  nodes: string[];
+  /** Every node that some element terminal touches (shared with the next circuit's graph when its terminals are the same). */
+  nodes: readonly string[];
   /** The same nodes by their index in `nodes`: a set of the names that holds nothing else of the circuit. */
   nodeIds: ReadonlyMap<string, number>;
   /** Terminals at a node (empty for an unknown node). */
@@ -30,19 +30,64 @@ const graphs = new WeakMap<FlatCircuit, NodeGraph>();
 /** The node graph of a flat circuit, built once for it (recognition and the rules' look-ups share it). */
 export function nodeGraphOf(flat: FlatCircuit): NodeGraph {
   let graph = graphs.get(flat);
-  if (!graph) graphs.set(flat, (graph = buildNodeGraph(flat)));
+  if (!graph) graphs.set(flat, (graph = graphOver(flat, reusedTerminals(flat.elements))));
   return graph;
 }
 
-/**
- * Builds the node graph of a flat circuit. Recognition visits only the nodes around its devices,
- * so the graph is a compact index (node ids, terminal slots grouped by node) and a node's list of
- * incidences is made when first asked for; the key and instance maps are made on first use. A graph
- * of one object per terminal cost more than the elaboration it indexes on a large file, most of it
- * in the collector moving those objects.
- */
+/** A graph of its own for a flat circuit, made afresh and kept by no one (a cut-down circuit's, say). */
 export function buildNodeGraph(flat: FlatCircuit): NodeGraph {
-  const elements = flat.elements;
+  return graphOver(flat, indexTerminals(flat.elements));
+}
+
+/**
+ * Which node each element terminal touches, grouped by node: all a graph holds besides the
+ * elements themselves. A terminal is a slot, numbered in element then terminal order.
+ */
+interface TerminalIndex {
+  nodes: string[];
+  ids: Map<string, number>;
+  /** The slots of node n are `slots[start[n]]` up to `slots[start[n + 1]]`. */
+  start: Int32Array;
+  slots: Int32Array;
+  elementOf: Int32Array;
+  terminalOf: Int32Array;
+}
+
+/**
+ * The last terminal index made for a root's flat circuit, by the card its first element came from
+ * (that card's span: an edit below it leaves the card, and so the span, the same object). A
+ * comment line or a value typed changes no element's nodes, so the next circuit's terminals are
+ * those of the last one and their index stands: whatever the entry, it is used only when the
+ * terminals are the same, node for node, which costs a pass of mostly pointer compares where
+ * making the index looks up every terminal's node by name (about 10 ms at 50,000 lines). The
+ * price is the last index kept, some 5 MB at 100,000 lines.
+ */
+const lastIndex = new WeakMap<object, { elements: readonly FlatElement[]; index: TerminalIndex }>();
+
+function reusedTerminals(elements: readonly FlatElement[]): TerminalIndex {
+  const anchor = elements[0]?.origin.span;
+  const last = anchor && lastIndex.get(anchor);
+  const index = last && sameTerminals(last.elements, elements) ? last.index : indexTerminals(elements);
+  if (anchor) lastIndex.set(anchor, { elements, index });
+  return index;
+}
+
+/** Whether two element lists touch the same nodes, terminal for terminal. */
+function sameTerminals(a: readonly FlatElement[], b: readonly FlatElement[]): boolean {
+  if (a.length !== b.length) return false;
+  for (let i = 0; i < a.length; i++) {
+    const x = a[i]!;
+    const y = b[i]!;
+    if (x === y) continue;
+    const tx = x.terminals;
+    const ty = y.terminals;
+    if (tx.length !== ty.length) return false;
+    for (let t = 0; t < tx.length; t++) if (tx[t]!.node !== ty[t]!.node) return false;
+  }
+  return true;
+}
+
+function indexTerminals(elements: readonly FlatElement[]): TerminalIndex {
   const ids = new Map<string, number>();
   const nodes: string[] = [];
   let terminalCount = 0;
@@ -67,6 +112,17 @@ export function buildNodeGraph(flat: FlatCircuit): NodeGraph {
   const fill = start.slice(0, nodes.length);
   const slots = new Int32Array(terminalCount);
   for (let j = 0; j < terminalCount; j++) slots[fill[nodeOf[j]!]!++] = j;
+  return { nodes, ids, start, slots, elementOf, terminalOf };
+}
+
+/**
+ * The graph of a flat circuit over its terminal index. Recognition visits only the nodes around
+ * its devices, so a node's list of incidences is made when first asked for, and the key and
+ * instance maps on first use. A graph of one object per terminal cost more than the elaboration
+ * it indexes on a large file, most of it in the collector moving those objects.
+ */
+function graphOver(flat: FlatCircuit, { nodes, ids, start, slots, elementOf, terminalOf }: TerminalIndex): NodeGraph {
+  const elements = flat.elements;
   const lists: (readonly Incidence[] | undefined)[] = new Array(nodes.length);
   let byKey: Map<string, FlatElement> | undefined;
   let instancesByNode: Map<string, FlatCircuit['instances'][number][]> | undefined;

@@ -4,7 +4,7 @@
  * ratings/stress-checks.ts.
  */
 import { displayNumber, displayPercent } from '../../../grammar/src/index';
-import { anchorOf, nodeGraphOf, type FlatCircuit, type FlatElement, type FlatInstance, type Origin, type PassiveElement, type SourceElement } from '../circuit/index';
+import { anchorOf, buildNodeGraph, nodeGraphOf, type FlatCircuit, type FlatElement, type FlatInstance, type NodeGraph, type Origin, type PassiveElement, type SourceElement } from '../circuit/index';
 import type { Finding, RelatedPlace } from '../findings/index';
 import type { DeviceAnalysis, RectifierAnalysis } from '../equivalent/index';
 import {
@@ -132,45 +132,107 @@ export function circuitIndexOf(input: RuleInput): CircuitIndex {
   return index;
 }
 
-function buildIndex(flat: FlatCircuit): CircuitIndex {
-  const elementKeys = new Set<string>();
-  const voltageSources: SourceElement[] = [];
-  const capacitorsByKey = new Map<string, PassiveElement>();
-  const zeroOhmResistors: FlatElement[] = [];
-  const repeatedKeys = new Set<string>();
-  for (const e of flat.elements) {
-    const size = elementKeys.size;
-    elementKeys.add(e.key);
-    if (elementKeys.size === size) repeatedKeys.add(e.key);
-    if (e.kind === 'vsource') voltageSources.push(e);
-    // A later element of the same key replaces an earlier one (a duplicate is its own finding).
-    else if (e.kind === 'capacitor') capacitorsByKey.set(e.key, e);
-    else if (e.kind === 'resistor' && e.value === 0 && e.terminals.length === 2) zeroOhmResistors.push(e);
-  }
-  const instancesByKey = new Map<string, FlatInstance>();
-  // The first instance of a key, as a search in card order finds it.
-  for (const i of flat.instances) {
-    if (!instancesByKey.has(i.key)) instancesByKey.set(i.key, i);
-    else repeatedKeys.add(i.key);
-  }
+function buildIndex(flat: FlatCircuit, graphOf: (flat: FlatCircuit) => NodeGraph = nodeGraphOf, census = keyCensusOf(flat)): CircuitIndex {
+  const { voltageSources, capacitorsByKey, zeroOhmResistors } = census.kinds;
   return {
-    elementKeys,
-    repeatedKeys,
+    elementKeys: census.elementKeys,
+    repeatedKeys: census.repeatedKeys,
     get nodeNames() {
-      return nodeGraphOf(flat).nodeIds;
+      return graphOf(flat).nodeIds;
     },
     // From the node graph: the few pairs asked about (a device's two ends) need no index of every resistor.
     resistorsAcross(a, b) {
       const found: FlatElement[] = [];
-      for (const { element: e, terminal } of nodeGraphOf(flat).at(a)) {
+      for (const { element: e, terminal } of graphOf(flat).at(a)) {
         if (e.kind !== 'resistor' || e.terminals.length !== 2 || e.value === undefined || !(e.value >= 0)) continue;
         // A resistor with both ends on a is listed at a twice: once is enough.
         if (a === b ? terminal === 0 && e.terminals[1]!.node === a : e.terminals[1 - terminal]!.node === b) found.push(e);
       }
       return found;
     },
-    voltageSources, capacitorsByKey, zeroOhmResistors, instancesByKey,
+    voltageSources, capacitorsByKey, zeroOhmResistors, instancesByKey: census.instancesByKey,
   };
+}
+
+/** The index's look-ups by key (the keys in use, those held twice, the first instance of each key) and by kind. */
+interface KeyCensus {
+  elementKeys: ReadonlySet<string>;
+  repeatedKeys: ReadonlySet<string>;
+  instancesByKey: ReadonlyMap<string, FlatInstance>;
+  kinds: ElementsByKind;
+}
+
+type ElementsByKind = Pick<CircuitIndex, 'voltageSources' | 'capacitorsByKey' | 'zeroOhmResistors'>;
+
+function elementsByKind(elements: readonly FlatElement[]): ElementsByKind {
+  const voltageSources: SourceElement[] = [];
+  const capacitorsByKey = new Map<string, PassiveElement>();
+  const zeroOhmResistors: FlatElement[] = [];
+  for (const e of elements) {
+    if (e.kind === 'vsource') voltageSources.push(e);
+    // A later element of the same key replaces an earlier one (a duplicate is its own finding).
+    else if (e.kind === 'capacitor') capacitorsByKey.set(e.key, e);
+    else if (e.kind === 'resistor' && e.value === 0 && e.terminals.length === 2) zeroOhmResistors.push(e);
+  }
+  return { voltageSources, capacitorsByKey, zeroOhmResistors };
+}
+
+/**
+ * The last census of a root's flat circuit, by the card its first element came from, as the node
+ * graph keeps its terminal index (circuit/node-graph.ts): an edit that renames nothing leaves
+ * every key where it was, and the sets of 50,000 keys cost some 8 ms to make again; a comment
+ * line leaves every element the same object, and the lists by kind stand too.
+ */
+const lastCensus = new WeakMap<object, { elements: readonly FlatElement[]; instances: readonly FlatInstance[]; census: KeyCensus }>();
+
+function keyCensusOf(flat: FlatCircuit): KeyCensus {
+  const anchor = flat.elements[0]?.origin.span;
+  const last = anchor && lastCensus.get(anchor);
+  let census: KeyCensus;
+  if (last && sameKeys(last.elements, flat.elements) && sameKeys(last.instances, flat.instances)) {
+    // The elements and instances themselves may be new objects (a value typed, a definition
+    // edited): the lists by kind and the map of instances then point at these.
+    const kinds = sameItems(last.elements, flat.elements) ? last.census.kinds : elementsByKind(flat.elements);
+    const instancesByKey = sameItems(last.instances, flat.instances) ? last.census.instancesByKey : firstInstances(flat.instances);
+    census = { ...last.census, instancesByKey, kinds };
+  } else census = takeCensus(flat);
+  if (anchor) lastCensus.set(anchor, { elements: flat.elements, instances: flat.instances, census });
+  return census;
+}
+
+function takeCensus(flat: FlatCircuit): KeyCensus {
+  const elementKeys = new Set<string>();
+  const repeatedKeys = new Set<string>();
+  for (const e of flat.elements) {
+    const size = elementKeys.size;
+    elementKeys.add(e.key);
+    if (elementKeys.size === size) repeatedKeys.add(e.key);
+  }
+  const instancesByKey = firstInstances(flat.instances);
+  if (instancesByKey.size < flat.instances.length) {
+    const seen = new Set<string>();
+    for (const i of flat.instances) if (seen.has(i.key)) repeatedKeys.add(i.key); else seen.add(i.key);
+  }
+  return { elementKeys, repeatedKeys, instancesByKey, kinds: elementsByKind(flat.elements) };
+}
+
+/** The first instance of a key, as a search in card order finds it. */
+function firstInstances(instances: readonly FlatInstance[]): Map<string, FlatInstance> {
+  const byKey = new Map<string, FlatInstance>();
+  for (const i of instances) if (!byKey.has(i.key)) byKey.set(i.key, i);
+  return byKey;
+}
+
+function sameKeys(a: readonly { key: string }[], b: readonly { key: string }[]): boolean {
+  if (a.length !== b.length) return false;
+  for (let i = 0; i < a.length; i++) if (a[i] !== b[i] && a[i]!.key !== b[i]!.key) return false;
+  return true;
+}
+
+function sameItems<T>(a: readonly T[], b: readonly T[]): boolean {
+  if (a.length !== b.length) return false;
+  for (let i = 0; i < a.length; i++) if (a[i] !== b[i]) return false;
+  return true;
 }
 
 /**
@@ -190,7 +252,9 @@ export function compactAfterRules(input: RuleInput): FlatCircuit {
   }
   const elements = input.flat.elements.filter((e) => e.kind === 'vsource' || wanted.has(e.key));
   const flat: FlatCircuit = { ...input.flat, elements, instances: [] };
-  const { voltageSources, capacitorsByKey, resistorsAcross, zeroOhmResistors, instancesByKey } = buildIndex(flat);
+  // A graph and census of the cut-down circuit's own, kept by no one: the whole circuit's are what the next analysis may reuse.
+  let graph: NodeGraph | undefined;
+  const { voltageSources, capacitorsByKey, resistorsAcross, zeroOhmResistors, instancesByKey } = buildIndex(flat, (f) => (graph ??= buildNodeGraph(f)), takeCensus(flat));
   indexes.set(input, { voltageSources, capacitorsByKey, resistorsAcross, zeroOhmResistors, instancesByKey, elementKeys: whole.elementKeys, repeatedKeys: whole.repeatedKeys, nodeNames });
   input.flat = flat;
   return flat;
