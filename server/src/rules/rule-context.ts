@@ -106,7 +106,8 @@ export function nodePairKey(a: string, b: string): string {
 /**
  * Look-ups over the flat circuit that the rules need, built in one pass per analysis so that no
  * rule scans the whole circuit for each rectifier or device (at 50 bridges the scans were most of
- * the rules' time). The node names (wanted only by fixes) and the resistors across two nodes are
+ * the rules' time), or taken from the root's last analysis where its circuit is the same
+ * (`keyCensusOf`). The node names (wanted only by fixes) and the resistors across two nodes are
  * read off the node graph recognition built.
  */
 export interface CircuitIndex {
