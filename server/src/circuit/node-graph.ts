@@ -3,6 +3,7 @@
  * terminals keep their source ranges, so whatever is found can be pointed at.
  */
 import type { FlatCircuit, FlatElement } from './flat-circuit';
+import { NextCircuitMemo } from './next-circuit-memo';
 
 /** One terminal of one element at a node. */
 export interface Incidence {
@@ -54,21 +55,18 @@ interface TerminalIndex {
 }
 
 /**
- * The last terminal index made for a root's flat circuit, by the card its first element came from
- * (that card's span: an edit below it leaves the card, and so the span, the same object). A
- * comment line or a value typed changes no element's nodes, so the next circuit's terminals are
- * those of the last one and their index stands: whatever the entry, it is used only when the
- * terminals are the same, node for node, which costs a pass of mostly pointer compares where
- * making the index looks up every terminal's node by name (about 10 ms at 50,000 lines). The
- * price is the last index kept, some 5 MB at 100,000 lines.
+ * The last terminal index made for a root's flat circuit. A comment line or a value typed changes
+ * no element's nodes, so the next circuit's terminals are those of the last one and their index
+ * stands: it is used only when the terminals are the same, node for node, which costs a pass of
+ * mostly pointer compares where making the index looks up every terminal's node by name (about
+ * 10 ms at 50,000 lines). The price is the last index kept, some 5 MB at 100,000 lines.
  */
-const lastIndex = new WeakMap<object, { elements: readonly FlatElement[]; index: TerminalIndex }>();
+const lastIndex = new NextCircuitMemo<{ elements: readonly FlatElement[]; index: TerminalIndex }>();
 
 function reusedTerminals(elements: readonly FlatElement[]): TerminalIndex {
-  const anchor = elements[0]?.origin.span;
-  const last = anchor && lastIndex.get(anchor);
+  const last = lastIndex.get(elements);
   const index = last && sameTerminals(last.elements, elements) ? last.index : indexTerminals(elements);
-  if (anchor) lastIndex.set(anchor, { elements, index });
+  lastIndex.set(elements, { elements, index });
   return index;
 }
 

@@ -4,7 +4,7 @@
  * ratings/stress-checks.ts.
  */
 import { displayNumber, displayPercent } from '../../../grammar/src/index';
-import { anchorOf, buildNodeGraph, nodeGraphOf, type FlatCircuit, type FlatElement, type FlatInstance, type NodeGraph, type Origin, type PassiveElement, type SourceElement } from '../circuit/index';
+import { anchorOf, buildNodeGraph, NextCircuitMemo, nodeGraphOf, type FlatCircuit, type FlatElement, type FlatInstance, type NodeGraph, type Origin, type PassiveElement, type SourceElement } from '../circuit/index';
 import type { Finding, RelatedPlace } from '../findings/index';
 import type { DeviceAnalysis, RectifierAnalysis } from '../equivalent/index';
 import {
@@ -179,16 +179,15 @@ function elementsByKind(elements: readonly FlatElement[]): ElementsByKind {
 }
 
 /**
- * The last census of a root's flat circuit, by the card its first element came from, as the node
- * graph keeps its terminal index (circuit/node-graph.ts): an edit that renames nothing leaves
- * every key where it was, and the sets of 50,000 keys cost some 8 ms to make again; a comment
- * line leaves every element the same object, and the lists by kind stand too.
+ * The last census of a root's flat circuit, kept as the node graph keeps its terminal index
+ * (circuit/node-graph.ts): an edit that renames nothing leaves every key where it was, and the
+ * sets of 50,000 keys cost some 8 ms to make again; a comment line leaves every element the same
+ * object, and the lists by kind stand too.
  */
-const lastCensus = new WeakMap<object, { elements: readonly FlatElement[]; instances: readonly FlatInstance[]; census: KeyCensus }>();
+const lastCensus = new NextCircuitMemo<{ elements: readonly FlatElement[]; instances: readonly FlatInstance[]; census: KeyCensus }>();
 
 function keyCensusOf(flat: FlatCircuit): KeyCensus {
-  const anchor = flat.elements[0]?.origin.span;
-  const last = anchor && lastCensus.get(anchor);
+  const last = lastCensus.get(flat.elements);
   let census: KeyCensus;
   if (last && sameKeys(last.elements, flat.elements) && sameKeys(last.instances, flat.instances)) {
     // The elements and instances themselves may be new objects (a value typed, a definition
@@ -197,7 +196,7 @@ function keyCensusOf(flat: FlatCircuit): KeyCensus {
     const instancesByKey = sameItems(last.instances, flat.instances) ? last.census.instancesByKey : firstInstances(flat.instances);
     census = { ...last.census, instancesByKey, kinds };
   } else census = takeCensus(flat);
-  if (anchor) lastCensus.set(anchor, { elements: flat.elements, instances: flat.instances, census });
+  lastCensus.set(flat.elements, { elements: flat.elements, instances: flat.instances, census });
   return census;
 }
 
@@ -253,10 +252,13 @@ export function compactAfterRules(input: RuleInput): FlatCircuit {
   }
   const elements = input.flat.elements.filter((e) => e.kind === 'vsource' || wanted.has(e.key));
   const flat: FlatCircuit = { ...input.flat, elements, instances: [] };
-  // A graph and census of the cut-down circuit's own, kept by no one: the whole circuit's are what the next analysis may reuse.
+  // The whole circuit's keys (so that a fix never takes a name in use) over the cut-down circuit's
+  // own lists and graph, which no one keeps: the whole circuit's are what the next analysis may reuse.
   let graph: NodeGraph | undefined;
-  const { voltageSources, capacitorsByKey, resistorsAcross, zeroOhmResistors, instancesByKey } = buildIndex(flat, (f) => (graph ??= buildNodeGraph(f)), takeCensus(flat));
-  indexes.set(input, { voltageSources, capacitorsByKey, resistorsAcross, zeroOhmResistors, instancesByKey, elementKeys: whole.elementKeys, repeatedKeys: whole.repeatedKeys, nodeNames });
+  const census: KeyCensus = { elementKeys: whole.elementKeys, repeatedKeys: whole.repeatedKeys, instancesByKey: new Map(), kinds: elementsByKind(elements) };
+  // Field by field: a spread would read `nodeNames`, which makes the cut-down circuit's graph.
+  const { voltageSources, capacitorsByKey, resistorsAcross, zeroOhmResistors, instancesByKey, elementKeys, repeatedKeys } = buildIndex(flat, (f) => (graph ??= buildNodeGraph(f)), census);
+  indexes.set(input, { voltageSources, capacitorsByKey, resistorsAcross, zeroOhmResistors, instancesByKey, elementKeys, repeatedKeys, nodeNames });
   input.flat = flat;
   return flat;
 }
