@@ -13,7 +13,7 @@ import { capacitorHover } from '../../server/src/editor/capacitor-hover';
 import { codeLensesOf } from '../../server/src/editor/code-lens';
 import { inlayHintsOf } from '../../server/src/editor/inlay-hints';
 import { outlineOf } from '../../server/src/editor/outline';
-import { mainThreadParse, postedForm, restoredForm } from '../../server/src/lsp/posted-analysis';
+import { mainThreadParse, postedForm, restoredForm, takeMovableTree } from '../../server/src/lsp/posted-analysis';
 
 const URI = 'file:///posted.cir';
 const TEXT = readFileSync(join(__dirname, '../../examples/led-driver-230v.cir'), 'utf8');
@@ -78,5 +78,31 @@ describe('the analysis as the worker posts it', () => {
     // A parse of another text (the main thread's tree lagging) is not taken: the analysis's own text is parsed.
     const lagging = restoredForm(postedForm(file, TEXT), { text: TEXT, parse: () => parseNetlist(`${TEXT}\n* later`), held: undefined });
     expect(lagging.netlist).toEqual(file.netlist);
+  });
+
+  it('hands an unread tree on to the analysis that replaces it: a chain of edits makes one parse, moving the first tree\'s cards', () => {
+    const texts = [0, 1, 2, 3].map((k) => TEXT.replace(/^\*.*$/m, `* edit ${k}`));
+    const first = parseNetlist(texts[0]!);
+    const kept = first.cards.at(-1)!;
+    const parses: (string | undefined)[] = [];
+    const counted = (text: string, movable: ReturnType<typeof parseNetlist> | undefined) => (parses.push(movable?.text), mainThreadParse(text, movable));
+    let replaced = restoredForm(postedForm(analysed(texts[1]!), texts[1]!), { text: texts[1]!, movable: first, parse: counted, held: undefined });
+    const unread = [replaced];
+    for (const text of texts.slice(2)) {
+      replaced = restoredForm(postedForm(analysed(text), text), { text, movable: takeMovableTree(replaced), parse: counted, held: undefined });
+      unread.push(replaced);
+    }
+    expect(parses).toEqual([]);
+    const last = replaced.netlist;
+    // One parse, from the first tree: its last card moved into the newest tree, the same object.
+    expect(parses).toEqual([texts[0]]);
+    expect(last.cards.at(-1)).toBe(kept);
+    expect(last).toEqual(parseNetlist(texts[3]!));
+    // A replaced analysis read late parses its own text afresh and leaves the newest tree alone.
+    expect(unread[0]!.netlist).toEqual(parseNetlist(texts[1]!));
+    expect(parses).toEqual([texts[0], undefined]);
+    expect(last).toEqual(parseNetlist(texts[3]!));
+    // A tree once made is what is handed on.
+    expect(takeMovableTree(replaced)).toBe(last);
   });
 });

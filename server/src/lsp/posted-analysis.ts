@@ -140,23 +140,36 @@ export function mainThreadParse(text: string | undefined, replaced: Netlist | un
  * as moved is the held one with its offsets moved in place (as the worker moved its own copy), so
  * nothing of it is copied.
  *
- * The root's parse (`parse`, `mainThreadParse`) is made when the analysis's `netlist` or `parsed`
- * is first read, not here: diagnostics and inlay hints need only the text, the findings and the
- * rectifiers, so an edit's answers go out before the main thread spends its re-parse (the
- * scheduler reads the tree once they are out). Read then or later, it is the same parse.
+ * The root's parse (`mainThreadParse` from `here.movable`) is made when the analysis's `netlist`
+ * or `parsed` is first read, not here: diagnostics and inlay hints need only the text, the findings
+ * and the rectifiers, so an edit's answers go out before the main thread spends its re-parse (the
+ * scheduler reads the tree once the reader pauses). Read then or later, it is the same parse. An
+ * analysis replaced before its tree was read hands the tree it would have moved from on to the
+ * next one (`takeMovableTree`), so edits typed faster than the pause cost no parse at all.
  */
-export function restoredForm(posted: PostedAnalysis, here: { text: string | undefined; parse: () => Netlist | undefined; held: FileAnalysis | undefined }): FileAnalysis {
+export interface RootTree {
+  /** The text the posted analysis was made from, when the main thread sent it. */
+  text: string | undefined;
+  /** A tree the parse may move cards from and consume: an earlier text's, or this very text's own (used as it is). */
+  movable?: Netlist;
+  /** How the tree is made (`mainThreadParse` unless a test counts the parses). */
+  parse?: (text: string, movable: Netlist | undefined) => Netlist | undefined;
+  held: FileAnalysis | undefined;
+}
+
+export function restoredForm(posted: PostedAnalysis, here: RootTree): FileAnalysis {
   const rectifiers = posted.rectifiers.map((r) => restoredRectifier(r, here.held, posted.rootEdit));
   if (posted.netlist && posted.text !== undefined) return { ...posted, text: posted.text, netlist: posted.netlist, rectifiers };
   const text = posted.text ?? here.text ?? '';
   const file = { ...posted, text, rectifiers } as Omit<FileAnalysis, 'netlist' | 'parsed'>;
-  let parse: (() => Netlist | undefined) | undefined = here.parse;
+  const parse = here.parse ?? mainThreadParse;
+  let movable = here.movable;
   let tree: { netlist: Netlist; parsed: ReadonlyMap<string, Netlist> } | undefined;
   const made = () => {
     if (!tree) {
-      const own = parse!();
-      // Dropped once made: the closure holds the analysis this one replaced, whose tree it consumed.
-      parse = undefined;
+      const from = movable;
+      movable = undefined;
+      const own = from?.text === text ? from : parse(text, from);
       const netlist = own?.text === text ? own : parseNetlist(text);
       tree = { netlist, parsed: new Map([[posted.uri, netlist], ...posted.parsed]) };
     }
@@ -167,7 +180,26 @@ export function restoredForm(posted: PostedAnalysis, here: { text: string | unde
     parsed: { get: () => made().parsed, enumerable: true, configurable: true },
   }) as FileAnalysis;
   parsedUris.set(restored, [posted.uri, ...posted.parsed.keys()]);
+  // Handing over leaves this analysis a whole parse of its own text, should a late reader ask.
+  handOvers.set(restored, () => {
+    if (tree) return tree.netlist;
+    const from = movable;
+    movable = undefined;
+    return from;
+  });
   return restored;
+}
+
+const handOvers = new WeakMap<FileAnalysis, () => Netlist | undefined>();
+
+/**
+ * The tree the analysis replacing `file` may move its root's cards from, taken from `file` (which no
+ * reader may use after): its own tree once made, else the one it had been given to move from. No parse.
+ */
+export function takeMovableTree(file: FileAnalysis | undefined): Netlist | undefined {
+  if (!file) return undefined;
+  const handOver = handOvers.get(file);
+  return handOver ? handOver() : file.netlist;
 }
 
 const parsedUris = new WeakMap<FileAnalysis, readonly string[]>();
