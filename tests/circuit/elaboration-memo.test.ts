@@ -9,6 +9,7 @@ import { describe, expect, it } from 'vitest';
 import { parseNetlist, type Netlist } from '../../grammar/src/index';
 import { elaborate, type ElaborateOptions, type FlatCircuit } from '../../server/src/circuit/index';
 import { FUZZ_SEED, PROPERTY_OPTIONS, runs, timeoutFor } from '../fuzz/fuzz-config';
+import { applied } from './line-edits';
 
 const URI = 'file:///memo.cir';
 
@@ -51,15 +52,6 @@ function elaborated(tree: Netlist, options?: ElaborateOptions): FlatCircuit {
 const LINES = HIERARCHY.split('\n').length - 1;
 const REPLACEMENTS = ['* a note', '', '.param rv=2k gain=2', '.param rin={rval}', 'R1 a m 22', 'X2 m b CELL rval=5', 'XB n1 0 PAIR', '.model DLOC D(IS=2n)', '.model DX D(N=2)', '.ends', 'XD n1 0 NOPE', '*@ rate DX vrrm=200V', '.param rv={rv}'];
 const edit = fc.record({ line: fc.integer({ min: 1, max: LINES - 1 }), kind: fc.constantFrom('replace', 'insert', 'remove'), text: fc.constantFrom(...REPLACEMENTS) });
-
-function applied(text: string, e: { line: number; kind: string; text: string }): string {
-  const lines = text.split('\n');
-  const at = 1 + (e.line % Math.max(1, lines.length - 2));
-  if (e.kind === 'replace') lines[at] = e.text;
-  else if (e.kind === 'insert') lines.splice(at, 0, e.text);
-  else lines.splice(at, 1);
-  return lines.join('\n');
-}
 
 describe('elaboration from moved cards', () => {
   const count = runs(60);

@@ -14,6 +14,7 @@ import { didYouMean } from './did-you-mean';
 import { ExpansionSizer, lookupDef, type Defs, type SubcktDef } from './expansion-size';
 import { IncludeExpander, type PlacedItem } from './includes';
 import { evaluateParams, instanceScope, type PlacedParam } from './scope';
+import { keepTrace, lastTrace, planTopLevel, runOutputs, splicingCounts, type RunOutputs, type TopLevelPlan, type TopLevelTrace } from './top-level-runs';
 
 export interface ElaborateOptions {
   /** Deepest subcircuit nesting expanded (default 64). */
@@ -70,6 +71,16 @@ class Elaborator {
   /** This elaboration's top-level scope, under which top-level cards' flat forms are kept; none when a subcircuit body includes a file. */
   private scope: ScopeToken | undefined;
   private recording: Recording | undefined;
+  /** The runs of the top level that may be copied from the last elaboration (top-level-runs.ts). */
+  private plan: TopLevelPlan | undefined;
+  /** This elaboration's top level as the next one will see it; undefined when it may not be copied from. */
+  private outputs: RunOutputs | undefined;
+  private subckts: (string | undefined)[] = [];
+  /** The local models set while flattening, in order. */
+  private readonly localModels: [string, FlatModel][] = [];
+  /** Whether the top-level item being flattened said something or was built anew. */
+  private unkept = false;
+  private offeredBefore = 0;
 
   constructor(private readonly rootUri: string, files: FileSource, options: ElaborateOptions) {
     this.expander = new IncludeExpander(files, this.sink, options.maxIncludedCards);
@@ -81,7 +92,8 @@ class Elaborator {
 
   run(): FlatCircuit {
     const root: Netlist | undefined = this.expander.read(this.rootUri);
-    const top = root ? this.expander.expand(root.items, this.rootUri, [this.rootUri]) : [];
+    const placed = root ? this.placeTopLevel(root) : undefined;
+    const top = placed?.placed ?? [];
     if (!root) this.sink.add({ uri: this.rootUri, span: { start: 0, end: 0 }, severity: 'error', code: 'missing-include', message: `cannot read ${this.rootUri}` });
     this.collectDirectives(top);
     const globalParams = globalParamValues(paramsOf(top), this.sink);
@@ -92,17 +104,119 @@ class Elaborator {
       ...this.defineModels(top, '', globalLookup, { modelKey: () => undefined, modelNames: () => [] }),
     };
     this.scope = this.scopeOf(root, top, globalParams, defs);
+    if (this.plan && this.plan.previous.scope !== this.scope) this.plan = undefined;
+    this.outputs = this.scope && placed?.traced ? runOutputs(top.length) : undefined;
+    if (this.outputs) this.subckts = new Array<string | undefined>(top.length).fill(undefined);
     this.flatten({ items: top, next: 0, frame, defs, path: [] }, globalLookup);
+    const traced = this.outputs && !this.stopped && placed?.traced;
+    keepTrace(root?.cards[0], traced ? {
+      uri: this.rootUri, scope: this.scope!, rootItems: root!.items, placedStart: placed.traced!.placedStart, splicingBefore: placed.traced!.splicingBefore, placed: top,
+      files: placed.traced!.files, spliced: placed.traced!.spliced, outputs: this.outputs!, subckts: this.subckts,
+      elements: this.elements, instances: this.instances, models: this.localModels,
+    } : undefined);
     return {
       rootUri: this.rootUri, elements: this.elements, instances: this.instances, models: this.models,
       directives: this.directives, globalParams, dependencies: [...this.expander.used], diagnostics: this.sink.list,
     };
   }
 
+  /**
+   * The root's top level with includes spliced in: from the last elaboration's where only an
+   * unchanged run surrounds the change (top-level-runs.ts), else placed afresh. `traced` holds what
+   * the next elaboration needs to do the same, when placing it said nothing.
+   */
+  private placeTopLevel(root: Netlist): { placed: PlacedItem[]; traced?: Pick<TopLevelTrace, 'placedStart' | 'splicingBefore' | 'files' | 'spliced'> } {
+    const previous = lastTrace(root.cards[0]);
+    const plan = previous && planTopLevel(previous, root.items, this.rootUri, (uri, tree) => this.expander.sameTree(uri, tree));
+    if (plan) {
+      this.plan = plan;
+      this.expander.replayTopLevel(previous.files, previous.spliced);
+      return { placed: plan.placed, traced: { placedStart: plan.placedStart, splicingBefore: plan.splicingBefore, files: previous.files, spliced: previous.spliced } };
+    }
+    const offered = this.sink.offered;
+    const starts: number[] = [];
+    const placed = this.expander.expand(root.items, this.rootUri, [this.rootUri], starts);
+    if (this.sink.offered !== offered) return { placed };
+    return { placed, traced: { placedStart: Int32Array.from(starts), splicingBefore: splicingCounts(root.items), files: [...this.expander.usedTrees], spliced: this.expander.splicedCards } };
+  }
+
+  /** Notes the outputs before top-level item `index` (and whether the one before it may be copied later). */
+  private noteTopLevel(index: number): void {
+    const out = this.outputs;
+    if (!out) return;
+    out.elements[index] = this.elements.length;
+    out.instances[index] = this.instances.length;
+    out.models[index] = this.localModels.length;
+    out.charged[index] = this.charged;
+    const said = this.sink.offered !== this.offeredBefore;
+    out.unkept[index] = index === 0 ? 0 : out.unkept[index - 1]! + (this.unkept || said ? 1 : 0);
+    this.unkept = false;
+    this.offeredBefore = this.sink.offered;
+  }
+
+  /**
+   * Copies from the last elaboration the longest run of unchanged top-level items that starts at
+   * new item `index` and holds no item that said something or was built anew then, if it fits;
+   * returns the new index after it, or `index` when nothing was copied.
+   */
+  private copyRun(index: number, defs: Defs): number {
+    const plan = this.plan;
+    if (!plan) return index;
+    const was = plan.previous;
+    const o = was.outputs;
+    const inPrefix = index < plan.prefixEnd;
+    if (!inPrefix && index < plan.suffixStart) return index;
+    const from = inPrefix ? index : index - plan.suffixStart + plan.oldSuffixStart;
+    if (from >= (inPrefix ? plan.prefixEnd : was.placed.length)) return index;
+    const to = firstUnkept(o.unkept, from, inPrefix ? plan.prefixEnd : was.placed.length);
+    if (to === from || this.charged + o.charged[to]! - o.charged[from]! > this.maxElements) return index;
+    // The size checks a card-by-card pass makes, in its order: a size counted once is not counted again.
+    const sized = new Set<string>();
+    for (let j = from; j < to; j++) {
+      const subckt = was.subckts[j];
+      if (subckt === undefined || sized.has(subckt)) continue;
+      sized.add(subckt);
+      const def = lookupDef(defs, subckt);
+      if (!def || this.sizer.sizeOf(def, defs, [subckt]) === undefined) return index;
+    }
+    const out = this.outputs;
+    const shift = { elements: this.elements.length - o.elements[from]!, instances: this.instances.length - o.instances[from]!, models: this.localModels.length - o.models[from]!, charged: this.charged - o.charged[from]! };
+    for (let e = o.elements[from]!; e < o.elements[to]!; e++) this.elements.push(was.elements[e]!);
+    for (let k = o.instances[from]!; k < o.instances[to]!; k++) this.instances.push(was.instances[k]!);
+    for (let k = o.models[from]!; k < o.models[to]!; k++) {
+      const [name, model] = was.models[k]!;
+      this.models.set(name, model);
+      this.localModels.push([name, model]);
+    }
+    this.charged += o.charged[to]! - o.charged[from]!;
+    if (out) {
+      const unkept = out.unkept[index]!;
+      for (let j = from; j < to; j++) {
+        const at = index + j - from;
+        out.elements[at] = o.elements[j]! + shift.elements;
+        out.instances[at] = o.instances[j]! + shift.instances;
+        out.models[at] = o.models[j]! + shift.models;
+        out.charged[at] = o.charged[j]! + shift.charged;
+        out.unkept[at] = unkept;
+        this.subckts[at] = was.subckts[j];
+      }
+    }
+    this.unkept = false;
+    return index + to - from;
+  }
+
   private flatten(start: Work, global: Lookup): void {
     const stack: Work[] = [start];
     while (stack.length && !this.stopped) {
       const work = stack[stack.length - 1]!;
+      if (stack.length === 1) {
+        this.noteTopLevel(work.next);
+        const after = this.copyRun(work.next, work.defs);
+        if (after !== work.next) {
+          work.next = after;
+          continue;
+        }
+      }
       const placed = work.items[work.next++];
       if (!placed) {
         stack.pop();
@@ -113,6 +227,7 @@ class Elaborator {
       const frame = placed.uri === work.frame.uri ? work.frame : { ...work.frame, uri: placed.uri };
       const top = work.path.length === 0;
       if (item.kind === 'instance') {
+        if (top && item.subckt) this.subckts[work.next - 1] = key(item.subckt);
         if (top && this.reuseExpansion(item, frame.uri, work.defs)) continue;
         if (top) this.startRecording(item, frame.uri);
         const child = this.instantiate(item, frame, work, global);
@@ -145,6 +260,7 @@ class Elaborator {
     const offered = this.sink.offered;
     const element = buildElement(card, frame, this.sink);
     if (scope && this.sink.offered === offered) keptElements.set(card, scope, frame.uri, element);
+    else this.unkept = true;
     return element;
   }
 
@@ -160,7 +276,10 @@ class Elaborator {
     if (size === undefined || size !== kept.size || this.charged + 1 + size > this.maxElements || this.charged + kept.charged > this.maxElements) return false;
     for (const instance of kept.instances) this.instances.push(instance);
     for (const element of kept.elements) this.elements.push(element);
-    for (const [name, model] of kept.models) this.models.set(name, model);
+    for (const [name, model] of kept.models) {
+      this.models.set(name, model);
+      this.localModels.push([name, model]);
+    }
     this.charged += kept.charged;
     return true;
   }
@@ -178,6 +297,7 @@ class Elaborator {
     if (!r || !this.scope) return;
     this.recording = undefined;
     const clean = !this.stopped && !r.directive && r.size !== undefined && this.sink.offered === r.offered;
+    if (!clean) this.unkept = true;
     const expansion: KeptExpansion | undefined = clean
       ? { instances: this.instances.slice(r.instances), elements: this.elements.slice(r.elements), models: r.models, charged: this.charged - r.charged, size: r.size }
       : undefined;
@@ -299,6 +419,7 @@ class Elaborator {
       own.set(name, item.name.text);
       const model = modelOf(item, uri, lookup, this.sink);
       this.models.set(keyPrefix + name, model);
+      if (keyPrefix !== '') this.localModels.push([keyPrefix + name, model]);
       if (this.recording && keyPrefix !== '') this.recording.models.push([keyPrefix + name, model]);
     }
     return {
@@ -329,6 +450,21 @@ class Elaborator {
     this.stopped = true;
     this.sink.add({ uri, span, severity: 'error', code: 'circuit-too-large', message: `the flattened circuit passes ${this.maxElements} elements; elaboration stops here` });
   }
+}
+
+/** The first item in [from, end) that was not kept (`unkept` counts them before each item), else `end`. */
+function firstUnkept(unkept: Int32Array, from: number, end: number): number {
+  const before = unkept[from]!;
+  if (unkept[end]! === before) return end;
+  // The least t in (from, end] with more unkept before it; the item at t − 1 is the first unkept one.
+  let low = from + 1;
+  let high = end;
+  while (low < high) {
+    const mid = (low + high) >>> 1;
+    if (unkept[mid]! > before) high = mid;
+    else low = mid + 1;
+  }
+  return low - 1;
 }
 
 /** Whether a block, or one nested in it, holds an `.include` or `.lib` card. */

@@ -79,7 +79,7 @@ function sameScope(a: ScopeToken, b: ScopeToken): boolean {
 }
 
 /** Whether two blocks hold the same cards: a re-parse builds every block anew around the cards it moved. */
-function sameBlock(a: SubcktBlock, b: SubcktBlock): boolean {
+export function sameBlock(a: SubcktBlock, b: SubcktBlock): boolean {
   const pending: [Item, Item][] = [[a, b]];
   while (pending.length) {
     const [x, y] = pending.pop()!;

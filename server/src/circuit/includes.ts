@@ -124,8 +124,9 @@ interface Splice {
 
 /** Splices included files and library sections into a list of items, reporting cycles and missing files on the card. */
 export class IncludeExpander {
-  /** Files that were read, in first-read order. */
+  /** Files that were read, in first-read order, and the trees read. */
   readonly used: string[] = [];
+  readonly usedTrees: (readonly [string, Netlist])[] = [];
   private readonly usedSet = new Set<string>();
   /** Cards taken from included files so far, counted before each is placed. */
   private spliced = 0;
@@ -141,11 +142,34 @@ export class IncludeExpander {
   /** The file, or the adapter's refusal of it. */
   private fetch(uri: string): Netlist | ReadRefusal | undefined {
     const found = typeof this.files === 'function' ? this.files(uri) : this.files.get(uri);
-    if (found && !isRefusal(found) && !this.usedSet.has(uri)) {
-      this.usedSet.add(uri);
-      this.used.push(uri);
-    }
+    if (found && !isRefusal(found)) this.markUsed(uri, found);
     return found;
+  }
+
+  private markUsed(uri: string, tree: Netlist): void {
+    if (this.usedSet.has(uri)) return;
+    this.usedSet.add(uri);
+    this.used.push(uri);
+    this.usedTrees.push([uri, tree]);
+  }
+
+  /** Included cards counted so far. */
+  get splicedCards(): number {
+    return this.spliced;
+  }
+
+  /** Whether the file is still the tree given (the adapter's parse of it, the very object). */
+  sameTree(uri: string, tree: Netlist): boolean {
+    return readSource(this.files, uri) === tree;
+  }
+
+  /**
+   * Stands for a top-level expansion copied from an earlier one that read the same trees
+   * (top-level-runs.ts): the files it read and the included cards it counted.
+   */
+  replayTopLevel(files: readonly (readonly [string, Netlist])[], spliced: number): void {
+    for (const [uri, tree] of files) this.markUsed(uri, tree);
+    this.spliced = spliced;
   }
 
   /**
@@ -153,11 +177,13 @@ export class IncludeExpander {
    * expanded. An explicit work stack, not recursion, and no spreading of a file's items into one
    * call: an included file of any length, nested to the depth limit, costs no stack.
    */
-  expand(items: readonly Item[], uri: string, stack: readonly string[]): PlacedItem[] {
+  expand(items: readonly Item[], uri: string, stack: readonly string[], starts?: number[]): PlacedItem[] {
     const out: PlacedItem[] = [];
     const work: Splice[] = [{ items, next: 0, uri, stack }];
     while (work.length) {
       const top = work[work.length - 1]!;
+      // Where each of `items` starts among the placed ones, and the end (top-level-runs.ts).
+      if (starts && work.length === 1) starts.push(out.length);
       const item = top.items[top.next++];
       if (!item) work.pop();
       else if (item.kind === 'include' || (item.kind === 'lib' && item.path)) {
