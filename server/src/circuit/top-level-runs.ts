@@ -2,8 +2,8 @@
  * Whole runs of a root's top level taken from its last elaboration. An edit changes a few cards;
  * the top-level items before and after them are the same objects (the re-parse moves them), and
  * what each produced is kept card by card (elaboration-memo.ts). Looking each one up again still
- * cost about 15 ms an edit at 50,000 lines (placing every item, a look-up per card, the size check
- * per instance). Here the items are compared with the last elaboration's, position by position
+ * made elaboration about 21 ms of a 50,000-line edit in the worker (placing every item, a look-up
+ * per card, the size check per instance); with the runs copied it is about 10. Here the items are compared with the last elaboration's, position by position
  * from both ends, and the unchanged runs at either end are copied whole: their placed items, and
  * the elements, instances and local models they produced.
  *
